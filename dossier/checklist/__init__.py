@@ -1,0 +1,1 @@
+"""The pre-power-up checklist and the commissioning record."""

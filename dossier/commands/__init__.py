@@ -1,0 +1,1 @@
+"""One module per CLI command; dossier.cli only wires them to click."""

@@ -1,0 +1,78 @@
+"""Field types for the record: quantities with units, parsed once at validation."""
+
+from __future__ import annotations
+
+from typing import Annotated, Any
+
+from pydantic import BaseModel, ConfigDict, PlainSerializer, PlainValidator, WithJsonSchema
+from pydantic_core import PydanticCustomError
+
+from dossier.units import UnitProblem, describe_dimension, parse_quantity, parse_wire
+
+_QUANTITY_PATTERN = r"^\s*[-+]?(\d+(\.\d*)?|\.\d+)([eE][-+]?\d+)?\s*\S.*$"
+
+
+class Section(BaseModel):
+    """Base of every part of the record: unknown keys are errors, values are frozen."""
+
+    model_config = ConfigDict(extra="forbid", frozen=True, arbitrary_types_allowed=True)
+
+
+def _as_pydantic_error(problem: UnitProblem) -> PydanticCustomError:
+    return PydanticCustomError(problem.kind, "expected {expected}, found {found}", {"expected": problem.expected, "found": problem.found})
+
+
+def _validator(dimension: str):
+    def validate(raw: Any):
+        try:
+            return parse_quantity(raw, dimension)
+        except UnitProblem as problem:
+            raise _as_pydantic_error(problem) from None
+
+    return validate
+
+
+def _serialise(quantity) -> str:
+    return f"{quantity.magnitude:g} {quantity.units:~P}".strip()
+
+
+def quantity(dimension: str):
+    """An annotated type: text such as '0.55 mm' becomes a pint Quantity of this dimension."""
+    schema = {"type": "string", "pattern": _QUANTITY_PATTERN, "description": describe_dimension(dimension)}
+    if dimension == "[dimensionless]":
+        schema = {"anyOf": [schema, {"type": "number"}], "description": describe_dimension(dimension)}
+    return Annotated[Any, PlainValidator(_validator(dimension)), PlainSerializer(_serialise, return_type=str), WithJsonSchema(schema)]
+
+
+def _validate_wire(raw: Any):
+    try:
+        return parse_wire(raw)
+    except UnitProblem as problem:
+        raise _as_pydantic_error(problem) from None
+
+
+Length = quantity("[length]")
+Area = quantity("[length] ** 2")
+Voltage = quantity("[electric_potential]")
+Current = quantity("[current]")
+Frequency = quantity("[frequency]")
+Temperature = quantity("[temperature]")
+Duration = quantity("[time]")
+Power = quantity("[power]")
+Resistance = quantity("[resistance]")
+Capacitance = quantity("[capacitance]")
+Inductance = quantity("[inductance]")
+FluxDensity = quantity("[magnetic_flux_density]")
+Energy = quantity("[energy]")
+ThermalResistance = quantity("[thermal_resistance]")
+MeltingIntegral = quantity("[i2t]")
+Charge = quantity("[charge]")
+InductanceFactor = quantity("[inductance_factor]")
+VoltagePerKelvin = quantity("[voltage_per_temperature]")
+Ratio = quantity("[dimensionless]")
+WireSize = Annotated[
+    Any,
+    PlainValidator(_validate_wire),
+    PlainSerializer(_serialise, return_type=str),
+    WithJsonSchema({"type": "string", "description": "wire size: AWG 23, or a bare-copper diameter such as 0.55 mm"}),
+]

@@ -1,0 +1,40 @@
+"""Isolation barriers: what they separate and the distances declared across them."""
+
+from __future__ import annotations
+
+from typing import Literal
+
+from pydantic import Field, model_validator
+
+from dossier.record.fields import Length, Section, Voltage
+
+Grade = Literal["functional", "basic", "supplementary", "reinforced", "double"]
+MaterialGroup = Literal["I", "II", "IIIa", "IIIb"]
+
+
+class Slot(Section):
+    """A groove or slot cut across the creepage path."""
+
+    width: Length = Field(description="Width of the groove across the creepage path.")
+    note: str = ""
+
+
+class Barrier(Section):
+    name: str = Field(min_length=1, description="e.g. 'primary to output'.")
+    between: tuple[str, str] = Field(description="The two circuits it separates, e.g. [mains, output].")
+    grade: Grade = Field(description="functional, basic, supplementary, reinforced or double.")
+    material_group: MaterialGroup | None = Field(None, description="Insulating material group I, II, IIIa or IIIb.")
+    cti: int | None = Field(None, ge=0, le=1000, description="Comparative tracking index; gives the material group when that is not stated.")
+    printed_board: bool = Field(False, description="The creepage path runs over printed-wiring board material.")
+    creepage: Length = Field(description="Shortest creepage distance measured or designed.")
+    clearance: Length = Field(description="Shortest clearance through air.")
+    working_voltage: Voltage | None = Field(None, description="RMS working voltage across the barrier; default: the mains nominal voltage.")
+    working_peak: Voltage | None = Field(None, description="Peak working voltage where it exceeds the mains peak.")
+    slots: list[Slot] = Field(default_factory=list)
+    parts: list[str] = Field(default_factory=list, description="Designators that bridge or form the barrier, e.g. T1, C9.")
+
+    @model_validator(mode="after")
+    def _material_given(self):
+        if self.material_group is None and self.cti is None:
+            raise ValueError("give material_group (I, II, IIIa or IIIb) or cti")
+        return self

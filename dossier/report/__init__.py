@@ -1,0 +1,1 @@
+"""Turning findings into terminal text or JSON."""

@@ -1,0 +1,42 @@
+"""The readable table `dossier check` prints."""
+
+from __future__ import annotations
+
+from dossier.findings import Finding, Verdict, counts
+from dossier.wording import comparison_text, margin_text, problem_line, sources_text
+
+MARKS = {Verdict.FAIL: "FAIL", Verdict.MARGINAL: "MARG", Verdict.PASS: "ok  ", Verdict.INFO: "info"}
+
+
+def finding_lines(finding: Finding, locate) -> list[str]:
+    head = f"  {MARKS[finding.verdict]}  {finding.code:<22} {finding.subject}: {finding.title}"
+    lines = [head]
+    comparison = comparison_text(finding)
+    if comparison:
+        margin = margin_text(finding)
+        lines.append(f"        {comparison}" + (f"; {margin}" if margin else ""))
+    if finding.explanation and finding.verdict in (Verdict.FAIL, Verdict.MARGINAL, Verdict.INFO):
+        lines.append(f"        {finding.explanation}")
+    if finding.keys and finding.verdict is not Verdict.PASS:
+        lines.append(f"        at {locate(finding.keys[0])}")
+    if finding.sources:
+        lines.append(f"        source: {sources_text(finding)}")
+    return lines
+
+
+def record_block(title: str, findings: list[Finding], locate, verbose: bool) -> list[str]:
+    lines = [title]
+    shown = findings if verbose else [f for f in findings if f.verdict is not Verdict.PASS]
+    for finding in sorted(shown, key=lambda f: f.verdict.rank):
+        lines.extend(finding_lines(finding, locate))
+    lines.append("  " + summary_text(findings))
+    return lines
+
+
+def summary_text(findings: list[Finding]) -> str:
+    tally = counts(findings)
+    return ", ".join(f"{n} {verdict.value}" for verdict, n in tally.items())
+
+
+def problem_block(problems) -> list[str]:
+    return [problem_line(p) for p in problems]

@@ -1,0 +1,1 @@
+"""Page generation: records and findings to a plain Markdown tree (no MkDocs API here)."""

@@ -1,0 +1,168 @@
+"""Reading YAML while keeping where every key and value stands in the file."""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+from pathlib import Path
+
+import yaml
+
+from dossier.problems import InputError, Location, Problem
+
+MAX_BYTES = 1_000_000
+MAX_NODES = 50_000
+MAX_DEPTH = 40
+
+KeyPath = tuple
+
+
+@dataclass(frozen=True)
+class Spot:
+    key: Location
+    value: Location
+
+
+class SourceMap:
+    """Maps a key path such as ('barriers', 0, 'creepage') to its place in the file."""
+
+    def __init__(self, file: str):
+        self.file = file
+        self._spots: dict[KeyPath, Spot] = {}
+
+    def record(self, path: KeyPath, key: Location, value: Location) -> None:
+        self._spots[path] = Spot(key, value)
+
+    def locate(self, path: KeyPath, *, at_key: bool = False) -> Location:
+        """The nearest known place for a path: the value itself, or its closest parent."""
+        for end in range(len(path), -1, -1):
+            spot = self._spots.get(tuple(path[:end]))
+            if spot is not None:
+                return spot.key if at_key and end == len(path) else spot.value
+        return Location(self.file, 1, 1)
+
+    def __contains__(self, path: KeyPath) -> bool:
+        return tuple(path) in self._spots
+
+
+@dataclass(frozen=True)
+class Document:
+    data: object
+    sources: SourceMap
+    text: str
+
+
+def read_document(path: Path, shown_as: str | None = None) -> Document:
+    """Load one YAML file safely; any problem is raised as a located InputError."""
+    name = shown_as or str(path)
+    text = _read_text(path, name)
+    node = _compose(text, name)
+    sources = SourceMap(name)
+    data = _Converter(sources).convert(node, ()) if node is not None else None
+    return Document(data, sources, text)
+
+
+def _read_text(path: Path, name: str) -> str:
+    try:
+        raw = path.read_bytes()
+    except OSError as error:
+        raise _single("file_unreadable", Location(name), found=error.strerror or str(error))
+    if len(raw) > MAX_BYTES:
+        raise _single("file_too_large", Location(name), expected=f"at most {MAX_BYTES:,} bytes", found=f"{len(raw):,} bytes")
+    try:
+        return raw.decode("utf-8-sig")
+    except UnicodeDecodeError as error:
+        return _bad_encoding(raw, error, name)
+
+
+def _bad_encoding(raw: bytes, error: UnicodeDecodeError, name: str):
+    before = raw[: error.start]
+    line = before.count(b"\n") + 1
+    column = error.start - (before.rfind(b"\n") + 1) + 1
+    found = f"byte 0x{raw[error.start]:02x}"
+    raise _single("not_utf8", Location(name, line, column), expected="UTF-8 text", found=found)
+
+
+def _compose(text: str, name: str):
+    try:
+        return yaml.compose(text, Loader=yaml.SafeLoader)
+    except yaml.MarkedYAMLError as error:
+        mark = error.problem_mark or error.context_mark
+        location = Location(name, mark.line + 1, mark.column + 1) if mark else Location(name)
+        raise _single("yaml_syntax", location, found=error.problem or str(error)) from None
+    except yaml.YAMLError as error:
+        raise _single("yaml_syntax", Location(name), found=str(error)) from None
+
+
+def _single(code: str, location: Location, **details) -> InputError:
+    return InputError([Problem(code, location, **details)])
+
+
+def _location(sources: SourceMap, node) -> Location:
+    return Location(sources.file, node.start_mark.line + 1, node.start_mark.column + 1)
+
+
+class _Converter:
+    """Turns composed nodes into plain data, bounding size and depth (aliases count each time used)."""
+
+    def __init__(self, sources: SourceMap):
+        self.sources = sources
+        self.count = 0
+        self.constructor = yaml.constructor.SafeConstructor()
+
+    def convert(self, node, path: KeyPath, depth: int = 0):
+        self._guard(node, depth)
+        if isinstance(node, yaml.MappingNode):
+            return self._mapping(node, path, depth)
+        if isinstance(node, yaml.SequenceNode):
+            return [self._item(child, path + (i,), depth) for i, child in enumerate(node.value)]
+        return self._scalar(node)
+
+    def _guard(self, node, depth: int) -> None:
+        self.count += 1
+        where = _location(self.sources, node)
+        if self.count > MAX_NODES:
+            raise _single("too_many_nodes", where, expected=f"at most {MAX_NODES:,} values (aliases count each time they are used)")
+        if depth > MAX_DEPTH:
+            raise _single("too_deep", where, expected=f"nesting at most {MAX_DEPTH} levels")
+
+    def _item(self, child, path: KeyPath, depth: int):
+        where = _location(self.sources, child)
+        self.sources.record(path, where, where)
+        return self.convert(child, path, depth + 1)
+
+    def _mapping(self, node, path: KeyPath, depth: int) -> dict:
+        result: dict = {}
+        for key_node, value_node in node.value:
+            if key_node.tag == "tag:yaml.org,2002:merge":
+                raise _single("merge_key", _location(self.sources, key_node), found="'<<' merge key", hint="write the keys out in full")
+            key = self._key(key_node)
+            if key in result:
+                raise _single("duplicate_key", _location(self.sources, key_node), key=_dotted(path + (key,)), found=f"{key!r} given twice")
+            self.sources.record(path + (key,), _location(self.sources, key_node), _location(self.sources, value_node))
+            result[key] = self.convert(value_node, path + (key,), depth + 1)
+        return result
+
+    def _key(self, node):
+        if not isinstance(node, yaml.ScalarNode):
+            raise _single("bad_key", _location(self.sources, node), expected="a plain key", found="a list or mapping used as a key")
+        return str(self._scalar(node))
+
+    def _scalar(self, node):
+        try:
+            return self.constructor.construct_object(node, deep=True)
+        except yaml.constructor.ConstructorError as error:
+            raise _single("yaml_value", _location(self.sources, node), found=error.problem or str(error)) from None
+        except ValueError as error:
+            raise _single("yaml_value", _location(self.sources, node), found=str(error)) from None
+
+
+def _dotted(path: KeyPath) -> str:
+    return dotted(path)
+
+
+def dotted(path) -> str:
+    """('barriers', 0, 'creepage') -> 'barriers[0].creepage'."""
+    text = ""
+    for part in path:
+        text += f"[{part}]" if isinstance(part, int) else (f".{part}" if text else str(part))
+    return text

@@ -1,0 +1,1 @@
+"""Tables and rules from published standards, as data and small pure functions."""

@@ -1,0 +1,165 @@
+"""The package's one units registry, and parsing of values as people write them."""
+
+from __future__ import annotations
+
+import math
+import re
+from functools import lru_cache
+
+import pint
+
+_NUMBER = r"[-+]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][-+]?\d+)?"
+_VALUE = re.compile(rf"^\s*(?P<number>{_NUMBER})\s*(?P<unit>.*?)\s*$")
+_AWG = re.compile(r"^\s*AWG\s*(?P<gauge>\d{1,2}|0{1,4}|[1-4]/0)\s*$", re.IGNORECASE)
+
+DIMENSION_NAMES = {
+    "[length]": "length (e.g. 1.5 mm)",
+    "[length] ** 2": "area (e.g. 0.5 mm^2)",
+    "[electric_potential]": "voltage (e.g. 230 V)",
+    "[current]": "current (e.g. 1.6 A)",
+    "[frequency]": "frequency (e.g. 50 Hz)",
+    "[temperature]": "temperature (e.g. 40 degC)",
+    "[time]": "time (e.g. 10 ms)",
+    "[power]": "power (e.g. 60 W)",
+    "[resistance]": "resistance (e.g. 10 ohm)",
+    "[capacitance]": "capacitance (e.g. 470 uF)",
+    "[inductance]": "inductance (e.g. 100 uH)",
+    "[magnetic_flux_density]": "flux density (e.g. 0.39 T)",
+    "[energy]": "energy (e.g. 2.5 J)",
+    "[thermal_resistance]": "thermal resistance (e.g. 2.5 K/W)",
+    "[i2t]": "melting integral (e.g. 3.2 A^2 s)",
+    "[charge]": "charge (e.g. 7 Ah)",
+    "[inductance_factor]": "inductance factor A_L (e.g. 2500 nH)",
+    "[voltage_per_temperature]": "voltage per kelvin (e.g. -18 mV/K)",
+    "[dimensionless]": "ratio or percentage (e.g. 10 %)",
+}
+
+# Dimension names the record uses beyond pint's own.
+_DERIVED = {
+    "[thermal_resistance]": "kelvin / watt",
+    "[i2t]": "ampere ** 2 * second",
+    "[charge]": "ampere * hour",
+    "[inductance_factor]": "henry",
+    "[magnetic_flux_density]": "tesla",
+    "[energy]": "joule",
+    "[power]": "watt",
+    "[resistance]": "ohm",
+    "[capacitance]": "farad",
+    "[inductance]": "henry",
+    "[electric_potential]": "volt",
+    "[voltage_per_temperature]": "volt / kelvin",
+    "[dimensionless]": "dimensionless",
+}
+
+
+@lru_cache(maxsize=1)
+def registry() -> pint.UnitRegistry:
+    """The registry; built once and cached on disk so start-up stays quick."""
+    reg = pint.UnitRegistry(cache_folder=":auto:", autoconvert_offset_to_baseunit=True)
+    reg.formatter.default_format = "~P"
+    return reg
+
+
+def Q_(magnitude, unit="dimensionless"):
+    return registry().Quantity(magnitude, unit)
+
+
+class UnitProblem(ValueError):
+    """A value that is not a quantity of the expected dimension."""
+
+    def __init__(self, kind: str, expected: str, found: str):
+        super().__init__(kind)
+        self.kind = kind
+        self.expected = expected
+        self.found = found
+
+
+def dimensionality_of(dimension: str):
+    reference = _DERIVED.get(dimension)
+    if reference is not None:
+        return registry().parse_units(reference).dimensionality
+    return registry().get_dimensionality(dimension)
+
+
+def describe_dimension(dimension: str) -> str:
+    return DIMENSION_NAMES.get(dimension, dimension)
+
+
+def parse_quantity(raw, dimension: str):
+    """Parse '0.55 mm' (or a pint Quantity) into a Quantity of the given dimension."""
+    expected = describe_dimension(dimension)
+    if isinstance(raw, bool) or raw is None:
+        raise UnitProblem("not_a_quantity", expected, repr(raw))
+    if isinstance(raw, (int, float)):
+        if dimension == "[dimensionless]":
+            return Q_(raw)
+        raise UnitProblem("missing_unit", expected, f"bare number {raw!r}")
+    if isinstance(raw, pint.Quantity):
+        quantity = raw
+    elif isinstance(raw, str):
+        quantity = _parse_text(raw, expected)
+    else:
+        raise UnitProblem("not_a_quantity", expected, type(raw).__name__)
+    return _checked(quantity, dimension, expected)
+
+
+def _parse_text(text: str, expected: str):
+    match = _VALUE.match(text)
+    if not match:
+        raise UnitProblem("not_a_quantity", expected, repr(text))
+    number, unit = float(match["number"]), match["unit"] or "dimensionless"
+    if not math.isfinite(number):
+        raise UnitProblem("not_a_quantity", expected, repr(text))
+    try:
+        return Q_(number, unit.replace("Ω", "ohm"))
+    except (pint.errors.PintError, AttributeError, TypeError, ValueError, SyntaxError):
+        raise UnitProblem("unknown_unit", expected, f"unknown unit {unit!r}") from None
+
+
+def _checked(quantity, dimension: str, expected: str):
+    if quantity.dimensionality != dimensionality_of(dimension):
+        raise UnitProblem("wrong_dimension", expected, f"{quantity:~P} ({_dim_text(quantity)})")
+    return quantity
+
+
+def _dim_text(quantity) -> str:
+    dims = str(quantity.dimensionality)
+    for name, reference in _DERIVED.items():
+        if registry().parse_units(reference).dimensionality == quantity.dimensionality:
+            return describe_dimension(name).split(" (")[0]
+    return describe_dimension(dims).split(" (")[0]
+
+
+def awg_diameter(gauge: int):
+    """Bare-copper diameter of an AWG size, ASTM B258: d = 0.005 in * 92 ** ((36 - n) / 39)."""
+    return Q_(0.005 * 92 ** ((36 - gauge) / 39), "inch").to("mm")
+
+
+def parse_wire(raw):
+    """A wire size: 'AWG 23' or a diameter such as '0.55 mm'."""
+    if isinstance(raw, str):
+        match = _AWG.match(raw)
+        if match:
+            return awg_diameter(_gauge_number(match["gauge"]))
+    try:
+        return parse_quantity(raw, "[length]")
+    except UnitProblem as problem:
+        raise UnitProblem(problem.kind, "wire size (e.g. AWG 23 or 0.55 mm)", problem.found) from None
+
+
+def _gauge_number(text: str) -> int:
+    if "/" in text:
+        return 1 - int(text.split("/")[0])
+    if set(text) == {"0"}:
+        return 1 - len(text)
+    return int(text)
+
+
+def fmt(quantity, digits: int = 3) -> str:
+    """A quantity as short text with a sensible number of significant digits."""
+    magnitude = quantity.magnitude
+    text = f"{magnitude:.{digits}g}" if isinstance(magnitude, float) else str(magnitude)
+    unit = f"{quantity.units:~P}"
+    if unit in ("", "dimensionless"):
+        return text
+    return f"{text} {unit}"

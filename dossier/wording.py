@@ -1,0 +1,105 @@
+"""Every sentence dossier says about problems and findings is made here, from structured data."""
+
+from __future__ import annotations
+
+from dossier.findings import Finding, Measure, Source
+from dossier.problems import Problem
+from dossier.units import fmt
+
+PROBLEM_TEXT = {
+    "missing": "required key is missing",
+    "extra_forbidden": "unknown key",
+    "missing_unit": "a unit is needed",
+    "wrong_dimension": "wrong kind of unit",
+    "unknown_unit": "unit not recognised",
+    "not_a_quantity": "not a value with a unit",
+    "duplicate_key": "key given twice",
+    "yaml_syntax": "YAML syntax error",
+    "yaml_value": "value cannot be read",
+    "not_utf8": "file is not UTF-8 text",
+    "file_too_large": "file too large",
+    "file_unreadable": "file cannot be read",
+    "too_many_nodes": "too many values (alias expansion refused)",
+    "too_deep": "nesting too deep",
+    "merge_key": "YAML merge keys are not supported",
+    "bad_key": "key must be plain text",
+    "not_a_mapping": "a record must be a mapping",
+    "revision_mismatch": "revision does not match the file name",
+    "id_mismatch": "id does not match the build folder",
+    "path_missing": "no such file or folder",
+    "literal_error": "not one of the allowed values",
+    "string_pattern_mismatch": "text is not in the expected form",
+}
+
+
+def problem_line(problem: Problem) -> str:
+    """One line per problem: 'file:line:col: key: what; expected X, found Y (hint)'."""
+    head = f"{problem.location}: "
+    if problem.key:
+        head += f"{problem.key}: "
+    text = head + PROBLEM_TEXT.get(problem.code, problem.code.replace("_", " "))
+    details = [part for part in (_expected(problem), _found(problem)) if part]
+    if details:
+        text += "; " + ", ".join(details)
+    if problem.hint:
+        text += f" ({problem.hint})"
+    return text
+
+
+def _expected(problem: Problem) -> str:
+    return f"expected {problem.expected}" if problem.expected else ""
+
+
+def _found(problem: Problem) -> str:
+    return f"found {problem.found}" if problem.found else ""
+
+
+def measure_text(measure: Measure | None) -> str:
+    if measure is None:
+        return ""
+    return f"{measure.label} {quantity_text(measure.quantity)}"
+
+
+def quantity_text(quantity) -> str:
+    if hasattr(quantity, "units"):
+        return fmt(quantity)
+    return str(quantity)
+
+
+def comparison_text(finding: Finding) -> str:
+    """'3.2 mm >= 2.5 mm required' or '' when the finding has no limit."""
+    if finding.value is None:
+        return ""
+    if finding.limit is None:
+        return quantity_text(finding.value.quantity)
+    return f"{quantity_text(finding.value.quantity)} {_relation(finding.relation)} {quantity_text(finding.limit.quantity)} ({finding.limit.label})"
+
+
+def _relation(relation: str) -> str:
+    return {">=": "vs at least", "<=": "vs at most"}.get(relation, relation)
+
+
+def margin_text(finding: Finding) -> str:
+    """By how much the value clears or misses its limit, in the value's units."""
+    if finding.value is None or finding.limit is None or not hasattr(finding.value.quantity, "units"):
+        return ""
+    value, limit = finding.value.quantity, finding.limit.quantity.to(finding.value.quantity.units)
+    gap = value - limit if finding.relation == ">=" else limit - value
+    word = "short by" if gap.magnitude < 0 else "margin"
+    return f"{word} {fmt(abs(gap))}"
+
+
+def source_text(source: Source) -> str:
+    if source.is_common_practice:
+        return f"common practice: {source.title}"
+    parts = [source.title]
+    if source.edition:
+        parts.append(source.edition)
+    if source.clause:
+        parts.append(source.clause)
+    text = ", ".join(parts)
+    return f"{text} ({source.publisher})" if source.publisher else text
+
+
+def sources_text(finding: Finding) -> str:
+    return "; ".join(source_text(source) for source in finding.sources)
