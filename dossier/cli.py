@@ -10,6 +10,12 @@ import click
 from dossier import __version__
 
 
+class Refused(click.ClickException):
+    """Bad input from the user: a message and exit status 2, never a traceback."""
+
+    exit_code = 2
+
+
 @click.group(context_settings={"help_option_names": ["-h", "--help"]})
 @click.version_option(__version__, prog_name="dossier")
 def main() -> None:
@@ -56,5 +62,5 @@ def new(build_id: str, archive: Path) -> None:
     try:
         path = scaffold(archive, build_id)
     except NewBuildRefused as refused:
-        raise click.ClickException(str(refused)) from None
+        raise Refused(str(refused)) from None
     click.echo(f"wrote {path}")

@@ -14,6 +14,7 @@ MAX_NODES = 50_000
 MAX_DEPTH = 40
 
 KeyPath = tuple
+PLAIN_TAGS = {f"tag:yaml.org,2002:{name}" for name in ("str", "int", "float", "bool", "null", "map", "seq", "timestamp", "merge")}
 
 
 @dataclass(frozen=True)
@@ -57,6 +58,8 @@ def read_document(path: Path, shown_as: str | None = None) -> Document:
     text = _read_text(path, name)
     node = _compose(text, name)
     sources = SourceMap(name)
+    if node is not None:
+        sources.record((), _location(sources, node), _location(sources, node))
     data = _Converter(sources).convert(node, ()) if node is not None else None
     return Document(data, sources, text)
 
@@ -88,9 +91,17 @@ def _compose(text: str, name: str):
     except yaml.MarkedYAMLError as error:
         mark = error.problem_mark or error.context_mark
         location = Location(name, mark.line + 1, mark.column + 1) if mark else Location(name)
-        raise _single("yaml_syntax", location, found=error.problem or str(error)) from None
+        raise _single("yaml_syntax", location, found=error.problem or str(error), hint=_syntax_context(error)) from None
     except yaml.YAMLError as error:
         raise _single("yaml_syntax", Location(name), found=str(error)) from None
+
+
+def _syntax_context(error: yaml.MarkedYAMLError) -> str:
+    """Where the construct that the error broke off began, e.g. the '[' of an unclosed list."""
+    mark, context = error.context_mark, error.context
+    if not (mark and context) or mark is error.problem_mark:
+        return ""
+    return f"{context} that began at line {mark.line + 1}, column {mark.column + 1}"
 
 
 def _single(code: str, location: Location, **details) -> InputError:
@@ -115,7 +126,7 @@ class _Converter:
             return self._mapping(node, path, depth)
         if isinstance(node, yaml.SequenceNode):
             return [self._item(child, path + (i,), depth) for i, child in enumerate(node.value)]
-        return self._scalar(node)
+        return self._scalar(node, path)
 
     def _guard(self, node, depth: int) -> None:
         self.count += 1
@@ -124,6 +135,8 @@ class _Converter:
             raise _single("too_many_nodes", where, expected=f"at most {MAX_NODES:,} values (aliases count each time they are used)")
         if depth > MAX_DEPTH:
             raise _single("too_deep", where, expected=f"nesting at most {MAX_DEPTH} levels")
+        if node.tag not in PLAIN_TAGS:
+            raise _single("yaml_tag", where, expected="plain YAML values", found=f"tag {node.tag}")
 
     def _item(self, child, path: KeyPath, depth: int):
         where = _location(self.sources, child)
@@ -145,15 +158,14 @@ class _Converter:
     def _key(self, node):
         if not isinstance(node, yaml.ScalarNode):
             raise _single("bad_key", _location(self.sources, node), expected="a plain key", found="a list or mapping used as a key")
-        return str(self._scalar(node))
+        return str(self._scalar(node, ()))
 
-    def _scalar(self, node):
+    def _scalar(self, node, path: KeyPath):
         try:
             return self.constructor.construct_object(node, deep=True)
-        except yaml.constructor.ConstructorError as error:
-            raise _single("yaml_value", _location(self.sources, node), found=error.problem or str(error)) from None
-        except ValueError as error:
-            raise _single("yaml_value", _location(self.sources, node), found=str(error)) from None
+        except (yaml.constructor.ConstructorError, ValueError) as error:
+            found = getattr(error, "problem", None) or str(error)
+            raise _single("yaml_value", _location(self.sources, node), key=dotted(path), found=found) from None
 
 
 def _dotted(path: KeyPath) -> str:

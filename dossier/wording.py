@@ -21,6 +21,7 @@ PROBLEM_TEXT = {
     "file_unreadable": "file cannot be read",
     "too_many_nodes": "too many values (alias expansion refused)",
     "too_deep": "nesting too deep",
+    "yaml_tag": "YAML tags are not allowed",
     "merge_key": "YAML merge keys are not supported",
     "bad_key": "key must be plain text",
     "not_a_mapping": "a record must be a mapping",

@@ -38,9 +38,10 @@ def _serialise(quantity) -> str:
 
 def quantity(dimension: str):
     """An annotated type: text such as '0.55 mm' becomes a pint Quantity of this dimension."""
-    schema = {"type": "string", "pattern": _QUANTITY_PATTERN, "description": describe_dimension(dimension)}
+    kind = describe_dimension(dimension)
+    schema = {"type": "string", "pattern": _QUANTITY_PATTERN, "description": kind, "x-quantity": kind}
     if dimension == "[dimensionless]":
-        schema = {"anyOf": [schema, {"type": "number"}], "description": describe_dimension(dimension)}
+        schema = {"anyOf": [{"type": "string", "pattern": _QUANTITY_PATTERN}, {"type": "number"}], "description": kind, "x-quantity": kind}
     return Annotated[Any, PlainValidator(_validator(dimension)), PlainSerializer(_serialise, return_type=str), WithJsonSchema(schema)]
 
 
@@ -50,6 +51,8 @@ def _validate_wire(raw: Any):
     except UnitProblem as problem:
         raise _as_pydantic_error(problem) from None
 
+
+_WIRE = "wire size: AWG 23, or a bare-copper diameter such as 0.55 mm"
 
 Length = quantity("[length]")
 Area = quantity("[length] ** 2")
@@ -74,5 +77,5 @@ WireSize = Annotated[
     Any,
     PlainValidator(_validate_wire),
     PlainSerializer(_serialise, return_type=str),
-    WithJsonSchema({"type": "string", "description": "wire size: AWG 23, or a bare-copper diameter such as 0.55 mm"}),
+    WithJsonSchema({"type": "string", "description": _WIRE, "x-quantity": _WIRE}),
 ]

@@ -1,0 +1,29 @@
+"""Shared fixtures: the demo archive and loading its records."""
+
+from __future__ import annotations
+
+from pathlib import Path
+
+import pytest
+
+from dossier.archive import RevisionFile, load_revision
+from dossier.plugins import load_calcs
+
+ROOT = Path(__file__).resolve().parents[1]
+DEMO = ROOT / "demo" / "archive"
+
+
+@pytest.fixture(scope="session")
+def demo_archive() -> Path:
+    return DEMO
+
+
+def load_demo(build: str, revision: str = "A"):
+    """The validated record of one demo revision."""
+    path = DEMO / build / f"rev-{revision}.yaml"
+    return load_revision(RevisionFile(build, revision, path)).record
+
+
+@pytest.fixture(scope="session")
+def calcs():
+    return load_calcs()
