@@ -76,3 +76,15 @@ def _placement_problems(rev: RevisionFile, loaded: LoadedRecord):
         yield Problem("revision_mismatch", loaded.locate(("revision",)), key="revision", expected=f"'{rev.letter}', as in the file name {rev.path.name}", found=repr(record.revision))
     if rev.letter and record.id != rev.build_id:
         yield Problem("id_mismatch", loaded.locate(("id",)), key="id", expected=f"'{rev.build_id}', the build folder's name", found=repr(record.id))
+    for index, attachment in enumerate(record.attachments):
+        yield from _attachment_problems(rev.path.parent, index, attachment.path, loaded)
+
+
+def _attachment_problems(build_dir: Path, index: int, relative: str, loaded: LoadedRecord):
+    key = ("attachments", index, "path")
+    target = build_dir / relative
+    archive_root = build_dir.resolve().parent
+    if not target.is_file():
+        yield Problem("attachment_missing", loaded.locate(key), key=f"attachments[{index}].path", expected="a file inside the build folder", found=f"no file at {relative!r}")
+    elif not target.resolve().is_relative_to(archive_root):
+        yield Problem("unsafe_path", loaded.locate(key), key=f"attachments[{index}].path", expected="a file inside the archive", found=f"{relative!r} links outside it")

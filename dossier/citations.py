@@ -47,7 +47,68 @@ IET_INSERVICE_COP = Source(
     kind="handbook",
 )
 DIN_EN_50678 = Source(
-    title="DIN EN 50678 (VDE 0701), General procedure for verifying the effectiveness of the protective measures of electrical equipment after repair; earlier DIN VDE 0701-0702:2008",
+    title="DIN EN 50678 (VDE 0701), General procedure for verifying the effectiveness of the protective measures of electrical equipment after repair",
     publisher="DKE / VDE",
-    edition="2021",
+    edition="2021; earlier DIN VDE 0701-0702:2008",
+)
+ARRL_HANDBOOK = Source(
+    title="The ARRL Handbook for Radio Communications",
+    publisher="American Radio Relay League",
+    clause="power supplies chapter: rectifier peak inverse voltage",
+    kind="handbook",
+)
+MOHAN_POWER_ELECTRONICS = Source(
+    title="Power Electronics: Converters, Applications, and Design (N. Mohan, T. M. Undeland, W. P. Robbins)",
+    publisher="John Wiley & Sons",
+    edition="3rd edition, 2003",
+    kind="handbook",
+)
+IEC_62368_1 = Source(
+    title="IEC 62368-1, Audio/video, information and communication technology equipment - Part 1: Safety requirements",
+    publisher="International Electrotechnical Commission",
+)
+IEC_61140 = Source(
+    title="IEC 61140, Protection against electric shock - Common aspects for installation and equipment",
+    publisher="International Electrotechnical Commission",
+)
+LINDEN_BATTERIES = Source(
+    title="Linden's Handbook of Batteries (T. B. Reddy, ed.)",
+    publisher="McGraw-Hill",
+    edition="4th edition, 2011",
+    clause="lead-acid and valve-regulated lead-acid chapters: charging (figures recalled from memory)",
+    kind="handbook",
+)
+TROJAN_USERS_GUIDE = Source(
+    title="Trojan Battery User's Guide: charging flooded deep-cycle batteries",
+    publisher="Trojan Battery Company",
+    clause="charger voltage settings (figures recalled from memory)",
+    kind="application-note",
+)
+YUASA_NP_MANUAL = Source(
+    title="NP Valve Regulated Lead Acid Battery Manual",
+    publisher="Yuasa Battery (Europe)",
+    clause="charging: cyclic and float use (figures recalled from memory)",
+    kind="application-note",
+)
+GEL_VRLA_HANDBOOK = Source(
+    title="Handbook for Gel-VRLA-Batteries, Part 2: Installation, Commissioning and Operation",
+    publisher="GNB Industrial Power (Exide Technologies)",
+    clause="charging (figures recalled from memory)",
+    kind="application-note",
+)
+IEC_60050_131 = Source(
+    title="IEC 60050-131, International Electrotechnical Vocabulary - Part 131: Circuit theory",
+    publisher="International Electrotechnical Commission",
+    clause="power factor: active power divided by apparent power",
+)
+EDN_FUSE_CHECKLIST = Source(
+    title="The fuse-selection checklist: a quick update (EDN, 26 September 1996)",
+    publisher="EDN",
+    clause="running at 75 % of rating and re-rating for ambient",
+    kind="reference",
+)
+MCLYMAN = Source(
+    title="Transformer and Inductor Design Handbook (Colonel Wm. T. McLyman)",
+    publisher="CRC Press",
+    kind="handbook",
 )

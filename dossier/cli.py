@@ -16,6 +16,12 @@ class Refused(click.ClickException):
     exit_code = 2
 
 
+class BrokenPlugin(click.ClickException):
+    """An installed calc plugin cannot be used: not the record's fault, so its own exit status."""
+
+    exit_code = 3
+
+
 @click.group(context_settings={"help_option_names": ["-h", "--help"]})
 @click.version_option(__version__, prog_name="dossier")
 def main() -> None:
@@ -31,10 +37,17 @@ def main() -> None:
 @click.option("--format", "output_format", type=click.Choice(["text", "json"]), default="text", help="text for people, json for machines.")
 @click.option("--all", "verbose", is_flag=True, help="Also list the findings that pass.")
 def check(paths: tuple[Path, ...], output_format: str, verbose: bool) -> None:
-    """Validate records and run every calc. Exit 0 clean, 1 a check failed, 2 a record is invalid."""
-    from dossier.commands.check import render, run_check
+    """Validate records and run every calc.
 
-    outcome = run_check(list(paths), verbose)
+    Exit status: 0 clean, 1 a check failed, 2 a record is invalid or unreadable, 3 a calc plugin is broken.
+    """
+    from dossier.commands.check import render, run_check
+    from dossier.plugins import PluginError
+
+    try:
+        outcome = run_check(list(paths), verbose)
+    except PluginError as error:
+        raise BrokenPlugin(str(error)) from None
     click.echo(render(outcome, output_format == "json"))
     sys.exit(outcome.exit_code)
 
@@ -64,3 +77,65 @@ def new(build_id: str, archive: Path) -> None:
     except NewBuildRefused as refused:
         raise Refused(str(refused)) from None
     click.echo(f"wrote {path}")
+
+
+@main.command()
+@click.argument("archive", type=click.Path(path_type=Path, file_okay=False))
+@click.option("-o", "--output", type=click.Path(path_type=Path), help="Folder for the site; default: 'site' beside the archive folder. Replaced whole on success.")
+@click.option("--pages-only", is_flag=True, help="Write only the Markdown page tree (e.g. into another MkDocs project's docs), not the rendered site.")
+@click.option("--no-cache", is_flag=True, help="Draw every schematic again instead of reusing unchanged drawings.")
+@click.option("-q", "--quiet", is_flag=True, help="No progress bar on long builds.")
+def build(archive: Path, output: Path | None, pages_only: bool, no_cache: bool, quiet: bool) -> None:
+    """Build ARCHIVE into a static site that works offline, from a folder or any web server.
+
+    Exit status: 0 built, 1 MkDocs failed (the previous site is untouched), 2 a record is invalid,
+    a published revision was edited or the output cannot be replaced, 3 a calc plugin is broken.
+    """
+    from dossier.commands.build import run_build
+
+    sys.exit(run_build(archive, output, pages_only, quiet, not no_cache))
+
+
+@main.command()
+@click.argument("archive", type=click.Path(path_type=Path, file_okay=False, exists=True))
+@click.option("--host", default="127.0.0.1", show_default=True, help="Address to listen on.")
+@click.option("--port", default=8000, show_default=True, type=click.IntRange(0, 65535), help="Port to listen on.")
+def serve(archive: Path, host: str, port: int) -> None:
+    """Preview ARCHIVE's site and rebuild it whenever a record or template changes."""
+    from dossier.commands.serve import run_serve
+
+    sys.exit(run_serve(archive, host, port))
+
+
+@main.command()
+@click.argument("old", type=click.Path(path_type=Path))
+@click.argument("new", type=click.Path(path_type=Path))
+def diff(old: Path, new: Path) -> None:
+    """Show what changed from record OLD to record NEW: values (old -> new, with units) and findings."""
+    from dossier.commands.diff import diff_text
+    from dossier.problems import InputError
+    from dossier.wording import problem_line
+
+    try:
+        click.echo(diff_text(old, new))
+    except InputError as error:
+        raise Refused("\n".join(problem_line(p) for p in error.problems)) from None
+
+
+@main.command()
+@click.argument("archive", type=click.Path(path_type=Path, file_okay=False, exists=True))
+@click.argument("targets", nargs=-1)
+@click.option("--amend", "amend_target", metavar="BUILD:REV", help="Accept an edit of a published revision (typo fixes only); recorded and shown on the site.")
+@click.option("--reason", help="With --amend: what the edit fixed.")
+@click.option("--check", "check_only", is_flag=True, help="Only check that published revisions are unchanged (exit 1 if one changed).")
+def publish(archive: Path, targets: tuple[str, ...], amend_target: str | None, reason: str | None, check_only: bool) -> None:
+    """Freeze revisions: record the content hash of every unpublished revision (or of TARGETS: BUILD or BUILD:REV).
+
+    A published revision cannot be edited any more: `dossier build` refuses until the edit is undone
+    or put into a new revision.
+    """
+    import datetime
+
+    from dossier.commands.publish import run_publish
+
+    sys.exit(run_publish(archive, list(targets), amend_target, reason, check_only, datetime.date.today()))

@@ -92,8 +92,16 @@ def _compose(text: str, name: str):
         mark = error.problem_mark or error.context_mark
         location = Location(name, mark.line + 1, mark.column + 1) if mark else Location(name)
         raise _single("yaml_syntax", location, found=error.problem or str(error), hint=_syntax_context(error)) from None
+    except yaml.reader.ReaderError as error:
+        location = _offset_location(text, error.position, name)
+        raise _single("control_character", location, expected="printable text", found=f"character U+{ord(error.character) if isinstance(error.character, str) else error.character:04X}") from None
     except yaml.YAMLError as error:
-        raise _single("yaml_syntax", Location(name), found=str(error)) from None
+        raise _single("yaml_syntax", Location(name, 1, 1), found=str(error)) from None
+
+
+def _offset_location(text: str, offset: int, name: str) -> Location:
+    before = text[:offset]
+    return Location(name, before.count("\n") + 1, offset - (before.rfind("\n") + 1) + 1)
 
 
 def _syntax_context(error: yaml.MarkedYAMLError) -> str:

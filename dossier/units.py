@@ -31,6 +31,7 @@ DIMENSION_NAMES = {
     "[charge]": "charge (e.g. 7 Ah)",
     "[inductance_factor]": "inductance factor A_L (e.g. 2500 nH)",
     "[voltage_per_temperature]": "voltage per kelvin (e.g. -18 mV/K)",
+    "[current] / [length]": "field strength (e.g. 4000 A/m)",
     "[dimensionless]": "ratio or percentage (e.g. 10 %)",
 }
 
@@ -112,7 +113,7 @@ def _parse_text(text: str, expected: str):
         raise UnitProblem("not_a_quantity", expected, repr(text))
     try:
         return Q_(number, unit.replace("Ω", "ohm"))
-    except (pint.errors.PintError, AttributeError, TypeError, ValueError, SyntaxError):
+    except Exception:  # pint's parser raises many kinds (tokenize, syntax, key errors) on odd text
         raise UnitProblem("unknown_unit", expected, f"unknown unit {unit!r}") from None
 
 

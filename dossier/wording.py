@@ -2,7 +2,7 @@
 
 from __future__ import annotations
 
-from dossier.findings import Finding, Measure, Source
+from dossier.findings import Finding, Measure, Source, Verdict
 from dossier.problems import Problem
 from dossier.units import fmt
 
@@ -21,15 +21,29 @@ PROBLEM_TEXT = {
     "file_unreadable": "file cannot be read",
     "too_many_nodes": "too many values (alias expansion refused)",
     "too_deep": "nesting too deep",
+    "control_character": "file holds a control character",
     "yaml_tag": "YAML tags are not allowed",
     "merge_key": "YAML merge keys are not supported",
     "bad_key": "key must be plain text",
     "not_a_mapping": "a record must be a mapping",
     "revision_mismatch": "revision does not match the file name",
     "id_mismatch": "id does not match the build folder",
+    "attachment_missing": "attachment not found",
+    "unsafe_path": "path leaves the archive",
     "path_missing": "no such file or folder",
     "literal_error": "not one of the allowed values",
     "string_pattern_mismatch": "text is not in the expected form",
+    "unknown_item": "no such item on this revision's checklist",
+    "value_not_expected": "this item takes no measured value",
+    "build_mismatch": "build does not match the folder",
+    "same_person": "the witness must be a second person",
+    "temperature_not_rise": "a temperature rise is needed, not a reading",
+    "published_changed": "this revision was published and its file has changed since",
+    "published_missing": "a published revision's record file is gone",
+    "published_file_changed": "a file attached to a published revision has changed",
+    "not_published": "this revision has not been published",
+    "nothing_to_amend": "nothing to amend",
+    "unknown_revision": "no such build or revision",
 }
 
 
@@ -104,3 +118,43 @@ def source_text(source: Source) -> str:
 
 def sources_text(finding: Finding) -> str:
     return "; ".join(source_text(source) for source in finding.sources)
+
+
+# Changes between revisions (the changes page and `dossier diff`).
+
+
+def finding_label(finding: Finding) -> str:
+    """'Clearance (primary to output)': what a finding is about, the same in every revision."""
+    return f"{finding.title} ({finding.subject})" if finding.subject else finding.title
+
+
+def finding_state_text(finding: Finding | None) -> str:
+    """'fail, 2.5 mm' or 'not reported'."""
+    if finding is None:
+        return "not reported"
+    value = quantity_text(finding.value.quantity) if finding.value is not None else ""
+    return f"{finding.verdict.value}, {value}" if value else finding.verdict.value
+
+
+def finding_change_text(old: Finding | None, new: Finding | None) -> str:
+    """'clearance (primary to output): fail -> pass (2.5 mm -> 4 mm)'."""
+    label = finding_label(new or old)
+    if old is None:
+        return f"{label}: new finding, {finding_state_text(new)}"
+    if new is None:
+        return f"{label}: no longer reported (was {finding_state_text(old)})"
+    verdicts = f"{old.verdict.value} -> {new.verdict.value}" if old.verdict != new.verdict else f"still {new.verdict.value}"
+    values = _value_change(old, new)
+    return f"{label}: {verdicts}" + (f" ({values})" if values else "")
+
+
+def _value_change(old: Finding, new: Finding) -> str:
+    before = quantity_text(old.value.quantity) if old.value is not None else ""
+    after = quantity_text(new.value.quantity) if new.value is not None else ""
+    return f"{before or 'no value'} -> {after or 'no value'}" if before != after else ""
+
+
+def verdict_summary_text(tally: dict) -> str:
+    """'2 fail, 1 marginal, 12 pass' from counts by verdict."""
+    shown = [f"{tally.get(verdict, 0)} {verdict.value}" for verdict in (Verdict.FAIL, Verdict.MARGINAL, Verdict.PASS)]
+    return ", ".join(shown)

@@ -70,3 +70,16 @@ def test_undeclared_codes_are_reported():
     sloppy = Calc("demo", "Demo", good_run, "s", {"OTHER": "x"})
     codes = [f.code for f in review(object(), [sloppy])]
     assert codes == ["DEMO-OK", "CALC-ERROR"]
+
+
+def test_the_cli_names_a_broken_plugin_without_a_traceback(monkeypatch):
+    from click.testing import CliRunner
+
+    from dossier import plugins
+    from dossier.cli import main
+    from conftest import DEMO
+
+    monkeypatch.setattr(plugins, "entry_points", lambda group: [FakeEntryPoint("broken", error=ImportError("no module named x"))])
+    result = CliRunner().invoke(main, ["check", str(DEMO / "sw-charger-12v" / "rev-A.yaml")])
+    assert result.exit_code == 3
+    assert "Error: calc plugin 'broken': could not be loaded: ImportError: no module named x" in result.output

@@ -72,3 +72,10 @@ def test_python_tags_are_not_constructed(tmp_path):
 
 def test_missing_file_is_a_problem_not_a_traceback(tmp_path):
     assert problem_of(tmp_path / "nope.yaml").code == "file_unreadable"
+
+
+def test_control_characters_are_located(tmp_path):
+    path = tmp_path / "ctl.yaml"
+    path.write_text("id: x\ntitle: a\x0cb\n", encoding="utf-8")
+    problem = problem_of(path)
+    assert (problem.code, problem.location.line, problem.location.column, problem.found) == ("control_character", 2, 9, "character U+000C")

@@ -5,7 +5,8 @@ from __future__ import annotations
 import datetime
 from typing import Literal
 
-from pydantic import Field
+from pydantic import Field, field_validator
+from pydantic_core import PydanticCustomError
 
 from dossier.record.fields import Section
 
@@ -22,12 +23,32 @@ BUILD_ID_PATTERN = r"^[a-z0-9][a-z0-9-]{0,62}$"
 REVISION_PATTERN = r"^[A-Z]{1,2}$"
 
 
+def relative_path_problem(path: str) -> str:
+    """Why a path could leave the build folder, or '' when it cannot."""
+    if path.startswith(("/", "\\")) or (len(path) > 1 and path[1] == ":"):
+        return f"absolute path {path!r}"
+    parts = path.replace("\\", "/").split("/")
+    if ".." in parts:
+        return f"'..' in {path!r}"
+    if any(ord(ch) < 32 for ch in path):
+        return f"control character in {path!r}"
+    return ""
+
+
 class Attachment(Section):
     """A photo, datasheet or other file kept beside the record, by path relative to the build folder."""
 
-    path: str = Field(description="Path relative to the build's folder; must stay inside the archive.")
+    path: str = Field(min_length=1, max_length=255, description="Path relative to the build's folder, with forward slashes; no absolute paths, no '..'.")
     kind: Literal["photo", "datasheet", "drawing", "other"] = "other"
-    caption: str = ""
+    caption: str = Field("", description="One line shown under a photo or beside a link.")
+
+    @field_validator("path")
+    @classmethod
+    def _stays_inside(cls, path: str) -> str:
+        problem = relative_path_problem(path)
+        if problem:
+            raise PydanticCustomError("unsafe_path", "expected {expected}, found {found}", {"expected": "a path inside the build folder", "found": problem})
+        return path
 
 
 class Identity(Section):

@@ -4,7 +4,7 @@ from __future__ import annotations
 
 from typing import Literal
 
-from pydantic import Field, model_validator
+from pydantic import Field, ValidationInfo, field_validator, model_validator
 
 from dossier.record.fields import Length, Section, Voltage
 
@@ -12,11 +12,24 @@ Grade = Literal["functional", "basic", "supplementary", "reinforced", "double"]
 MaterialGroup = Literal["I", "II", "IIIa", "IIIb"]
 
 
+def _positive(value, info: ValidationInfo):
+    if value is not None and value.magnitude <= 0:
+        raise ValueError(f"{info.field_name} must be greater than zero")
+    return value
+
+
 class Slot(Section):
     """A groove or slot cut across the creepage path."""
 
     width: Length = Field(description="Width of the groove across the creepage path.")
+    credited: bool = Field(
+        True,
+        description="The declared creepage counts on this slot (measured around or across it as an interruption); "
+        "false when the creepage was measured straight across it, as if bridged.",
+    )
     note: str = ""
+
+    _positive = field_validator("width")(_positive)
 
 
 class Barrier(Section):
@@ -32,6 +45,8 @@ class Barrier(Section):
     working_peak: Voltage | None = Field(None, description="Peak working voltage where it exceeds the mains peak.")
     slots: list[Slot] = Field(default_factory=list)
     parts: list[str] = Field(default_factory=list, description="Designators that bridge or form the barrier, e.g. T1, C9.")
+
+    _positive = field_validator("creepage", "clearance", "working_voltage", "working_peak")(_positive)
 
     @model_validator(mode="after")
     def _material_given(self):

@@ -4,70 +4,125 @@ from __future__ import annotations
 
 from typing import Literal
 
-from pydantic import Field, model_validator
+from pydantic import Field, ValidationInfo, field_validator, model_validator
+from pydantic_core import PydanticCustomError
 
 from dossier.record.fields import (
     Area, Current, FluxDensity, Frequency, InductanceFactor, Length, Ratio, Section, Temperature, Voltage, WireSize,
+    quantity,
 )
+
+FieldStrength = quantity("[current] / [length]")
+
+
+def _bad(code: str, expected: str, found: str) -> PydanticCustomError:
+    return PydanticCustomError(code, "expected {expected}, found {found}", {"expected": expected, "found": found})
+
+
+def _text(quantity) -> str:
+    return f"{quantity.magnitude:g} {quantity.units:~P}".strip()
+
+
+def _positive(value, info: ValidationInfo):
+    if value is not None and value.magnitude <= 0:
+        raise _bad("value_out_of_range", "more than zero", _text(value))
+    return value
 
 
 class Steinmetz(Section):
     """Core loss per volume P_v = k f^alpha B^beta, with f in Hz, B in T and P_v in W/m^3."""
 
-    k: float = Field(gt=0)
-    alpha: float = Field(gt=0)
-    beta: float = Field(gt=0)
+    k: float = Field(gt=0, description="Steinmetz coefficient k, for f in Hz, B in T and loss in W/m^3.")
+    alpha: float = Field(gt=0, description="Frequency exponent alpha.")
+    beta: float = Field(gt=0, description="Flux-density exponent beta.")
 
 
 class CoreMaterial(Section):
     name: str = ""
     saturation_flux: FluxDensity = Field(description="Saturation flux density at the hot temperature below.")
     saturation_temperature: Temperature | None = Field(None, description="Temperature the saturation figure is given at.")
-    initial_permeability: float | None = Field(None, gt=0)
-    steinmetz: Steinmetz | None = None
-    max_temperature: Temperature | None = None
+    initial_permeability: float | None = Field(None, gt=0, description="Initial relative permeability; gives A_L when A_L is not declared.")
+    steinmetz: Steinmetz | None = Field(None, description="Steinmetz parameters for core loss, from the maker's loss curves.")
+    max_temperature: Temperature | None = Field(None, description="Highest temperature the core (and its winding) may reach.")
+    max_field: FieldStrength | None = Field(None, description="Highest DC field strength N I / l_e the material takes before its permeability falls too far, e.g. 4000 A/m.")
+
+    _positive = field_validator("saturation_flux", "max_field")(_positive)
 
 
 class Core(Section):
     shape: Literal["toroid", "declared"] = Field(description="toroid (give dimensions) or declared (give effective parameters).")
-    outer_diameter: Length | None = None
-    inner_diameter: Length | None = None
-    height: Length | None = None
-    effective_area: Area | None = None
-    path_length: Length | None = None
-    window_area: Area | None = None
-    mean_turn_length: Length | None = None
+    outer_diameter: Length | None = Field(None, description="Toroid: outer diameter of the bare core.")
+    inner_diameter: Length | None = Field(None, description="Toroid: inner diameter of the bare core.")
+    height: Length | None = Field(None, description="Toroid: height of the bare core.")
+    effective_area: Area | None = Field(None, description="Effective magnetic cross-section A_e (declared cores).")
+    path_length: Length | None = Field(None, description="Effective magnetic path length l_e (declared cores).")
+    window_area: Area | None = Field(None, description="Winding window area A_w (declared cores; a toroid's is computed).")
+    mean_turn_length: Length | None = Field(None, description="Mean length of one turn (declared cores; a toroid's is computed).")
+    surface_area: Area | None = Field(None, description="Outside surface of the wound component, for the temperature-rise estimate (declared cores).")
     al: InductanceFactor | None = Field(None, description="Inductance factor A_L, e.g. 2500 nH (per turn squared).")
     material: CoreMaterial
+
+    _positive = field_validator(
+        "outer_diameter", "height", "effective_area", "path_length", "window_area", "mean_turn_length", "surface_area", "al",
+    )(_positive)
+
+    @field_validator("inner_diameter")
+    @classmethod
+    def _inside_outer(cls, value, info: ValidationInfo):
+        _positive(value, info)
+        outer = info.data.get("outer_diameter")
+        if value is not None and outer is not None and value >= outer:
+            raise _bad("value_out_of_range", f"less than the outer diameter ({_text(outer)})", _text(value))
+        return value
 
     @model_validator(mode="after")
     def _shape_complete(self):
         needed = ("outer_diameter", "inner_diameter", "height") if self.shape == "toroid" else ("effective_area", "path_length")
         missing = [name for name in needed if getattr(self, name) is None]
         if missing:
-            raise ValueError(f"a {self.shape} core needs {', '.join(missing)}")
+            raise _bad("incomplete_core", f"{', '.join(missing)} for a {self.shape} core", "not given")
         return self
 
 
 class Excitation(Section):
-    waveform: Literal["square", "sine"]
+    waveform: Literal["square", "sine"] = Field(description="square (bipolar, as from a bridge) or sine.")
     voltage: Voltage = Field(description="Amplitude for a square wave, RMS for a sine, across the winding named.")
     frequency: Frequency
     winding: str = Field("", description="Winding the voltage is across; default the first.")
-    duty: Ratio | None = None
+    duty: Ratio | None = Field(None, description="Fraction of the period the voltage is applied (square wave); default 100 %.")
+
+    _positive = field_validator("voltage", "frequency")(_positive)
+
+    @field_validator("duty")
+    @classmethod
+    def _fraction(cls, value):
+        if value is not None and not 0 < value.to("").magnitude <= 1:
+            raise _bad("value_out_of_range", "more than 0 % and at most 100 %", _text(value))
+        return value
 
 
 class Winding(Section):
     name: str = Field(min_length=1)
     role: Literal["primary", "secondary", "feedback", "drive", "choke", "auxiliary"] = "secondary"
-    turns: float = Field(gt=0, description="Turns; a fraction is allowed.")
+    turns: float = Field(gt=0, description="Turns, end to end (a centre-tapped winding counts both halves); a fraction is allowed.")
     wire: WireSize
-    strands: int = Field(1, ge=1)
-    enamel_grade: Literal[1, 2, 3] | None = Field(None, description="IEC 60317 enamel grade 1, 2 or 3.")
+    strands: int = Field(1, ge=1, description="Strands in parallel.")
+    enamel_grade: Literal[1, 2, 3] | None = Field(None, description="IEC 60317 enamel grade 1, 2 or 3; grade 2 is assumed when not given.")
+    overall_diameter: Length | None = Field(None, description="Measured or datasheet diameter over the insulation; overrides the enamel grade.")
     triple_insulated: bool = False
     tape_layers: int = Field(0, ge=0, description="Layers of insulating tape over this winding.")
     centre_tap: bool = False
-    current: Current | None = Field(None, description="RMS current; default derived from the output rating.")
+    current: Current | None = Field(None, description="RMS current (in each half of a centre-tapped winding); default derived from the output rating.")
+
+    _positive = field_validator("wire", "overall_diameter", "current")(_positive)
+
+    @field_validator("overall_diameter")
+    @classmethod
+    def _over_copper(cls, value, info: ValidationInfo):
+        wire = info.data.get("wire")
+        if value is not None and wire is not None and value < wire:
+            raise _bad("value_out_of_range", f"at least the copper diameter ({_text(wire)})", _text(value))
+        return value
 
 
 class Magnetic(Section):
@@ -75,5 +130,26 @@ class Magnetic(Section):
     role: Literal["transformer", "base-drive", "choke", "mains-transformer", "current-sense"]
     title: str = ""
     core: Core
-    excitation: Excitation | None = None
     windings: list[Winding] = Field(min_length=1)
+    frequency: Frequency | None = Field(None, description="Operating frequency when the excitation is derived from the converter stage, e.g. 40 kHz.")
+    cooling: Literal["natural", "forced-air"] = Field("natural", description="natural (convection) or forced-air (a fan blows on it).")
+    excitation: Excitation | None = Field(None, description="Declared drive: waveform, voltage, frequency (and the winding it is across).")
+
+    _positive = field_validator("frequency")(_positive)
+
+    @field_validator("windings")
+    @classmethod
+    def _names_unique(cls, windings):
+        names = [w.name for w in windings]
+        twice = sorted({n for n in names if names.count(n) > 1})
+        if twice:
+            raise _bad("duplicate_name", "a different name for each winding", f"{', '.join(repr(n) for n in twice)} given twice")
+        return windings
+
+    @field_validator("excitation")
+    @classmethod
+    def _winding_known(cls, excitation, info: ValidationInfo):
+        names = [w.name for w in info.data.get("windings") or []]
+        if excitation is not None and excitation.winding and names and excitation.winding not in names:
+            raise _bad("unknown_winding", f"the name of one of the windings ({', '.join(names)})", repr(excitation.winding))
+        return excitation

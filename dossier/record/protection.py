@@ -7,49 +7,52 @@ from typing import Literal
 from pydantic import Field
 
 from dossier.record.fields import (
-    Capacitance, Current, Energy, Length, MeltingIntegral, Resistance, Section, Voltage, WireSize,
+    Capacitance, Current, Energy, Length, MeltingIntegral, Resistance, Section, Temperature, Voltage, WireSize,
 )
 
 
 class Fuse(Section):
-    ref: str
-    rating: Current
-    speed: Literal["time-lag", "fast-acting"]
-    voltage_rating: Voltage
-    breaking_capacity: Current | None = None
-    body: Literal["glass", "ceramic", "other"] = "glass"
+    ref: str = Field(description="Designator of the mains fuse, e.g. F1.")
+    rating: Current = Field(description="Rated current as marked, e.g. 2 A or 500 mA.")
+    speed: Literal["time-lag", "fast-acting"] = Field(description="time-lag (T) or fast-acting (F).")
+    voltage_rating: Voltage = Field(description="Rated voltage as marked, e.g. 250 V.")
+    breaking_capacity: Current | None = Field(None, description="Rated breaking capacity, e.g. 1500 A (high) or 35 A (low).")
+    body: Literal["glass", "ceramic", "other"] = Field("glass", description="Body of the fuse-link: glass, ceramic or other.")
     melting_i2t: MeltingIntegral | None = Field(None, description="Nominal melting I^2 t from the fuse maker's data, e.g. 3.2 A^2 s.")
+    ambient: Temperature | None = Field(None, description="Air temperature at the fuse, if higher than the environment's max_ambient.")
 
 
 class InrushLimiter(Section):
-    ref: str
-    kind: Literal["ntc", "resistor", "relay-bypassed-resistor"] = "ntc"
-    cold_resistance: Resistance
-    hot_resistance: Resistance | None = None
-    max_energy: Energy | None = None
-    max_capacitance: Capacitance | None = None
-    max_current: Current | None = None
+    ref: str = Field(description="Designator, e.g. RT1.")
+    kind: Literal["ntc", "resistor", "relay-bypassed-resistor"] = Field("ntc", description="ntc, resistor or relay-bypassed-resistor.")
+    cold_resistance: Resistance = Field(description="Resistance at 25 degC (for a resistor, its resistance), e.g. 10 ohm.")
+    hot_resistance: Resistance | None = Field(None, description="NTC residual resistance at its maximum current, from the maker's data.")
+    max_energy: Energy | None = Field(None, description="Largest switch-on energy the part is rated to absorb, e.g. 60 J.")
+    max_capacitance: Capacitance | None = Field(None, description="Largest capacitance the maker allows at your mains voltage, if given instead of energy.")
+    max_current: Current | None = Field(None, description="Maximum steady current, e.g. 3 A.")
 
 
 class Earth(Section):
-    protective_class: Literal["I", "II"]
-    enclosure: Literal["metal", "plastic", "none"] = "plastic"
+    protective_class: Literal["I", "II"] = Field(description="Class I (protective earth) or class II (double or reinforced insulation).")
+    enclosure: Literal["metal", "plastic", "none"] = Field("plastic", description="Enclosure material: metal, plastic or none.")
     bonding: str = Field("", description="How protective earth is bonded to touchable metal, e.g. 'M4 stud with star washer'.")
 
 
 class OutputFuse(Section):
-    ref: str
-    rating: Current
-    distance_to_battery: Length | None = None
-    lead_wire: WireSize | None = None
+    ref: str = Field(description="Designator of the battery-lead fuse, e.g. F2.")
+    rating: Current = Field(description="Rated current, e.g. 10 A.")
+    distance_to_battery: Length | None = Field(None, description="Length of lead between the fuse and the battery terminal, e.g. 150 mm.")
+    lead_wire: WireSize | None = Field(None, description="Size of the battery lead, e.g. AWG 14 or 1.6 mm.")
+    lead_ampacity: Current | None = Field(None, description="The lead's rated current from its maker, if known; otherwise a common-practice table is used.")
 
 
 class Protection(Section):
-    fuse: Fuse | None = None
-    inrush_limiter: InrushLimiter | None = None
-    bulk_capacitance: Capacitance | None = Field(None, description="Total capacitance charged at switch-on.")
-    bulk_esr: Resistance | None = None
-    source_resistance: Resistance | None = None
-    earth: Earth | None = None
-    output_fuse: OutputFuse | None = None
+    fuse: Fuse | None = Field(None, description="The mains fuse.")
+    inrush_limiter: InrushLimiter | None = Field(None, description="NTC thermistor or resistor that limits the switch-on current.")
+    bulk_capacitance: Capacitance | None = Field(None, description="Total capacitance charged from the mains at switch-on.")
+    bulk_esr: Resistance | None = Field(None, description="Equivalent series resistance of the bulk capacitance, e.g. 0.3 ohm.")
+    source_resistance: Resistance | None = Field(None, description="Resistance of the mains source and cord, e.g. 0.5 ohm.")
+    switch_on_cycles: int | None = Field(None, ge=1, description="Switch-ons expected in the unit's life; 10000 when not given.")
+    earth: Earth | None = Field(None, description="Protective class, enclosure and earth bonding.")
+    output_fuse: OutputFuse | None = Field(None, description="The fuse in the battery lead, for a charger.")
     reverse_polarity: str = Field("", description="How reversed battery leads are caught, e.g. 'series Schottky D9'.")

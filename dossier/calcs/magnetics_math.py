@@ -1,0 +1,75 @@
+"""Formulas for wound components, each a small pure function of pint Quantities."""
+
+from __future__ import annotations
+
+import math
+
+from dossier.standards.copper import MU_0
+from dossier.units import Q_
+
+SINE_FORM = math.pi * math.sqrt(2)  # the '4.44' of the transformer equation
+
+
+def flux_square(amplitude, frequency, turns, area, duty: float = 1.0):
+    """Faraday's law, bipolar square wave of amplitude V: B_pk = V D / (4 f N A_e)."""
+    return (amplitude * duty / (4 * frequency * turns * area)).to("T")
+
+
+def flux_sine(rms, frequency, turns, area):
+    """Faraday's law, sine of RMS V: B_pk = V / (4.44 f N A_e), 4.44 being pi sqrt 2."""
+    return (rms / (SINE_FORM * frequency * turns * area)).to("T")
+
+
+def steinmetz_density(k: float, alpha: float, beta: float, frequency, flux):
+    """Core loss per volume P_v = k f^alpha B^beta (f in Hz, B in T, P_v in W/m^3)."""
+    f = frequency.to("Hz").magnitude
+    b = flux.to("T").magnitude
+    return Q_(k * f**alpha * b**beta, "W / m ** 3")
+
+
+def current_density(current, area):
+    return (current / area).to("A / mm ** 2")
+
+
+def copper_loss(current, resistance):
+    return (current**2 * resistance).to("W")
+
+
+def temperature_rise(power, surface):
+    """Temperature rise of a wound component from its dissipation per outside surface.
+
+    Empirical relation T_r = 450 psi^0.826 K with psi in W/cm^2, from C. Wm. T. McLyman, Transformer and
+    Inductor Design Handbook (CRC Press), chapter on efficiency, regulation and temperature rise (from memory).
+    """
+    psi = (power / surface).to("W / cm ** 2").magnitude
+    return Q_(450 * psi**0.826, "K")
+
+
+def inductance(al, turns):
+    """L = A_L N^2."""
+    return (al * turns**2).to("uH")
+
+
+def al_from_permeability(permeability: float, area, path):
+    """A_L = mu_0 mu_e A_e / l_e (an ungapped core: mu_e = mu_i)."""
+    return (MU_0 * permeability * area / path).to("nH")
+
+
+def stored_energy(inductance_value, current):
+    """E = L I^2 / 2."""
+    return (inductance_value * current**2 / 2).to("mJ")
+
+
+def field_strength(turns, current, path):
+    """Peak field strength H = N I / l_e."""
+    return (turns * current / path).to("kA / m")
+
+
+def choke_flux(inductance_value, current, turns, area):
+    """B = L I / (N A_e), from N Phi = L I."""
+    return (inductance_value * current / (turns * area)).to("T")
+
+
+def ripple_current(voltage, frequency, duty: float, inductance_value):
+    """Peak-to-peak ripple from the volt-seconds across the choke: dI = V D / (f L)."""
+    return (voltage * duty / (frequency * inductance_value)).to("A")

@@ -1,0 +1,88 @@
+"""Which X or Y class (IEC 60384-14) a suppression capacitor needs where it sits.
+
+A class is accepted when it is tested for at least the impulse its position can bring: across the line, the
+rated impulse voltage of the mains' overvoltage category (IEC 60664-1 Table F.1); from line to earth, a Y
+class for basic insulation; across a barrier, a Y class for the barrier's grade (Y1 for reinforced or double).
+The subclass impulse figures are recalled from IEC 60384-14, not read from it: marked 'from memory'.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+
+from dossier.citations import IEC_60384_14, IEC_60664_1
+from dossier.findings import Source
+
+# Peak impulse voltage (kV) each subclass is tested to, IEC 60384-14 subclass tables (from memory);
+# Y3 has no impulse test.
+IMPULSE_KV = {"X1": 4.0, "X2": 2.5, "X3": 1.2, "Y1": 8.0, "Y2": 5.0, "Y3": 0.0, "Y4": 2.5}
+# Insulation a Y subclass may bridge (IEC 60384-14, from memory).
+Y_BRIDGES = {"Y1": ("basic", "supplementary", "reinforced", "double"), "Y2": ("basic", "supplementary"), "Y4": ("basic", "supplementary")}
+# Highest line voltage (V RMS) each Y subclass is made for (IEC 60384-14, from memory).
+Y_MAX_LINE = {"Y1": 500, "Y2": 300, "Y4": 150}
+
+# Rated impulse voltage (kV), IEC 60664-1 Table F.1: line-to-neutral volts up to -> category I..IV.
+RATED_IMPULSE_KV = (
+    (50, (0.33, 0.5, 0.8, 1.5)),
+    (100, (0.5, 0.8, 1.5, 2.5)),
+    (150, (0.8, 1.5, 2.5, 4.0)),
+    (300, (1.5, 2.5, 4.0, 6.0)),
+    (600, (2.5, 4.0, 6.0, 8.0)),
+    (1000, (4.0, 6.0, 8.0, 12.0)),
+)
+CATEGORIES = ("I", "II", "III", "IV")
+CLASS_SOURCE = Source(
+    title=IEC_60384_14.title,
+    publisher=IEC_60384_14.publisher,
+    clause="subclasses X1-X3 and Y1-Y4: impulse test voltages and the insulation each may bridge (from memory)",
+)
+IMPULSE_SOURCE = Source(title=IEC_60664_1.title, publisher=IEC_60664_1.publisher, edition=IEC_60664_1.edition, clause="Table F.1")
+
+
+@dataclass(frozen=True)
+class Requirement:
+    accepted: tuple[str, ...]
+    reason: str
+    sources: tuple[Source, ...]
+
+
+def rated_impulse_kv(line_to_neutral_volts: float, category: str) -> float | None:
+    """Rated impulse voltage for a line-to-neutral voltage and overvoltage category, or None above 1000 V."""
+    for up_to, by_category in RATED_IMPULSE_KV:
+        if line_to_neutral_volts <= up_to:
+            return by_category[CATEGORIES.index(category)]
+    return None
+
+
+def across_line(nominal_volts: float, category: str) -> Requirement | None:
+    impulse = rated_impulse_kv(nominal_volts, category)
+    if impulse is None:
+        return None
+    accepted = tuple(name for name, kv in IMPULSE_KV.items() if kv >= impulse and _made_for(name, nominal_volts))
+    reason = f"across the line of a {nominal_volts:g} V supply in overvoltage category {category} it must take a {impulse:g} kV impulse"
+    return Requirement(accepted, reason, (CLASS_SOURCE, IMPULSE_SOURCE))
+
+
+def _made_for(name: str, nominal_volts: float) -> bool:
+    return nominal_volts <= Y_MAX_LINE.get(name, float("inf"))
+
+
+def bridging(grade: str, nominal_volts: float) -> Requirement | None:
+    """A capacitor that bridges insulation of this grade; None for functional insulation (no class needed)."""
+    if grade == "functional":
+        return None
+    accepted = tuple(name for name, grades in Y_BRIDGES.items() if grade in grades and _made_for(name, nominal_volts))
+    reason = f"it bridges {grade} insulation on a {nominal_volts:g} V supply, which only a Y class made for that may do"
+    return Requirement(accepted, reason, (CLASS_SOURCE,))
+
+
+def barrier_grade(record, ref: str) -> tuple[str, str]:
+    """(grade, how it was found) of the barrier a capacitor bridges: the one listing it, else the strictest mains barrier."""
+    for barrier in record.barriers:
+        if ref in barrier.parts:
+            return barrier.grade, f"barrier '{barrier.name}' lists it"
+    mains = [b.grade for b in record.barriers if "mains" in b.between]
+    for grade in ("reinforced", "double", "supplementary", "basic"):
+        if grade in mains:
+            return grade, f"the strictest barrier from the mains is {grade}"
+    return "reinforced", "no barrier names it, so reinforced is assumed"

@@ -1,0 +1,73 @@
+"""Items for this build's insulation: distances at each barrier and live tabs on heatsinks."""
+
+from __future__ import annotations
+
+from dossier.checklist.general import INSULATION_MINIMUM, INSULATION_TEST_VOLTAGE
+from dossier.checklist.items import Item, Origin, Phase, at_least, slug
+from dossier.citations import DIN_EN_50678
+from dossier.units import fmt
+
+DISTANCE_CODES = {"clearance": "ISO-CLEARANCE", "creepage": "ISO-CREEPAGE"}
+HOW_TO_MEASURE = {
+    "clearance": "the shortest path through air between the two sides",
+    "creepage": "the shortest path along insulating surfaces between the two sides, around slots and over barriers",
+}
+
+
+def distance_items(record, findings) -> list[Item]:
+    """Clearance and creepage to measure at each barrier, against the isolation calc's required value."""
+    return [_distance(barrier, kind, findings) for barrier in record.barriers for kind in ("clearance", "creepage")]
+
+
+def _distance(barrier, kind: str, findings) -> Item:
+    finding = _finding_for(findings, DISTANCE_CODES[kind], barrier.name)
+    declared = getattr(barrier, kind)
+    required = finding.limit.quantity if finding is not None and finding.limit is not None else None
+    sides = " and ".join(barrier.between)
+    return Item(
+        key=f"{kind}-{slug(barrier.name)}",
+        phase=Phase.UNPOWERED,
+        origin=Origin.BUILD,
+        title=f"{kind.capitalize()} at '{barrier.name}'",
+        steps=(
+            f"Measure {HOW_TO_MEASURE[kind]} ({sides}, {barrier.grade} insulation) with calipers or a feeler "
+            f"gauge, at the closest point you can find. The record declares {fmt(declared)}."
+        ),
+        unit="mm",
+        expected=at_least(required if required is not None else declared),
+        sources=finding.sources if finding is not None else (),
+        note="" if required is not None else "No calculated requirement is available; the declared value is the target.",
+    )
+
+
+def _finding_for(findings, code: str, subject: str):
+    return next((f for f in findings if f.code == code and f.subject == subject), None)
+
+
+def tab_isolation_items(record) -> list[Item]:
+    """A live tab on a heatsink: the pad between them is the only insulation, so test it."""
+    sinks = {sink.ref: sink for sink in record.devices.heatsinks}
+    return [_tab(device, sinks.get(device.heatsink)) for device in record.devices.semiconductors if device.tab_live and device.heatsink]
+
+
+def _tab(device, sink) -> Item:
+    earthed = sink is not None and sink.earthed
+    minimum = INSULATION_MINIMUM["I" if earthed else "II"]
+    return Item(
+        key=f"tab-isolation-{slug(device.ref)}",
+        phase=Phase.UNPOWERED,
+        origin=Origin.BUILD,
+        title=f"{device.ref}'s live tab isolated from heatsink {device.heatsink}",
+        steps=(
+            f"{device.ref}'s tab is at mains potential and sits on heatsink {device.heatsink} "
+            f"({'earthed' if earthed else 'not earthed'}). Check that the insulating pad and bush are fitted "
+            f"and unbroken, then apply {fmt(INSULATION_TEST_VOLTAGE)} DC between the tab and the heatsink."
+        ),
+        unit="megaohm",
+        expected=at_least(minimum),
+        sources=(DIN_EN_50678,),
+        note=(
+            "The standard sets this figure for the whole unit; it is applied here to the pad alone, "
+            f"{'as basic insulation to earthed metal' if earthed else 'as the figure for double or reinforced insulation'}."
+        ),
+    )

@@ -1,0 +1,80 @@
+"""The mains fuse to fit, as the protection calc recommends it, beside what the record declares."""
+
+from __future__ import annotations
+
+from dossier.calcs.protection import recommended_fuse
+from dossier.checklist.items import Item, Origin, Phase
+from dossier.findings import common_practice
+from dossier.standards.fuses import marking
+from dossier.units import fmt
+
+MARKING_PRACTICE = common_practice("reading the fuse's own marking before fitting it")
+
+
+def declared_text(fuse) -> str:
+    """'T2A 250 V ceramic, breaking capacity 1500 A'."""
+    text = f"{marking(fuse.rating, fuse.speed)} {fmt(fuse.voltage_rating)} {fuse.body}"
+    if fuse.breaking_capacity is not None:
+        text += f", breaking capacity {fmt(fuse.breaking_capacity, digits=6)}"
+    return text
+
+
+def fuse_item(record, findings) -> list[Item]:
+    if record.mains is None:
+        return []
+    declared = record.protection.fuse
+    choice = recommended_fuse(record)
+    if choice is None or choice.rating is None:
+        return [_declared_only(declared)] if declared is not None else [_no_fuse()]
+    return [_recommended(declared, choice, _sources(findings))]
+
+
+def _sources(findings) -> tuple:
+    finding = next((f for f in findings if f.code == "PROT-FUSE-RECOMMENDED"), None)
+    return finding.sources if finding is not None else ()
+
+
+def _recommended(declared, choice, sources) -> Item:
+    fit = marking(choice.rating, choice.speed)
+    ref = declared.ref if declared is not None else "the mains fuse"
+    steps = f"Fit {ref}: {fit} ({choice.speed}, {fmt(choice.rating)})"
+    if choice.minimum_melting_i2t is not None:
+        steps += f", of a type whose melting I^2 t is at least {fmt(choice.minimum_melting_i2t)}"
+    steps += f". This is the smallest preferred rating that carries the running current at {fmt(choice.ambient)}. "
+    steps += _against_declared(declared, fit) + _reading_text()
+    return Item(
+        key="mains-fuse", phase=Phase.UNPOWERED, origin=Origin.BUILD,
+        title=f"Mains fuse {declared.ref}: fit {fit}" if declared is not None else f"Mains fuse: fit {fit}",
+        steps=steps, sources=sources + (MARKING_PRACTICE,),
+    )
+
+
+def _against_declared(declared, fit: str) -> str:
+    if declared is None:
+        return "The record declares no fuse: record the one fitted. "
+    if marking(declared.rating, declared.speed) == fit:
+        return f"The record declares the same: {declared_text(declared)}. "
+    return (f"The record declares {declared_text(declared)}: fit the recommended one, or note on this sheet "
+            "which was fitted and why. ")
+
+
+def _reading_text() -> str:
+    return "Read the marking on the fuse itself, not the packet; check that the holder's cap is seated and the holder is in the line conductor."
+
+
+def _declared_only(declared) -> Item:
+    return Item(
+        key="mains-fuse", phase=Phase.UNPOWERED, origin=Origin.BUILD,
+        title=f"Mains fuse {declared.ref}: {marking(declared.rating, declared.speed)}",
+        steps=f"Fit {declared.ref}: {declared_text(declared)}, as the record declares (no recommendation could be computed). " + _reading_text(),
+        sources=(MARKING_PRACTICE,),
+    )
+
+
+def _no_fuse() -> Item:
+    return Item(
+        key="mains-fuse", phase=Phase.UNPOWERED, origin=Origin.BUILD,
+        title="Mains fuse: none recorded",
+        steps="The record declares no mains fuse and none could be computed. Do not power up until one is chosen, recorded and fitted.",
+        sources=(common_practice("a fuse in the line conductor of every mains-powered unit"),),
+    )

@@ -1,0 +1,56 @@
+"""What a revision's overview says about its commissioning: who powered it up, when, how it went, its status."""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+
+from dossier.checklist.load import Commissioning, commissioning_path, load_commissioning
+from dossier.checklist.outcome import Summary, outcomes, summarise
+from dossier.checklist.sheet import build_checklist
+from dossier.checklist.status import ShownStatus, effective_status
+from dossier.site import markup
+
+
+@dataclass(frozen=True)
+class CommissioningState:
+    commissioning: Commissioning | None
+    summary: Summary | None
+    status: ShownStatus
+
+    def overview_markdown(self) -> str:
+        """One paragraph for the revision's overview page; '' when it has no commissioning record."""
+        if self.commissioning is None:
+            return ""
+        entry = self.commissioning.entry
+        line = (f"Powered up on **{entry.date.isoformat()}** by **{markup.text(entry.tested_by)}**, "
+                f"witnessed by **{markup.text(entry.witness)}**.")
+        return f"{line} {self._result_text()} Status shown: **{markup.text(self.status.title)}**."
+
+    def _result_text(self) -> str:
+        summary = self.summary
+        if summary.passed:
+            return "Every checklist item was done and in range."
+        parts = []
+        if summary.out_of_range:
+            parts.append(f"{len(summary.out_of_range)} value{'s' if len(summary.out_of_range) != 1 else ''} out of range")
+        if summary.incomplete:
+            parts.append(f"{len(summary.incomplete)} item{'s' if len(summary.incomplete) != 1 else ''} not done or not recorded")
+        if summary.blocked:
+            parts.append("failing findings block the revision")
+        return "Not passed: " + "; ".join(parts) + "."
+
+
+def load_for_revision(loaded, findings) -> Commissioning | None:
+    """The commissioning file beside a loaded record, validated against its checklist; None when there is none."""
+    path = commissioning_path(loaded.path.parent, loaded.record.revision)
+    if path is None:
+        return None
+    return load_commissioning(path, build_checklist(loaded.record, findings))
+
+
+def commissioning_state(loaded, findings, commissioning: Commissioning | None = None) -> CommissioningState:
+    if commissioning is None:
+        return CommissioningState(None, None, effective_status(loaded.record.status))
+    checklist = build_checklist(loaded.record, findings)
+    summary = summarise(checklist, outcomes(checklist, commissioning))
+    return CommissioningState(commissioning, summary, effective_status(loaded.record.status, summary, commissioning.entry.date))

@@ -1,0 +1,73 @@
+"""The checklist for one revision: the caution, what blocks a power-up, and the items in the order they are done."""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+
+from dossier.caution import POWER_UP_CAUTION
+from dossier.checklist import barriers, general, output_items, soak
+from dossier.checklist.fuse import fuse_item
+from dossier.checklist.items import Item, Phase
+from dossier.findings import Finding, Verdict
+
+
+@dataclass(frozen=True)
+class Checklist:
+    build: str
+    revision: str
+    title: str
+    caution: str
+    blockers: tuple[Finding, ...]
+    items: tuple[Item, ...]
+
+    @property
+    def blocked(self) -> bool:
+        """A failing finding means: do not power up."""
+        return bool(self.blockers)
+
+    def item(self, key: str) -> Item | None:
+        return next((item for item in self.items if item.key == key), None)
+
+    def in_phase(self, phase: Phase) -> list[Item]:
+        return [item for item in self.items if item.phase is phase]
+
+    @property
+    def phases(self) -> list[Phase]:
+        return [phase for phase in Phase if self.in_phase(phase)]
+
+
+def build_checklist(record, findings: list[Finding]) -> Checklist:
+    return Checklist(
+        build=record.id,
+        revision=record.revision,
+        title=record.title,
+        caution=POWER_UP_CAUTION,
+        blockers=tuple(f for f in findings if f.verdict is Verdict.FAIL),
+        items=tuple(_ordered(all_items(record, findings))),
+    )
+
+
+def all_items(record, findings) -> list[Item]:
+    """Every item, listed in the order they are done within a phase."""
+    return [
+        general.visual_inspection(record),
+        *fuse_item(record, findings),
+        *general.earth_continuity(record),
+        general.insulation_to_metal(record),
+        general.insulation_to_output(record),
+        *barriers.distance_items(record, findings),
+        *barriers.tab_isolation_items(record),
+        general.one_hand(),
+        general.isolated_supply(),
+        *output_items.minimum_load(record),
+        general.series_lamp(record),
+        general.bleed_capacitors(record),
+        *output_items.setting_items(record),
+        *output_items.battery_lead_items(record),
+        *soak.soak_items(record, findings),
+    ]
+
+
+def _ordered(items: list[Item]) -> list[Item]:
+    order = list(Phase)
+    return sorted(items, key=lambda item: order.index(item.phase))

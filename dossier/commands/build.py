@@ -1,0 +1,127 @@
+"""`dossier build ARCHIVE`: the archive as a static site (or, with --pages-only, as its Markdown tree).
+
+Steps: collect (validate, review, draw every revision) -> generate the Markdown tree -> render it
+with MkDocs -> swap the finished folder in. Nothing is written before every record has been read
+without a problem, and the previous site stays untouched until the new one is complete.
+"""
+
+from __future__ import annotations
+
+import os
+import sys
+import time
+from dataclasses import dataclass
+from pathlib import Path
+from typing import Callable
+
+import click
+
+from dossier.archive import build_dirs
+from dossier.problems import InputError
+from dossier.site.atomic import OutputRefused, check_output, staging, swap_in
+from dossier.site.collect import Archive, collect
+from dossier.site.pages import write_tree
+from dossier.site.render import RenderError, run_mkdocs, source_epoch, write_config
+
+EXIT_BUILT, EXIT_RENDER_FAILED, EXIT_REFUSED, EXIT_BROKEN_PLUGIN = 0, 1, 2, 3
+PROGRESS_FROM = 20  # builds; smaller archives build in a few seconds and need no progress bar
+DOCS, SITE = "pages", "site"
+
+
+@dataclass(frozen=True)
+class Built:
+    output: Path
+    builds: int
+    pages: int
+    seconds: float
+
+
+def default_output(archive: Path) -> Path:
+    """'site' beside the archive folder: demo/archive -> demo/site."""
+    return archive.resolve().parent / "site"
+
+
+def build_site(archive: Path, output: Path, *, pages_only: bool = False, calcs=None, cache=None, progress: Callable | None = None, announce: Callable[[str], None] | None = None) -> Built:
+    """Build the site (or only its page tree) into output; raises InputError, OutputRefused or RenderError."""
+    started = time.perf_counter()
+    check_output(output, archive)
+    collected = collect(archive, calcs, cache, progress)
+    with staging(output) as work:
+        pages = write_tree(collected, work / DOCS)
+        finished = work / DOCS if pages_only else _rendered(collected, work, pages, announce)
+        swap_in(finished, output)
+    return Built(output, len(collected.builds), pages, time.perf_counter() - started)
+
+
+def _rendered(collected: Archive, work: Path, pages: int, announce) -> Path:
+    if announce is not None:
+        announce(f"rendering {pages} pages with MkDocs")
+    config = write_config(collected, work, DOCS, SITE)
+    run_mkdocs(config, source_epoch(collected))
+    return work / SITE
+
+
+def run_build(archive: Path, output: Path | None, pages_only: bool, quiet: bool, use_cache: bool) -> int:
+    """The command: messages on standard error, the outcome on standard output, an exit status."""
+    from dossier.plugins import PluginError
+    from dossier.wording import problem_line
+
+    target = output if output is not None else default_output(archive)
+    total = len(build_dirs(archive)) if archive.is_dir() else 0
+    show_progress = not quiet and total >= PROGRESS_FROM
+    try:
+        with _progress(total, show_progress) as advance:
+            built = build_site(archive, target, pages_only=pages_only, cache=_cache(use_cache), progress=advance, announce=_announcer(show_progress))
+    except InputError as error:
+        for problem in error.problems:
+            click.echo(problem_line(problem), err=True)
+        click.echo(f"dossier build: nothing written; {len(error.problems)} problem(s) to put right first.", err=True)
+        return EXIT_REFUSED
+    except OutputRefused as refused:
+        click.echo(f"dossier build: {refused}", err=True)
+        return EXIT_REFUSED
+    except PluginError as error:
+        click.echo(f"dossier build: {error}", err=True)
+        return EXIT_BROKEN_PLUGIN
+    except RenderError as error:
+        click.echo(error.output, err=True)
+        click.echo(f"dossier build: {error}; the previous site at {target} is untouched.", err=True)
+        return EXIT_RENDER_FAILED
+    what = "page tree" if pages_only else "site"
+    click.echo(f"wrote the {what} of {built.builds} builds ({built.pages} pages) to {built.output} in {built.seconds:.1f} s")
+    return EXIT_BUILT
+
+
+class _progress:
+    """A progress bar over the builds on standard error, or nothing for a small archive."""
+
+    def __init__(self, total: int, shown: bool):
+        self.bar = click.progressbar(length=total, label="reviewing builds", file=sys.stderr) if shown else None
+
+    def __enter__(self):
+        if self.bar is None:
+            return None
+        self.bar.__enter__()
+        return lambda build: self.bar.update(1)
+
+    def __exit__(self, *exc):
+        if self.bar is not None:
+            self.bar.__exit__(*exc)
+        return False
+
+
+def _announcer(shown: bool):
+    return (lambda message: click.echo(message, err=True)) if shown else None
+
+
+def _cache(use_cache: bool):
+    """Finished drawings kept between builds, in the user's cache folder (never in the archive)."""
+    if not use_cache:
+        return None
+    from dossier.site.extras import optional
+
+    cache_class = optional("dossier.drawing.cache", "DrawingCache")
+    if cache_class is None:
+        return None
+    home = Path(os.environ.get("XDG_CACHE_HOME") or Path.home() / ".cache")
+    return cache_class(home / "dossier" / "drawings")

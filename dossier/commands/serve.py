@@ -1,0 +1,155 @@
+"""`dossier serve ARCHIVE`: preview the site on this machine and rebuild it when a record or template changes.
+
+The site is built into a temporary folder outside the archive and the templates, and the watcher
+ignores hidden folders and caches, so a rebuild never triggers another one. A failed rebuild keeps
+the last good site on show and prints why.
+"""
+
+from __future__ import annotations
+
+import functools
+import http.server
+import os
+import shutil
+import tempfile
+import threading
+import time
+from dataclasses import dataclass
+from pathlib import Path
+from typing import Callable
+
+import click
+
+from dossier.templates import templates_dir
+
+IGNORED_PARTS = ("__pycache__",)
+POLL_SECONDS = 0.5
+
+
+class Watcher:
+    """Notices when any file under its folders is added, removed or changed (by size or time)."""
+
+    def __init__(self, roots: list[Path]):
+        self.roots = roots
+        self.last = self.snapshot()
+
+    def snapshot(self) -> dict[str, tuple[int, int]]:
+        seen = {}
+        for root in self.roots:
+            for folder, subfolders, files in os.walk(root):
+                subfolders[:] = sorted(d for d in subfolders if _watched(d))
+                for name in filter(_watched, files):
+                    seen[os.path.join(folder, name)] = _stamp(os.path.join(folder, name))
+        return seen
+
+    def changed(self) -> bool:
+        current = self.snapshot()
+        if current == self.last:
+            return False
+        self.last = current
+        return True
+
+    def settle(self, pause: float) -> None:
+        """Wait until a burst of saves is over, so one edit gives one rebuild."""
+        while True:
+            time.sleep(pause)
+            if not self.changed():
+                return
+
+
+def _watched(name: str) -> bool:
+    return not name.startswith(".") and not name.endswith("~") and name not in IGNORED_PARTS
+
+
+def _stamp(path: str) -> tuple[int, int]:
+    try:
+        status = os.stat(path)
+    except OSError:
+        return (0, -1)
+    return (status.st_mtime_ns, status.st_size)
+
+
+@dataclass
+class Preview:
+    archive: Path
+    output: Path
+    rebuild: Callable[[], bool]
+    builds: int = 0
+
+
+def serve(archive: Path, host: str = "127.0.0.1", port: int = 8000, *, build: Callable[[Path, Path], bool], stop: threading.Event | None = None, on_ready: Callable[[str], None] | None = None, pause: float = POLL_SECONDS) -> int:
+    """Serve until stopped (Ctrl-C, or `stop` set); returns how many builds were made."""
+    stop = stop or threading.Event()
+    scratch = Path(tempfile.mkdtemp(prefix="dossier-serve-"))
+    output = scratch / "site"
+    output.mkdir()
+    preview = Preview(archive, output, lambda: build(archive, output))
+    server = _server(host, port, output)
+    try:
+        _run(preview, server, stop, on_ready, pause)
+    finally:
+        server.shutdown()
+        server.server_close()
+        shutil.rmtree(scratch, ignore_errors=True)
+    return preview.builds
+
+
+def _server(host: str, port: int, output: Path) -> http.server.ThreadingHTTPServer:
+    handler = functools.partial(_QuietHandler, directory=str(output))
+    server = http.server.ThreadingHTTPServer((host, port), handler)
+    threading.Thread(target=server.serve_forever, daemon=True).start()
+    return server
+
+
+class _QuietHandler(http.server.SimpleHTTPRequestHandler):
+    def log_message(self, format, *args):  # one line per request would bury the rebuild messages
+        pass
+
+
+def _run(preview: Preview, server, stop: threading.Event, on_ready, pause: float) -> None:
+    watcher = Watcher([preview.archive, templates_dir()])
+    _rebuild(preview)
+    host, port = server.server_address[:2]
+    if on_ready is not None:
+        on_ready(f"http://{host}:{port}/")
+    while not stop.wait(pause):
+        if watcher.changed():
+            watcher.settle(pause)
+            _rebuild(preview)
+            watcher.changed()  # take the post-build state as the new base
+
+
+def _rebuild(preview: Preview) -> None:
+    preview.rebuild()
+    preview.builds += 1
+
+
+def run_serve(archive: Path, host: str, port: int) -> int:
+    from dossier.commands.build import build_site
+    from dossier.problems import InputError
+    from dossier.site.atomic import OutputRefused
+    from dossier.site.render import RenderError
+    from dossier.wording import problem_line
+
+    def build(source: Path, output: Path) -> bool:
+        try:
+            built = build_site(source, output)
+        except InputError as error:
+            for problem in error.problems:
+                click.echo(problem_line(problem), err=True)
+            click.echo("not rebuilt: put the problems right and save again", err=True)
+            return False
+        except (OutputRefused, RenderError) as error:
+            click.echo(getattr(error, "output", "") or str(error), err=True)
+            return False
+        click.echo(f"built {built.pages} pages in {built.seconds:.1f} s", err=True)
+        return True
+
+    def ready(url: str) -> None:
+        click.echo(f"serving {archive} at {url} (Ctrl-C to stop); saving a record or template rebuilds the site", err=True)
+
+    try:
+        serve(archive, host, port, build=build, on_ready=ready)
+    except KeyboardInterrupt:
+        click.echo("stopped", err=True)
+    return 0

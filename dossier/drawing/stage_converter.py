@@ -1,0 +1,164 @@
+"""A self-oscillating half-bridge: the split capacitors on the left, the two switches on the
+right, the transformer primary and the current-feedback winding of the base-drive transformer
+between their midpoints, a base winding for each switch, and the start-up trigger network."""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+
+import schemdraw.elements as elm
+
+from dossier.drawing import parts as P
+from dossier.drawing import sheet
+from dossier.drawing.drawers import StageDrawer, finish_stage, lacking
+from dossier.drawing.parts import Picker
+from dossier.drawing.symbols import Winding
+from dossier.drawing.views import PartView, StageView
+
+TOP, MID, BOTTOM = 8.0, 4.0, 0.0
+CAP_X = 2.6
+TOPOLOGY = "self-oscillating-half-bridge"
+NEEDS = {
+    "an upper switch": P.UPPER_SWITCH,
+    "a lower switch": P.LOWER_SWITCH,
+    "two split capacitors": P.either(P.SPLIT, P.BULK),
+    "a second split capacitor": P.either(P.SPLIT, P.BULK),
+    "a base-drive transformer": P.DRIVE_TRANSFORMER,
+}
+
+
+@dataclass(frozen=True)
+class DriveWindings:
+    feedback: str
+    upper: str
+    lower: str
+
+
+def draw(view: StageView):
+    drawing = sheet.new_drawing()
+    picker = Picker(view.parts)
+    _inputs(drawing, view)
+    _capacitors(drawing, picker.take(P.either(P.SPLIT, P.BULK)), picker.take(P.either(P.SPLIT, P.BULK)))
+    drive = picker.take(P.DRIVE_TRANSFORMER)
+    windings = drive_windings(view, drive)
+    switch_x = _bridge_path(drawing, view, windings)
+    base_x = _switches(drawing, switch_x, picker.take(P.UPPER_SWITCH), picker.take(P.LOWER_SWITCH))
+    right = _base_windings(drawing, switch_x, base_x, windings)
+    right = _start_up(drawing, base_x, right, picker)
+    _rails(drawing, right)
+    return finish_stage(drawing, view, picker)
+
+
+def _inputs(drawing, view: StageView) -> None:
+    origin = f" from {view.came_from}" if view.came_from else ""
+    sheet.terminal(drawing, (-0.11, TOP), f"+DC{origin}", side="left")
+    sheet.terminal(drawing, (-0.11, BOTTOM), f"\u2212DC{origin}", side="left")
+
+
+def _capacitors(drawing, upper: PartView, lower: PartView) -> None:
+    for part, (top, bottom) in ((upper, (TOP, MID)), (lower, (MID, BOTTOM))):
+        sheet.add(drawing, elm.Capacitor(polar=True).at((CAP_X, top)).to((CAP_X, bottom)))
+        sheet.text(drawing, (CAP_X - 0.45, (top + bottom) / 2), part.label, halign="right")
+    for y in (TOP, BOTTOM):
+        sheet.dot(drawing, (CAP_X, y))
+
+
+def drive_windings(view: StageView, drive: PartView) -> DriveWindings:
+    """Labels for the base-drive transformer's three windings, with turns and wire when recorded;
+    the feedback winding's label also names the part."""
+    caption = drive.label.replace("\n", " ")
+    magnetic = view.magnetic(drive.ref)
+    if magnetic is None:
+        return DriveWindings(f"{caption}\n{drive.ref} feedback", f"{drive.ref} upper base", f"{drive.ref} lower base")
+    feedback = next((w for w in magnetic.windings if w.role == "feedback"), None)
+    bases = [w for w in magnetic.windings if w.role != "feedback"]
+    upper = next((w for w in bases if "upper" in w.name.lower()), bases[0] if bases else None)
+    lower = next((w for w in bases if w is not upper), None)
+    feedback_text, upper_text, lower_text = (f"{drive.ref} {w.label}" if w else drive.ref for w in (feedback, upper, lower))
+    return DriveWindings(f"{caption}\n{feedback_text}", upper_text, lower_text)
+
+
+def _bridge_path(drawing, view: StageView, windings: DriveWindings) -> float:
+    """From the capacitor midpoint through the transformer primary and the feedback winding to the switch node."""
+    load = view.load or "transformer primary"
+    x = CAP_X
+    sheet.dot(drawing, (x, MID))
+    for words in (load, windings.feedback):
+        x = _horizontal_winding(drawing, x, words)
+    sheet.wire(drawing, (x, MID), (x + 0.7, MID))
+    return x + 0.7
+
+
+def _horizontal_winding(drawing, x: float, words: str) -> float:
+    length = max(2.2, sheet.text_width(words) + 0.4)
+    sheet.add(drawing, Winding(humps=4, core=True).at((x, MID)).right(length))
+    sheet.text(drawing, (x + length / 2, MID + 0.55), words, halign="center", valign="bottom")
+    return x + length
+
+
+def _switches(drawing, x: float, upper: PartView, lower: PartView) -> float:
+    """Upper switch from the positive rail to the switch node, lower from there to the negative rail."""
+    top = sheet.add(drawing, elm.BjtNpn().reverse().anchor("collector").at((x, TOP - 1.2)))
+    bottom = sheet.add(drawing, elm.BjtNpn().reverse().anchor("collector").at((x, MID - 1.4)))
+    sheet.wire(drawing, (x, TOP), top.collector)
+    sheet.wire(drawing, top.emitter, bottom.collector)
+    sheet.wire(drawing, bottom.emitter, (x, BOTTOM))
+    for device, part in ((top, upper), (bottom, lower)):
+        sheet.text(drawing, (x - 0.45, device.base[1]), part.label, halign="right")
+    for y in (TOP, MID, BOTTOM):
+        sheet.dot(drawing, (x, y))
+    return top.base[0]
+
+
+def _base_windings(drawing, switch_x: float, base_x: float, windings: DriveWindings) -> float:
+    """Each base winding runs from its switch's base down to that switch's emitter."""
+    upper_base, lower_base = TOP - 1.2 - 0.7, MID - 1.4 - 0.7
+    winding_x = base_x + 0.8
+    joins = MID + 0.7
+    sheet.wire(drawing, (base_x, upper_base), (winding_x, upper_base))
+    sheet.add(drawing, Winding(humps=3, core=True).at((winding_x, upper_base)).to((winding_x, joins)))
+    sheet.wire(drawing, (winding_x, joins), (switch_x, joins))
+    sheet.dot(drawing, (switch_x, joins))
+    sheet.wire(drawing, (base_x, lower_base), (winding_x, lower_base))
+    sheet.add(drawing, Winding(humps=3, core=True).at((winding_x, lower_base)).to((winding_x, BOTTOM)))
+    sheet.dot(drawing, (winding_x, BOTTOM))
+    sheet.text(drawing, (winding_x + 0.55, (upper_base + joins) / 2), windings.upper)
+    sheet.text(drawing, (winding_x + 0.55, lower_base / 2), windings.lower)
+    widest = max(sheet.text_width(windings.upper), sheet.text_width(windings.lower))
+    return winding_x + 0.55 + widest
+
+
+def _start_up(drawing, base_x: float, right: float, picker: Picker) -> float:
+    """Resistor and capacitor charge to the trigger's breakover voltage; the trigger fires the lower base."""
+    resistor, capacitor, trigger = (picker.peek(t) for t in (P.START_RESISTOR, P.START_CAPACITOR, P.TRIGGER))
+    if None in (resistor, capacitor, trigger):
+        return right
+    for test in (P.START_RESISTOR, P.START_CAPACITOR, P.TRIGGER):
+        picker.take(test)
+    node = MID - 1.4 - 0.7
+    x = max(right, base_x + 0.8 + sheet.text_width(trigger.label) + 0.6) + 0.8
+    sheet.add(drawing, elm.ResistorIEC().at((x, TOP)).to((x, node)))
+    sheet.add(drawing, elm.Capacitor().at((x, node)).to((x, BOTTOM)))
+    sheet.add(drawing, elm.Diac().at((x, node)).to((base_x + 0.8, node)))
+    sheet.dot(drawing, (x, node))
+    sheet.dot(drawing, (base_x + 0.8, node))
+    sheet.text(drawing, ((x + base_x + 0.8) / 2, node + 0.7), trigger.label, halign="center", valign="bottom")
+    sheet.text(drawing, (x + 0.45, (TOP + node) / 2), resistor.label)
+    sheet.text(drawing, (x + 0.45, node / 2), capacitor.label)
+    return x
+
+
+def _rails(drawing, right: float) -> None:
+    sheet.wire(drawing, (0, TOP), (right, TOP))
+    sheet.wire(drawing, (0, BOTTOM), (right, BOTTOM))
+
+
+def handles(view: StageView) -> bool:
+    return view.kind == "converter" and view.topology == TOPOLOGY
+
+
+def missing(view: StageView) -> list[str]:
+    return lacking(Picker(view.parts), NEEDS)
+
+
+DRAWER = StageDrawer("self-oscillating half-bridge", handles, missing, draw)

@@ -1,0 +1,145 @@
+"""Mains input: inlet with earth, the series parts on the line conductor (fuse, switch, inrush
+limiter, in the record's order), parts across the line (X capacitor, varistor, bleeder), the
+bridge rectifier and the bulk capacitors."""
+
+from __future__ import annotations
+
+import schemdraw.elements as elm
+
+from dossier.drawing import parts as P
+from dossier.drawing import sheet
+from dossier.drawing.drawers import StageDrawer, finish_stage
+from dossier.drawing.parts import Picker
+from dossier.drawing.symbols import BridgeRectifier, ProtectiveEarth
+from dossier.drawing.views import PartView, StageView
+
+LINE_Y = 2.6  # line conductor (L), later the positive DC rail
+NEUTRAL_Y = 0.0  # neutral (N), later the negative DC rail
+EARTH_Y = -1.4
+START_X = 0.6
+
+
+def draw(view: StageView):
+    drawing = sheet.new_drawing()
+    picker = Picker(view.parts)
+    _inlet(drawing, picker.take(P.INLET))
+    _earth(drawing, view)
+    x = _series(drawing, picker.take_all(P.either(P.FUSE, P.SWITCH, P.INRUSH)))
+    x = _shunts(drawing, x, picker.take_all(P.SHUNT))
+    bridge = picker.take(P.BRIDGE)
+    if bridge is None:
+        _rails_out(drawing, x, ("L", "N"), view.goes_to)
+        return finish_stage(drawing, view, picker)
+    x = _bridge(drawing, x, bridge)
+    x = _shunts(drawing, x, picker.take_all(P.either(P.BULK, P.SPLIT)))
+    _rails_out(drawing, x, ("+DC", "\u2212DC"), view.goes_to)
+    return finish_stage(drawing, view, picker)
+
+
+def _inlet(drawing, inlet: PartView | None) -> None:
+    for name, y in (("L", LINE_Y), ("N", NEUTRAL_Y), ("PE", EARTH_Y)):
+        sheet.add(drawing, elm.Dot(open=True, radius=0.11).at((0, y)))
+        sheet.text(drawing, (-0.25, y), name, halign="right")
+    if inlet is not None:
+        sheet.add(drawing, elm.Rect(corner1=(-0.75, LINE_Y + 0.45), corner2=(0.3, EARTH_Y - 0.45)).at((0, 0)).linestyle("--").zorder(1))
+        sheet.text(drawing, (-0.75, LINE_Y + 0.6), inlet.label, valign="bottom")
+    sheet.wire(drawing, (0.11, LINE_Y), (START_X, LINE_Y))
+    sheet.wire(drawing, (0.11, NEUTRAL_Y), (START_X, NEUTRAL_Y))
+
+
+def _earth(drawing, view: StageView) -> None:
+    if not view.earthed:
+        return
+    sheet.wire(drawing, (0.11, EARTH_Y), (1.2, EARTH_Y))
+    earth = sheet.add(drawing, ProtectiveEarth().at((1.2, EARTH_Y)))
+    sheet.text(drawing, earth.note, "protective earth\nto chassis", size=sheet.SMALL_FONT)
+
+
+def _series(drawing, found: list[PartView]) -> float:
+    """Fuse, switch and inrush limiter in the line conductor; a 2-pole switch breaks N as well."""
+    x = START_X
+    for part in found:
+        length = max(sheet.UNIT, sheet.text_width(part.label) + 0.5)
+        sheet.add(drawing, _symbol(part).at((x, LINE_Y)).right(length).label(part.label, loc="top"))
+        if P.SWITCH(part) and _two_pole(part):
+            _neutral_pole(drawing, x, length)
+        else:
+            sheet.wire(drawing, (x, NEUTRAL_Y), (x + length, NEUTRAL_Y))
+        x += length
+    return x
+
+
+def _symbol(part: PartView):
+    if P.FUSE(part):
+        return elm.FuseIEC()
+    if P.SWITCH(part):
+        return elm.Switch()
+    return elm.Thermistor()
+
+
+def _two_pole(part: PartView) -> bool:
+    words = f"{part.value} {part.role}".lower()
+    return any(w in words for w in ("2-pole", "two-pole", "double-pole", "2 pole", "dpst", "dp "))
+
+
+def _neutral_pole(drawing, x: float, length: float) -> None:
+    sheet.add(drawing, elm.Switch().at((x, NEUTRAL_Y)).right(length))
+    middle = x + length / 2
+    sheet.wire(drawing, (middle, NEUTRAL_Y + 0.2), (middle, LINE_Y + 0.2), dashed=True)
+
+
+def _shunts(drawing, x: float, found: list[PartView]) -> float:
+    """Parts across the two conductors, each labelled on its right."""
+    for part in found:
+        x += 0.6
+        sheet.wire(drawing, (x - 0.6, LINE_Y), (x, LINE_Y))
+        sheet.wire(drawing, (x - 0.6, NEUTRAL_Y), (x, NEUTRAL_Y))
+        sheet.add(drawing, _shunt_symbol(part).at((x, LINE_Y)).to((x, NEUTRAL_Y)).label(part.label, loc="bottom"))
+        sheet.dot(drawing, (x, LINE_Y))
+        sheet.dot(drawing, (x, NEUTRAL_Y))
+        wide = sheet.text_width(part.label) + 1.0
+        sheet.wire(drawing, (x, LINE_Y), (x + wide, LINE_Y))
+        sheet.wire(drawing, (x, NEUTRAL_Y), (x + wide, NEUTRAL_Y))
+        x += wide
+    return x
+
+
+def _shunt_symbol(part: PartView):
+    if P.CAPACITOR(part):
+        return elm.Capacitor(polar=P.BULK(part) or P.SPLIT(part))
+    if part.is_kind("varistor", "mov"):
+        return elm.ResistorVarIEC()
+    return elm.ResistorIEC()
+
+
+def _bridge(drawing, x: float, bridge: PartView) -> float:
+    """The bridge between the conductors: AC pins on the left, DC on the right."""
+    centre_y = (LINE_Y + NEUTRAL_Y) / 2
+    body = sheet.add(drawing, BridgeRectifier().at((x + 1.2, centre_y)))
+    sheet.wire(drawing, (x, LINE_Y), (x + 0.5, LINE_Y), (x + 0.5, body.ac1[1]), body.ac1)
+    sheet.wire(drawing, (x, NEUTRAL_Y), (x + 0.5, NEUTRAL_Y), (x + 0.5, body.ac2[1]), body.ac2)
+    sheet.text(drawing, (body.ac1[0] + 0.8, centre_y + 1.05), bridge.label, halign="center", valign="bottom")
+    right = body.plus[0] + 0.5
+    sheet.wire(drawing, body.plus, (right, body.plus[1]), (right, LINE_Y))
+    sheet.wire(drawing, body.minus, (right, body.minus[1]), (right, NEUTRAL_Y))
+    return right
+
+
+def _rails_out(drawing, x: float, names: tuple[str, str], goes_to: str) -> None:
+    end = x + 0.6
+    sheet.wire(drawing, (x, LINE_Y), (end, LINE_Y))
+    sheet.wire(drawing, (x, NEUTRAL_Y), (end, NEUTRAL_Y))
+    onward = f" to {goes_to}" if goes_to else ""
+    sheet.terminal(drawing, (end + 0.11, LINE_Y), f"{names[0]}{onward}")
+    sheet.terminal(drawing, (end + 0.11, NEUTRAL_Y), f"{names[1]}{onward}")
+
+
+def handles(view: StageView) -> bool:
+    return view.kind == "mains-input"
+
+
+def missing(view: StageView) -> list[str]:
+    return []
+
+
+DRAWER = StageDrawer("mains input", handles, missing, draw)

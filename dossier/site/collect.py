@@ -1,0 +1,109 @@
+"""Reading a whole archive for the site: every revision validated, reviewed and drawn.
+
+Every problem in every file is gathered in one pass and raised together, so a build that is
+refused names all that is wrong at once; nothing is written before that.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass, field
+from pathlib import Path
+from typing import Callable
+
+from dossier.archive import RevisionFile, build_dirs, load_revision, revision_files
+from dossier.findings import Finding
+from dossier.lock import Ledger, Publication, frozen_problems, load_ledger
+from dossier.plugins import Calc, load_calcs
+from dossier.problems import InputError, Location, Problem
+from dossier.record.load import LoadedRecord
+from dossier.review import review
+from dossier.site.extras import Extras, revision_extras
+from dossier.site.settings import ArchiveSettings, load_settings
+
+CHECKLIST_SHEETS = {"a4": "checklist-a4.html", "letter": "checklist-letter.html"}
+
+
+@dataclass
+class Revision:
+    file: RevisionFile
+    loaded: LoadedRecord
+    findings: list[Finding]
+    extras: Extras
+    publication: Publication | None
+
+    @property
+    def record(self):
+        return self.loaded.record
+
+    @property
+    def letter(self) -> str:
+        return self.file.letter
+
+
+@dataclass
+class Build:
+    id: str
+    folder: Path
+    revisions: list[Revision]
+
+    @property
+    def current(self) -> Revision:
+        return self.revisions[-1]
+
+
+@dataclass
+class Archive:
+    root: Path
+    settings: ArchiveSettings
+    calcs: list[Calc]
+    ledger: Ledger
+    builds: list[Build] = field(default_factory=list)
+
+    @property
+    def newest_date(self):
+        dates = [rev.record.date for build in self.builds for rev in build.revisions]
+        return max(dates) if dates else None
+
+
+def collect(root: Path, calcs: list[Calc] | None = None, cache=None, progress: Callable[[Build], None] | None = None) -> Archive:
+    """The validated, reviewed archive; InputError with every problem found if anything is wrong."""
+    if not root.is_dir():
+        raise InputError([Problem("path_missing", Location(str(root)), expected="an archive folder", found="no folder at this path")])
+    problems: list[Problem] = []
+    settings = _gathered(problems, lambda: load_settings(root), None)
+    ledger = _gathered(problems, lambda: load_ledger(root), Ledger())
+    problems.extend(frozen_problems(root, ledger))
+    archive = Archive(root, settings, calcs if calcs is not None else load_calcs(), ledger)
+    for folder in build_dirs(root):
+        build = _collect_build(archive, folder, cache, problems)
+        if build is not None:
+            archive.builds.append(build)
+            if progress is not None:
+                progress(build)
+    if problems:
+        raise InputError(problems)
+    return archive
+
+
+def _gathered(problems: list[Problem], step, fallback):
+    try:
+        return step()
+    except InputError as error:
+        problems.extend(error.problems)
+        return fallback
+
+
+def _collect_build(archive: Archive, folder: Path, cache, problems: list[Problem]) -> Build | None:
+    revisions = []
+    for rev in revision_files(folder):
+        revision = _gathered(problems, lambda: _collect_revision(archive, rev, cache), None)
+        if revision is not None:
+            revisions.append(revision)
+    return Build(folder.name, folder, revisions) if revisions else None
+
+
+def _collect_revision(archive: Archive, rev: RevisionFile, cache) -> Revision:
+    loaded = load_revision(rev, shown_as=f"{rev.build_id}/{rev.path.name}")
+    findings = review(loaded.record, archive.calcs)
+    extras = revision_extras(loaded, findings, rev.path.parent, cache, CHECKLIST_SHEETS)
+    return Revision(rev, loaded, findings, extras, archive.ledger.entry(rev.build_id, rev.letter))

@@ -1,0 +1,33 @@
+"""Chargers for the charge tests: the demo charger with some of its output or battery keys changed."""
+
+from __future__ import annotations
+
+from conftest import load_demo
+
+from dossier.calcs.charge import CALC
+from dossier.record.model import Record
+
+DROP = object()  # pass as a value to remove the key
+
+
+def _apply(section: dict, changes: dict) -> None:
+    for key, value in changes.items():
+        if value is DROP:
+            section.pop(key, None)
+        else:
+            section[key] = value
+
+
+def charger(output: dict | None = None, **battery) -> Record:
+    """Demo charger rev C (AGM 40 Ah, 14.4 V / 13.6 V at 25 degC, 6 A, 2 % tolerance) with changes."""
+    data = load_demo("sw-charger-12v", "C").model_dump(mode="json", exclude_none=True)
+    _apply(data["output"], output or {})
+    _apply(data["output"]["battery"], battery)
+    return Record.model_validate(data)
+
+
+def findings_by_code(record) -> dict:
+    found = list(CALC.run(record))
+    codes = [f.code for f in found]
+    assert len(codes) == len(set(codes)), f"one finding per code expected, got {codes}"
+    return {f.code: f for f in found}

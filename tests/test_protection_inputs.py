@@ -1,0 +1,190 @@
+"""The protection calc on incomplete or wrong input: located errors, and 'info' with what to add, never a crash."""
+
+from __future__ import annotations
+
+import copy
+import math
+
+import pytest
+import yaml
+
+from dossier.calcs.protection import CALC, recommended_fuse
+from dossier.calcs.protection_input import conduction_angle, crest_factor, pulse_power_factor
+from dossier.findings import Verdict
+from dossier.problems import InputError
+from dossier.record.load import load_record
+from dossier.record.model import Record
+
+BASE = {
+    "id": "test-unit", "title": "Test unit", "revision": "A", "date": "2026-01-01", "authors": ["Test"], "status": "design",
+    "mains": {"nominal": "230 V", "frequency": "50 Hz"},
+    "environment": {"max_ambient": "25 degC"},
+    "protection": {
+        "fuse": {"ref": "F1", "rating": "1 A", "speed": "time-lag", "voltage_rating": "250 V", "breaking_capacity": "1500 A", "body": "ceramic", "melting_i2t": "5 A^2*s"},
+        "inrush_limiter": {"ref": "RT1", "cold_resistance": "10 ohm", "hot_resistance": "0.5 ohm", "max_energy": "20 J", "max_current": "2 A"},
+        "bulk_capacitance": "100 uF", "bulk_esr": "0.5 ohm", "source_resistance": "0.5 ohm",
+        "earth": {"protective_class": "I", "enclosure": "metal", "bonding": "stud"},
+    },
+    "output": {"voltage": "12 V", "current": "2 A", "efficiency": "80 %", "power_factor": 0.6},
+}
+
+
+def record_with(**changes):
+    """BASE with dotted keys set (value None removes the key)."""
+    data = copy.deepcopy(BASE)
+    for dotted, value in changes.items():
+        *parents, last = dotted.split("__")
+        target = data
+        for key in parents:
+            target = target.setdefault(key, {})
+        if value is None:
+            target.pop(last, None)
+        else:
+            target[last] = value
+    return Record.model_validate(data)
+
+
+def codes(record, verdict=None):
+    return {f.code: f for f in CALC.run(record) if verdict is None or f.verdict is verdict}
+
+
+def test_complete_record_gives_checks_not_info():
+    found = codes(record_with())
+    assert found["PROT-FUSE-RATING"].verdict is Verdict.PASS
+    assert found["PROT-INRUSH"].verdict is Verdict.PASS
+    assert found["PROT-NTC-ENERGY"].verdict is Verdict.PASS
+
+
+def test_no_output_lowers_to_info_with_what_to_add():
+    found = codes(record_with(output=None))
+    for code in ("PROT-INPUT-CURRENT", "PROT-FUSE-RATING", "PROT-NTC-DISSIPATION"):
+        assert found[code].verdict is Verdict.INFO
+        assert "Add output" in found[code].explanation
+    assert recommended_fuse(record_with(output=None)) is None
+
+
+def test_missing_efficiency_uses_a_typical_value_and_says_so():
+    found = codes(record_with(output__efficiency=None))
+    rating = found["PROT-FUSE-RATING"]
+    assert rating.verdict is Verdict.INFO
+    assert "output.efficiency" in rating.explanation
+    assert any(s.is_common_practice and "efficiency" in s.title for s in found["PROT-INPUT-CURRENT"].sources)
+
+
+def test_out_of_range_efficiency_is_named():
+    rating = codes(record_with(output__efficiency="120 %"))["PROT-FUSE-RATING"]
+    assert rating.verdict is Verdict.INFO
+    assert "found 120 %" in rating.explanation
+
+
+def test_missing_power_factor_uses_the_typical_value_for_the_input():
+    found = codes(record_with(output__power_factor=None))
+    current = found["PROT-INPUT-CURRENT"]
+    assert any("capacitor-input rectifier 0.6" in s.title for s in current.sources)
+    assert current.value.quantity.to("A").magnitude == pytest.approx(24 / 0.8 / (207 * 0.6), rel=1e-6)
+
+
+def test_missing_melting_i2t_is_info_with_the_melting_integral_needed():
+    inrush = codes(record_with(protection__fuse__melting_i2t=None))["PROT-INRUSH"]
+    assert inrush.verdict is Verdict.INFO
+    assert "protection.fuse.melting_i2t" in inrush.explanation
+    assert inrush.value.label.startswith("melting I^2 t the fuse needs")
+
+
+def test_missing_source_resistance_is_assumed_zero_and_lowered():
+    inrush = codes(record_with(protection__source_resistance=None))["PROT-INRUSH"]
+    assert inrush.verdict is Verdict.INFO
+    assert "protection.source_resistance" in inrush.explanation
+
+
+def test_no_resistance_at_all_cannot_compute_a_peak():
+    record = record_with(protection__inrush_limiter=None, protection__source_resistance=None, protection__bulk_esr=None)
+    inrush = codes(record)["PROT-INRUSH"]
+    assert inrush.verdict is Verdict.INFO
+    assert "protection.source_resistance" in inrush.explanation
+
+
+def test_no_mains_fuse_is_a_fail_with_a_recommendation():
+    found = codes(record_with(protection__fuse=None))
+    assert found["PROT-FUSE-RATING"].verdict is Verdict.FAIL
+    assert "Fit a T" in found["PROT-FUSE-RATING"].explanation
+    assert found["PROT-FUSE-RECOMMENDED"].value.quantity.to("A").magnitude > 0
+
+
+def test_fuse_voltage_below_the_mains_fails():
+    # Littelfuse, Fuseology Selection Guide: the fuse's voltage rating must be at least the circuit voltage.
+    assert codes(record_with(protection__fuse__voltage_rating="125 V"))["PROT-FUSE-VOLTAGE"].verdict is Verdict.FAIL
+
+
+def test_ntc_energy_over_its_rating_fails():
+    # NTC makers' selection guides: E = 1/2 C V_peak^2 = 0.5 x 470 uF x (253 V x sqrt 2)^2 = 30.1 J > 20 J.
+    energy = codes(record_with(protection__bulk_capacitance="470 uF"))["PROT-NTC-ENERGY"]
+    assert energy.verdict is Verdict.FAIL
+    assert energy.value.quantity.to("J").magnitude == pytest.approx(0.5 * 470e-6 * (253 * math.sqrt(2)) ** 2)
+
+
+def test_ntc_maximum_capacitance_is_used_when_no_energy_is_given():
+    energy = codes(record_with(protection__inrush_limiter__max_energy=None, protection__inrush_limiter__max_capacitance="68 uF"))["PROT-NTC-ENERGY"]
+    assert energy.verdict is Verdict.FAIL
+    assert energy.limit.label.endswith("maximum capacitance")
+
+
+def test_class_ii_plastic_unit_needs_no_bond():
+    record = record_with(protection__earth={"protective_class": "II", "enclosure": "plastic"})
+    assert "PROT-EARTH-BOND" not in codes(record)
+
+
+def test_earth_terminal_without_earth_section_fails():
+    record = record_with(
+        protection__earth=None,
+        stages=[{"kind": "mains-input", "name": "In", "side": "mains", "parts": [{"ref": "J1", "kind": "inlet", "role": "mains inlet with earth"}]}],
+    )
+    assert codes(record)["PROT-EARTH-BOND"].verdict is Verdict.FAIL
+
+
+def test_output_fuse_larger_than_its_lead_fails():
+    battery = {"chemistry": "agm", "capacity": "40 Ah", "absorption_voltage": "14.4 V"}
+    record = record_with(output__battery=battery, protection__reverse_polarity="series diode",
+                         protection__output_fuse={"ref": "F2", "rating": "20 A", "lead_wire": "AWG 18", "distance_to_battery": "100 mm"})
+    found = codes(record)
+    # AWG 18 = 1.024 mm (ASTM B258) = 0.82 mm^2 -> the 0.75 mm^2 row, 6 A (common practice, from memory).
+    assert found["PROT-OUTPUT-LEAD"].verdict is Verdict.FAIL
+    assert found["PROT-OUTPUT-LEAD"].limit.quantity.to("A").magnitude == pytest.approx(6)
+    assert found["PROT-OUTPUT-FUSE"].verdict is Verdict.PASS
+    assert found["PROT-REVERSE-POLARITY"].verdict is Verdict.PASS
+
+
+def test_no_mains_means_no_mains_findings():
+    assert codes(record_with(mains=None)) == {}
+
+
+def test_wrong_unit_is_a_located_error(tmp_path):
+    data = copy.deepcopy(BASE)
+    data["protection"]["fuse"]["rating"] = "2 V"
+    path = tmp_path / "rev-A.yaml"
+    path.write_text(yaml.safe_dump(data, sort_keys=False))
+    with pytest.raises(InputError) as caught:
+        load_record(path)
+    problem = caught.value.problems[0]
+    assert problem.key == "protection.fuse.rating"
+    assert problem.code == "wrong_dimension"
+    line = next(n for n, text in enumerate(path.read_text().splitlines(), 1) if "2 V" in text)
+    assert problem.location.line == line
+
+
+def test_half_sine_pulse_power_factor_against_a_numeric_fourier_series():
+    # Power factor with the current in phase: fundamental RMS over total RMS (IEC 60050-131, power factor = P / S).
+    angle = math.radians(50)
+    steps = 20_000
+    samples = [(k + 0.5) * math.pi / steps for k in range(steps)]
+    pulse = [math.cos(math.pi * (x - math.pi / 2) / angle) if abs(x - math.pi / 2) < angle / 2 else 0.0 for x in samples]
+    fundamental = 2 / steps * sum(i * math.sin(x) for i, x in zip(pulse, samples)) / math.sqrt(2)
+    rms = math.sqrt(sum(i * i for i in pulse) / steps)
+    assert pulse_power_factor(angle) == pytest.approx(fundamental / rms, rel=1e-4)
+
+
+def test_crest_factor_of_a_sine_and_of_narrow_pulses():
+    # A sine has crest factor sqrt 2 and power factor 1 (circuit theory).
+    assert crest_factor(1.0) == pytest.approx(math.sqrt(2), rel=1e-4)
+    assert crest_factor(0.6) > 2.5
+    assert pulse_power_factor(conduction_angle(0.6)) == pytest.approx(0.6, rel=1e-6)

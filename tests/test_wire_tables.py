@@ -1,0 +1,108 @@
+"""Wire sizes and copper: ASTM B258 AWG diameters, IEC 60317-0-1 enamel grades, IEC 60028 copper."""
+
+from __future__ import annotations
+
+import math
+
+import pytest
+
+from dossier.standards import copper, wire
+from dossier.units import Q_, awg_diameter
+
+
+def test_awg_18_and_26_in_millimetres():
+    # ASTM B258, table of nominal diameters: AWG 18 = 0.0403 in = 1.024 mm, AWG 26 = 0.0159 in = 0.404 mm (confirmed).
+    assert awg_diameter(18).to("mm").magnitude == pytest.approx(1.024, abs=0.0005)
+    assert awg_diameter(26).to("mm").magnitude == pytest.approx(0.404, abs=0.001)
+
+
+@pytest.mark.parametrize("gauge", sorted(wire.AWG_CHECK))
+def test_awg_formula_matches_the_table_to_its_last_digit(gauge):
+    # ASTM B258 table, inches to four decimals; 18 and 26 confirmed, the others from memory (see wire.AWG_CHECK).
+    inches, _status = wire.AWG_CHECK[gauge]
+    assert awg_diameter(gauge).to("inch").magnitude == pytest.approx(inches, abs=0.00005)
+
+
+def test_awg_steps_by_the_39th_root_of_92():
+    # ASTM B258 defines the series: 39 steps from AWG 36 (0.005 in) to AWG 0000 (0.46 in), a ratio of 92.
+    assert awg_diameter(-3).to("inch").magnitude == pytest.approx(0.46, rel=1e-9)
+    assert (awg_diameter(20) / awg_diameter(21)).to("").magnitude == pytest.approx(92 ** (1 / 39))
+
+
+def test_enamel_grades_thicken_in_order_for_every_size():
+    # IEC 60317-0-1: grade 1 < grade 2 < grade 3 overall diameter at each nominal size (table values from memory).
+    for size, (g1, g2, g3) in wire.ENAMEL_TABLE.items():
+        assert size < g1 < g2 < g3, size
+
+
+def test_enamel_build_up_grows_with_size():
+    # IEC 60317-0-1: the permitted increase in diameter grows with the conductor size (from memory).
+    for grade in (1, 2, 3):
+        builds = [row[grade - 1] - size for size, row in sorted(wire.ENAMEL_TABLE.items())]
+        assert builds == sorted(builds), grade
+
+
+def test_overall_diameter_at_a_table_size_is_the_table_value():
+    found = wire.overall_diameter(Q_(0.5, "mm"), 2)
+    assert found.diameter.magnitude == pytest.approx(wire.ENAMEL_TABLE[0.5][1])
+    assert "table value" in found.basis
+
+
+def test_overall_diameter_between_sizes_is_interpolated():
+    lower, upper = wire.ENAMEL_TABLE[0.5][1] - 0.5, wire.ENAMEL_TABLE[0.63][1] - 0.63
+    found = wire.overall_diameter(Q_(0.565, "mm"), 2)
+    assert found.diameter.magnitude == pytest.approx(0.565 + (lower + upper) / 2)
+    assert "interpolated" in found.basis
+
+
+def test_overall_diameter_without_a_grade_assumes_grade_2():
+    found = wire.overall_diameter(Q_(0.8, "mm"))
+    assert found.diameter.magnitude == pytest.approx(wire.ENAMEL_TABLE[0.8][1])
+    assert "grade assumed" in found.basis
+
+
+def test_overall_diameter_outside_the_table_uses_the_nearest_build_up():
+    found = wire.overall_diameter(Q_(3.0, "mm"), 1)
+    assert found.diameter.magnitude == pytest.approx(3.0 + wire.ENAMEL_TABLE[2.0][0] - 2.0)
+    assert "outside the table" in found.basis
+
+
+def test_triple_insulated_wire_is_thicker_than_any_enamel_grade():
+    tiw = wire.overall_diameter(Q_(0.5, "mm"), triple_insulated=True).diameter
+    assert tiw > wire.overall_diameter(Q_(0.5, "mm"), 3).diameter
+
+
+def test_copper_area_of_strands():
+    assert wire.copper_area(Q_(0.8, "mm"), 3).magnitude == pytest.approx(3 * math.pi * 0.64 / 4)
+
+
+def test_copper_resistivity_at_20_degC():
+    # IEC 60028: annealed copper 1/58 ohm mm^2/m = 0.017241 at 20 degC (confirmed).
+    assert copper.resistivity().to("ohm*mm**2/m").magnitude == pytest.approx(0.017241, rel=1e-4)
+
+
+def test_copper_temperature_coefficient():
+    # IEC 60028: 0.00393 per kelvin at 20 degC (confirmed); at 100 degC rho is (1 + 80 x 0.00393) times rho_20.
+    ratio = (copper.resistivity(Q_(100, "degC")) / copper.resistivity()).to("").magnitude
+    assert ratio == pytest.approx(1 + 80 * 0.00393)
+
+
+@pytest.mark.parametrize("gauge, ohm_per_kft", [(18, 7.77), (14, 3.07)])
+def test_solid_awg_resistance_at_75_degC(gauge, ohm_per_kft):
+    # NFPA 70 (National Electrical Code), Chapter 9, Table 8: solid uncoated copper at 75 degC,
+    # 18 AWG 7.77 ohm/kFT, 14 AWG 3.07 ohm/kFT (from memory).
+    area = wire.copper_area(awg_diameter(gauge))
+    found = copper.resistance(Q_(1000, "ft"), area, Q_(75, "degC"))
+    assert found.to("ohm").magnitude == pytest.approx(ohm_per_kft, abs=0.01)
+
+
+def test_skin_depth_of_copper_at_20_kHz():
+    # delta = sqrt(rho / (pi f mu_0)) with IEC 60028 copper: 0.467 mm at 20 kHz and 20 degC (confirmed). McLyman,
+    # Transformer and Inductor Design Handbook (CRC Press), gives 6.62 / sqrt(f) cm for copper (from memory).
+    assert copper.skin_depth(Q_(20, "kHz")).to("mm").magnitude == pytest.approx(0.467, abs=0.0005)
+    assert copper.skin_depth(Q_(20, "kHz")).to("cm").magnitude == pytest.approx(6.62 / math.sqrt(20e3), rel=0.005)
+
+
+def test_skin_depth_falls_with_the_root_of_frequency():
+    ratio = (copper.skin_depth(Q_(10, "kHz")) / copper.skin_depth(Q_(40, "kHz"))).to("").magnitude
+    assert ratio == pytest.approx(2.0)
