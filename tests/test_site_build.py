@@ -18,14 +18,12 @@ from dossier.lock import Target, publish, save_ledger
 from dossier.problems import InputError
 from dossier.site.atomic import MARKER, OutputRefused
 from dossier.site.render import RenderError
-from test_site_kit import TEST_CALC, copy_demo, drawing_cache, html_findings, write_record  # noqa: F401  (fixture)
+from test_site_kit import TEST_CALC, copy_demo, demo_site, drawing_cache, html_findings, write_record  # noqa: F401  (fixtures)
 
 
 @pytest.fixture(scope="module")
-def site(tmp_path_factory, drawing_cache):
-    output = tmp_path_factory.mktemp("demo") / "site"
-    build_site(DEMO, output, cache=drawing_cache)
-    return output
+def site(demo_site):
+    return demo_site
 
 
 def test_the_demo_site_is_built_with_every_page(site):

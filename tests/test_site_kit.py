@@ -126,6 +126,16 @@ def drawing_cache(tmp_path_factory):
     return DrawingCache(tmp_path_factory.mktemp("drawings"))
 
 
+@pytest.fixture(scope="session")
+def demo_site(tmp_path_factory, drawing_cache):
+    """The demo archive's rendered site, built once per test run."""
+    from dossier.commands.build import build_site
+
+    output = tmp_path_factory.mktemp("demo") / "site"
+    build_site(DEMO, output, cache=drawing_cache)
+    return output
+
+
 def test_scanner_flags_script_and_network_loads():
     scan = HtmlScan()
     scan.feed('<img src="https://x.example/p.png"><a href="javascript:alert(1)">x</a><p onclick="x">y</p><script>alert(1)</script>')

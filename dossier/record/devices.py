@@ -8,6 +8,7 @@ from pydantic import Field, field_validator, model_validator
 from pydantic_core import PydanticCustomError
 
 from dossier.record.fields import (
+    Designator,
     Current, Duration, Energy, Frequency, Power, Ratio, Section, Temperature, ThermalResistance, Voltage,
 )
 from dossier.units import Q_
@@ -32,10 +33,10 @@ class Switching(Section):
 
 
 class Semiconductor(Section):
-    ref: str
-    kind: Literal["bjt", "mosfet", "igbt", "diode", "schottky", "bridge", "regulator"]
+    ref: Designator
+    kind: Literal["bjt", "mosfet", "igbt", "diode", "schottky", "bridge", "regulator"] = Field(description="bjt, mosfet, igbt, diode, schottky, bridge or regulator.")
     voltage_rating: Voltage | None = Field(None, description="Collector-emitter, drain-source or repetitive reverse voltage rating.")
-    current_rating: Current | None = None
+    current_rating: Current | None = Field(None, description="Maximum continuous current from the datasheet.")
     max_junction: Temperature | None = Field(None, description="Maximum junction temperature from the maker's data.")
     rth_jc: ThermalResistance | None = Field(None, description="Junction-to-case thermal resistance.")
     rth_ja: ThermalResistance | None = Field(None, description="Junction-to-air thermal resistance, for a device with no heatsink.")
@@ -50,14 +51,14 @@ class Semiconductor(Section):
 
 
 class Capacitor(Section):
-    ref: str
+    ref: Designator
     voltage_rating: Voltage = Field(description="Rated voltage: DC for ordinary capacitors, AC RMS for X and Y safety capacitors.")
-    position: Literal["bulk", "split", "across-line", "line-to-earth", "across-barrier", "output", "other"] = "other"
+    position: Literal["bulk", "split", "across-line", "line-to-earth", "across-barrier", "output", "other"] = Field("other", description="Where it sits: bulk, split, across-line, line-to-earth, across-barrier, output or other.")
     safety_class: SafetyClass = Field("", description="X1, X2, X3, Y1, Y2, Y3 or Y4 (IEC 60384-14) for safety capacitors.")
 
 
 class Heatsink(Section):
-    ref: str
+    ref: Designator
     rth_sa: ThermalResistance = Field(description="Sink-to-air thermal resistance.")
     touchable: bool = Field(True, description="It can be touched from outside the enclosure.")
     earthed: bool = Field(False, description="It is bonded to protective earth.")
@@ -96,13 +97,13 @@ class SoakReading(Section):
     ambient: Temperature = Field(description="Air temperature around the unit during the run.")
     duration: Duration = Field(description="How long it ran at that load before the reading, e.g. 2 h.")
     load: str = Field("", description="What it was driving, e.g. '3 A into a resistive load'.")
-    note: str = ""
+    note: str = Field("", description="Where and how it was measured.")
 
 
 class Devices(Section):
-    semiconductors: list[Semiconductor] = Field(default_factory=list)
-    capacitors: list[Capacitor] = Field(default_factory=list)
-    heatsinks: list[Heatsink] = Field(default_factory=list)
+    semiconductors: list[Semiconductor] = Field(default_factory=list, description="Power semiconductors with ratings and thermal data.")
+    capacitors: list[Capacitor] = Field(default_factory=list, description="Capacitors whose voltage or safety class matters.")
+    heatsinks: list[Heatsink] = Field(default_factory=list, description="Heatsinks by designator, with sink-to-air resistance.")
     margins: Margins = Field(default_factory=Margins, description="Margins the builder's club sets; defaults are common practice.")
     soak: list[SoakReading] = Field(default_factory=list, description="Temperatures measured after a run at full load.")
 

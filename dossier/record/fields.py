@@ -4,7 +4,7 @@ from __future__ import annotations
 
 from typing import Annotated, Any
 
-from pydantic import BaseModel, ConfigDict, PlainSerializer, PlainValidator, WithJsonSchema
+from pydantic import BaseModel, ConfigDict, Field, PlainSerializer, PlainValidator, WithJsonSchema
 from pydantic_core import PydanticCustomError
 
 from dossier.units import UnitProblem, describe_dimension, parse_quantity, parse_wire
@@ -79,3 +79,6 @@ WireSize = Annotated[
     PlainSerializer(_serialise, return_type=str),
     WithJsonSchema({"type": "string", "description": _WIRE, "x-quantity": _WIRE}),
 ]
+
+DESIGNATOR_PATTERN = r"^[A-Z]{1,4}[0-9]{1,4}[A-Za-z]?$"
+Designator = Annotated[str, Field(pattern=DESIGNATOR_PATTERN, description="Designator as on the drawing, e.g. F1, Q2, T1, HS1.")]

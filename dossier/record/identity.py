@@ -39,7 +39,7 @@ class Attachment(Section):
     """A photo, datasheet or other file kept beside the record, by path relative to the build folder."""
 
     path: str = Field(min_length=1, max_length=255, description="Path relative to the build's folder, with forward slashes; no absolute paths, no '..'.")
-    kind: Literal["photo", "datasheet", "drawing", "other"] = "other"
+    kind: Literal["photo", "datasheet", "drawing", "other"] = Field("other", description="photo (shown on the page), datasheet, drawing or other (linked).")
     caption: str = Field("", description="One line shown under a photo or beside a link.")
 
     @field_validator("path")
@@ -53,7 +53,7 @@ class Attachment(Section):
 
 class Identity(Section):
     id: str = Field(pattern=BUILD_ID_PATTERN, description="Build id; the same as the build's folder name.")
-    title: str = Field(min_length=1, max_length=200)
+    title: str = Field(min_length=1, max_length=200, description="What the unit is, in a few words.")
     revision: str = Field(pattern=REVISION_PATTERN, description="Revision letter: A, B, ... (the file is rev-A.yaml).")
     date: datetime.date = Field(description="Date of this revision, YYYY-MM-DD.")
     authors: list[str] = Field(min_length=1, description="Who built or changed the unit in this revision.")

@@ -27,7 +27,7 @@ class Slot(Section):
         description="The declared creepage counts on this slot (measured around or across it as an interruption); "
         "false when the creepage was measured straight across it, as if bridged.",
     )
-    note: str = ""
+    note: str = Field("", description="Where the slot is, e.g. 'routed under T1'.")
 
     _positive = field_validator("width")(_positive)
 
@@ -43,7 +43,7 @@ class Barrier(Section):
     clearance: Length = Field(description="Shortest clearance through air.")
     working_voltage: Voltage | None = Field(None, description="RMS working voltage across the barrier; default: the mains nominal voltage.")
     working_peak: Voltage | None = Field(None, description="Peak working voltage where it exceeds the mains peak.")
-    slots: list[Slot] = Field(default_factory=list)
+    slots: list[Slot] = Field(default_factory=list, description="Grooves or slots cut across the creepage path.")
     parts: list[str] = Field(default_factory=list, description="Designators that bridge or form the barrier, e.g. T1, C9.")
 
     _positive = field_validator("creepage", "clearance", "working_voltage", "working_peak")(_positive)

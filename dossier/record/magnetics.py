@@ -8,6 +8,7 @@ from pydantic import Field, ValidationInfo, field_validator, model_validator
 from pydantic_core import PydanticCustomError
 
 from dossier.record.fields import (
+    Designator,
     Area, Current, FluxDensity, Frequency, InductanceFactor, Length, Ratio, Section, Temperature, Voltage, WireSize,
     quantity,
 )
@@ -38,7 +39,7 @@ class Steinmetz(Section):
 
 
 class CoreMaterial(Section):
-    name: str = ""
+    name: str = Field("", description="Material name or grade as the builder knows it.")
     saturation_flux: FluxDensity = Field(description="Saturation flux density at the hot temperature below.")
     saturation_temperature: Temperature | None = Field(None, description="Temperature the saturation figure is given at.")
     initial_permeability: float | None = Field(None, gt=0, description="Initial relative permeability; gives A_L when A_L is not declared.")
@@ -60,7 +61,7 @@ class Core(Section):
     mean_turn_length: Length | None = Field(None, description="Mean length of one turn (declared cores; a toroid's is computed).")
     surface_area: Area | None = Field(None, description="Outside surface of the wound component, for the temperature-rise estimate (declared cores).")
     al: InductanceFactor | None = Field(None, description="Inductance factor A_L, e.g. 2500 nH (per turn squared).")
-    material: CoreMaterial
+    material: CoreMaterial = Field(description="The core material's magnetic limits and losses.")
 
     _positive = field_validator(
         "outer_diameter", "height", "effective_area", "path_length", "window_area", "mean_turn_length", "surface_area", "al",
@@ -87,7 +88,7 @@ class Core(Section):
 class Excitation(Section):
     waveform: Literal["square", "sine"] = Field(description="square (bipolar, as from a bridge) or sine.")
     voltage: Voltage = Field(description="Amplitude for a square wave, RMS for a sine, across the winding named.")
-    frequency: Frequency
+    frequency: Frequency = Field(description="Switching or mains frequency of the drive.")
     winding: str = Field("", description="Winding the voltage is across; default the first.")
     duty: Ratio | None = Field(None, description="Fraction of the period the voltage is applied (square wave); default 100 %.")
 
@@ -102,16 +103,16 @@ class Excitation(Section):
 
 
 class Winding(Section):
-    name: str = Field(min_length=1)
-    role: Literal["primary", "secondary", "feedback", "drive", "choke", "auxiliary"] = "secondary"
+    name: str = Field(min_length=1, description="Name of the winding, e.g. primary, secondary, upper base.")
+    role: Literal["primary", "secondary", "feedback", "drive", "choke", "auxiliary"] = Field("secondary", description="primary, secondary, feedback, drive, choke or auxiliary.")
     turns: float = Field(gt=0, description="Turns, end to end (a centre-tapped winding counts both halves); a fraction is allowed.")
-    wire: WireSize
+    wire: WireSize = Field(description="Bare-copper size of one strand: AWG 23 or 0.55 mm.")
     strands: int = Field(1, ge=1, description="Strands in parallel.")
     enamel_grade: Literal[1, 2, 3] | None = Field(None, description="IEC 60317 enamel grade 1, 2 or 3; grade 2 is assumed when not given.")
     overall_diameter: Length | None = Field(None, description="Measured or datasheet diameter over the insulation; overrides the enamel grade.")
-    triple_insulated: bool = False
+    triple_insulated: bool = Field(False, description="Wound with triple-insulated wire.")
     tape_layers: int = Field(0, ge=0, description="Layers of insulating tape over this winding.")
-    centre_tap: bool = False
+    centre_tap: bool = Field(False, description="The winding has a centre tap; turns count the whole winding.")
     current: Current | None = Field(None, description="RMS current (in each half of a centre-tapped winding); default derived from the output rating.")
 
     _positive = field_validator("wire", "overall_diameter", "current")(_positive)
@@ -126,11 +127,11 @@ class Winding(Section):
 
 
 class Magnetic(Section):
-    ref: str
-    role: Literal["transformer", "base-drive", "choke", "mains-transformer", "current-sense"]
-    title: str = ""
-    core: Core
-    windings: list[Winding] = Field(min_length=1)
+    ref: Designator
+    role: Literal["transformer", "base-drive", "choke", "mains-transformer", "current-sense"] = Field(description="transformer, base-drive, choke, mains-transformer or current-sense.")
+    title: str = Field("", description="Heading for the component, e.g. 'Main transformer'.")
+    core: Core = Field(description="The core: a toroid by its dimensions, or declared effective parameters.")
+    windings: list[Winding] = Field(min_length=1, description="Every winding, primary first.")
     frequency: Frequency | None = Field(None, description="Operating frequency when the excitation is derived from the converter stage, e.g. 40 kHz.")
     cooling: Literal["natural", "forced-air"] = Field("natural", description="natural (convection) or forced-air (a fan blows on it).")
     excitation: Excitation | None = Field(None, description="Declared drive: waveform, voltage, frequency (and the winding it is across).")

@@ -18,14 +18,14 @@ class Record(Identity):
     """One revision of one build, as validated from its YAML file."""
 
     mains: Mains | None = Field(None, description="The mains supply; leave out only for units with no mains connection.")
-    environment: Environment = Field(default_factory=Environment)
-    stages: list[Stage] = Field(default_factory=list)
-    magnetics: list[Magnetic] = Field(default_factory=list)
-    barriers: list[Barrier] = Field(default_factory=list)
-    protection: Protection = Field(default_factory=Protection)
-    devices: Devices = Field(default_factory=Devices)
-    output: Output | None = None
-    attachments: list[Attachment] = Field(default_factory=list)
+    environment: Environment = Field(default_factory=Environment, description="Where the unit lives: pollution degree, altitude, ambient.")
+    stages: list[Stage] = Field(default_factory=list, description="The build's stages in signal order, mains first, each with its parts.")
+    magnetics: list[Magnetic] = Field(default_factory=list, description="Wound components: transformers, base-drive transformers, chokes.")
+    barriers: list[Barrier] = Field(default_factory=list, description="Isolation barriers with their declared creepage and clearance.")
+    protection: Protection = Field(default_factory=Protection, description="Fuses, inrush limiting, earthing and output protection.")
+    devices: Devices = Field(default_factory=Devices, description="Power semiconductors, capacitors under stress, heatsinks, soak readings.")
+    output: Output | None = Field(None, description="What the unit delivers; for a charger, the battery.")
+    attachments: list[Attachment] = Field(default_factory=list, description="Photos and datasheets kept in the build folder.")
     notes: str = Field("", description="Free notes in Markdown.")
 
     @property

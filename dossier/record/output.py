@@ -99,9 +99,9 @@ class Battery(Section):
 class Output(Section):
     voltage: Voltage = Field(description="Rated output voltage, e.g. 13.8 V.")
     current: Current = Field(description="Rated output current; for a charger, its largest charge current.")
-    power: Power | None = None
-    efficiency: Ratio | None = None
-    power_factor: Ratio | None = None
+    power: Power | None = Field(None, description="Rated output power; default voltage x current.")
+    efficiency: Ratio | None = Field(None, description="Efficiency at full load, e.g. 80 %.")
+    power_factor: Ratio | None = Field(None, description="Input power factor; default a typical value for the input type.")
     tolerance: Ratio | None = Field(None, description="How far the output voltage may sit from its setting (setpoint accuracy and regulation), e.g. 2 %.")
     minimum_load: Current | None = Field(None, description="Load the converter needs to start and regulate, if any.")
     battery: Battery | None = Field(None, description="For a charger: the battery it is set up for. Leave out for other outputs.")

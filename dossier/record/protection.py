@@ -7,12 +7,12 @@ from typing import Literal
 from pydantic import Field
 
 from dossier.record.fields import (
-    Capacitance, Current, Energy, Length, MeltingIntegral, Resistance, Section, Temperature, Voltage, WireSize,
+    Capacitance, Designator, Current, Energy, Length, MeltingIntegral, Resistance, Section, Temperature, Voltage, WireSize,
 )
 
 
 class Fuse(Section):
-    ref: str = Field(description="Designator of the mains fuse, e.g. F1.")
+    ref: Designator
     rating: Current = Field(description="Rated current as marked, e.g. 2 A or 500 mA.")
     speed: Literal["time-lag", "fast-acting"] = Field(description="time-lag (T) or fast-acting (F).")
     voltage_rating: Voltage = Field(description="Rated voltage as marked, e.g. 250 V.")
@@ -23,7 +23,7 @@ class Fuse(Section):
 
 
 class InrushLimiter(Section):
-    ref: str = Field(description="Designator, e.g. RT1.")
+    ref: Designator
     kind: Literal["ntc", "resistor", "relay-bypassed-resistor"] = Field("ntc", description="ntc, resistor or relay-bypassed-resistor.")
     cold_resistance: Resistance = Field(description="Resistance at 25 degC (for a resistor, its resistance), e.g. 10 ohm.")
     hot_resistance: Resistance | None = Field(None, description="NTC residual resistance at its maximum current, from the maker's data.")
@@ -39,7 +39,7 @@ class Earth(Section):
 
 
 class OutputFuse(Section):
-    ref: str = Field(description="Designator of the battery-lead fuse, e.g. F2.")
+    ref: Designator
     rating: Current = Field(description="Rated current, e.g. 10 A.")
     distance_to_battery: Length | None = Field(None, description="Length of lead between the fuse and the battery terminal, e.g. 150 mm.")
     lead_wire: WireSize | None = Field(None, description="Size of the battery lead, e.g. AWG 14 or 1.6 mm.")
