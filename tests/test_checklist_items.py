@@ -208,3 +208,15 @@ def test_a_chargers_own_current_limit_and_compensation_are_used():
     assert current.expected.contains(Q_(4.05, "A")) and not current.expected.contains(Q_(6, "A"))
     assert "-18 mV/K" in checklist.item("output-voltage").steps
     assert checklist.item("output-voltage").title == "Absorption (constant-voltage) setting, 14.4 V"
+
+
+def test_a_live_tab_without_a_pad_makes_the_heatsink_live():
+    loaded, findings = demo("sw-charger-12v", "C")
+    devices = loaded.record.devices
+    bare = [d.model_copy(update={"insulated": False}) if d.ref == "Q1" else d for d in devices.semiconductors]
+    record = loaded.record.model_copy(update={"devices": devices.model_copy(update={"semiconductors": bare})})
+    checklist = build_checklist(record, list(findings))
+    live = checklist.item("tab-isolation-q1")
+    assert live.title == "Heatsink HS1 is live through Q1's tab"
+    assert not live.measured
+    assert checklist.item("tab-isolation-q2").expected.low == Q_(1.0, "megaohm")

@@ -7,7 +7,8 @@ import math
 import pytest
 from conftest import load_demo
 
-from dossier.calcs.magnetics_voltages import bus_voltages, drive_of, winding_voltages
+from dossier.calcs.magnetics_voltages import drive_of, winding_voltages
+from dossier.calcs.mains_lines import line_peaks
 
 
 def magnetic(record, ref):
@@ -61,4 +62,4 @@ def test_a_choke_with_no_circuit_has_no_winding_voltages():
 
 def test_bus_is_the_rectified_peak():
     record = load_demo("sw-charger-12v", "A")
-    assert volts(bus_voltages(record.mains)["nominal"]) == pytest.approx(325.27, abs=0.01)
+    assert volts(line_peaks(record.mains)["nominal"]) == pytest.approx(325.27, abs=0.01)

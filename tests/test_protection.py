@@ -114,6 +114,19 @@ def test_bench_supply_has_no_protection_failure():
     findings = findings_of("bench-psu-13v8", "A")
     assert not [f.code for f in findings if f.verdict is Verdict.FAIL]
     assert one(findings, "PROT-EARTH-BOND").verdict is Verdict.PASS
+    # 13.8 V x 3 A / 0.55 = 75.27 W at 108 V and power factor 0.65: 1.072 A; / (0.75 x 0.975 at 30 degC) = 1.466 A
+    # (Littelfuse, Fuseology Selection Guide: 75 % at 25 degC; the 0.5 %/K re-rating line is from memory) -> T1.6A
+    rating = one(findings, "PROT-FUSE-RATING")
+    assert rating.limit.quantity.to("A").magnitude == pytest.approx(1.466, abs=0.001)
+    assert rating.verdict is Verdict.PASS
+
+
+def test_rotator_fuse_rating_by_hand():
+    # 24 V x 2 A / 0.85 = 56.47 W at 207 V and power factor 0.95: 0.2872 A; / (0.75 x 0.975) = 0.3927 A; the next
+    # IEC 60127-1 Annex A rating is 400 mA, the fuse the record declares.
+    findings = findings_of("rotator-control", "A")
+    assert one(findings, "PROT-FUSE-RATING").limit.quantity.to("A").magnitude == pytest.approx(0.3927, abs=0.0001)
+    assert one(findings, "PROT-FUSE-RECOMMENDED").title == "Fit T400mA"
 
 
 def test_recommended_fuse_for_the_checklist():

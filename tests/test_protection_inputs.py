@@ -50,8 +50,15 @@ def codes(record, verdict=None):
 
 def test_complete_record_gives_checks_not_info():
     found = codes(record_with())
+    # 12 V x 2 A / 0.8 = 30 W; / (207 V x 0.6) = 0.2415 A; / 0.75 at 25 degC (Littelfuse, Fuseology Selection Guide) = 0.322 A
+    assert found["PROT-FUSE-RATING"].limit.quantity.to("A").magnitude == pytest.approx(0.3221, abs=0.0001)
     assert found["PROT-FUSE-RATING"].verdict is Verdict.PASS
+    # crest of high line 253 x sqrt 2 = 357.8 V through 10 + 0.5 + 0.5 ohm: 32.53 A, tau = 11 ohm x 100 uF = 1.1 ms;
+    # I^2 t = 32.53^2 x 1.1e-3 / 2 = 0.582 A^2 s (Fuseology, exponential pulse), under 29 % of 5 A^2 s = 1.45 A^2 s
+    assert found["PROT-INRUSH"].value.quantity.to("A**2*s").magnitude == pytest.approx(0.582, abs=0.001)
     assert found["PROT-INRUSH"].verdict is Verdict.PASS
+    # NTC makers' selection guides: E = 1/2 x 100 uF x 357.8^2 = 6.40 J, well under the 20 J rating
+    assert found["PROT-NTC-ENERGY"].value.quantity.to("J").magnitude == pytest.approx(6.40, abs=0.005)
     assert found["PROT-NTC-ENERGY"].verdict is Verdict.PASS
 
 
@@ -108,7 +115,8 @@ def test_no_mains_fuse_is_a_fail_with_a_recommendation():
     found = codes(record_with(protection__fuse=None))
     assert found["PROT-FUSE-RATING"].verdict is Verdict.FAIL
     assert "Fit a T" in found["PROT-FUSE-RATING"].explanation
-    assert found["PROT-FUSE-RECOMMENDED"].value.quantity.to("A").magnitude > 0
+    # 0.322 A needed (see above); the next IEC 60127-1 Annex A rating is 400 mA
+    assert found["PROT-FUSE-RECOMMENDED"].value.quantity.to("A").magnitude == pytest.approx(0.4)
 
 
 def test_fuse_voltage_below_the_mains_fails():

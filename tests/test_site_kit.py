@@ -118,12 +118,19 @@ def html_findings(site: Path, skip=("checklist-a4.html", "checklist-letter.html"
     return found
 
 
+# Fixtures imported into several test modules get one definition per module; these module-level
+# stores make each of them built once per test run all the same.
+_ONCE: dict[str, object] = {}
+
+
 @pytest.fixture(scope="session")
 def drawing_cache(tmp_path_factory):
     """One drawing cache for every site test, so each schematic is drawn once per test run."""
     from dossier.drawing.cache import DrawingCache
 
-    return DrawingCache(tmp_path_factory.mktemp("drawings"))
+    if "cache" not in _ONCE:
+        _ONCE["cache"] = DrawingCache(tmp_path_factory.mktemp("drawings"))
+    return _ONCE["cache"]
 
 
 @pytest.fixture(scope="session")
@@ -131,9 +138,11 @@ def demo_site(tmp_path_factory, drawing_cache):
     """The demo archive's rendered site, built once per test run."""
     from dossier.commands.build import build_site
 
-    output = tmp_path_factory.mktemp("demo") / "site"
-    build_site(DEMO, output, cache=drawing_cache)
-    return output
+    if "site" not in _ONCE:
+        output = tmp_path_factory.mktemp("demo") / "site"
+        build_site(DEMO, output, cache=drawing_cache)
+        _ONCE["site"] = output
+    return _ONCE["site"]
 
 
 def test_scanner_flags_script_and_network_loads():

@@ -5,6 +5,7 @@ from __future__ import annotations
 import math
 from dataclasses import replace
 
+from dossier.calcs.finding_kit import maker, not_assessed as not_assessed_finding
 from dossier.calcs.isolation_inputs import Inputs, Site, derive_inputs, material_group_of, material_key
 from dossier.calcs.isolation_needs import (
     DOUBLED_GRADES, ClearanceNeed, CreepageNeed, bridged_slots, clearance_need, creepage_need, impulse_voltages,
@@ -17,6 +18,7 @@ from dossier.standards import iec60664 as std
 from dossier.units import Q_, fmt
 
 NAME = "isolation"
+finding = maker(NAME)
 MARGINAL_WITHIN = 0.10  # dossier's own band: within 10 % of the requirement is marginal
 INTERPOLATION_NOTE = "interpolated linearly between rows (from memory, to verify against the standard's note)"
 
@@ -59,9 +61,9 @@ def barrier_findings(record, site: Site) -> list[Finding]:
     return findings
 
 
-def _required(finding: Finding):
+def _required(clearance: Finding):
     """The required clearance in mm, or None when it could not be assessed."""
-    return finding.limit.quantity.to("mm").magnitude if finding.limit else None
+    return clearance.limit.quantity.to("mm").magnitude if clearance.limit else None
 
 
 # --- inputs -----------------------------------------------------------------------------------
@@ -73,7 +75,7 @@ def inputs_finding(site: Site, inputs: Inputs) -> Finding:
     notes = list(inputs.notes)
     values += _impulse_measures(site, inputs, notes)
     values += _group_measures(site.barrier, notes)
-    return Finding(code="ISO-INPUTS", calc=NAME, subject=site.barrier.name, title=f"Derived inputs for {site.grade} insulation",
+    return finding(code="ISO-INPUTS", subject=site.barrier.name, title=f"Derived inputs for {site.grade} insulation",
                    verdict=Verdict.INFO, values=tuple(values), explanation=_capitalised("; ".join(notes)) + ".",
                    keys=(inputs.rms_key, *inputs.supply_keys, material_key(site)), sources=(INPUTS_SOURCE,))
 
@@ -110,7 +112,7 @@ def clearance_finding(site: Site, inputs: Inputs) -> Finding:
     except std.OutsideTable as problem:
         return not_assessed(site, "ISO-CLEARANCE", "Clearance", str(problem), keys, CLEARANCE_SOURCE)
     declared, required = site.barrier.clearance, Q_(need.required_mm, "mm")
-    return Finding(code="ISO-CLEARANCE", calc=NAME, subject=site.barrier.name, title=f"Clearance for {site.grade} insulation",
+    return finding(code="ISO-CLEARANCE", subject=site.barrier.name, title=f"Clearance for {site.grade} insulation",
                    verdict=verdict(site, declared, required), values=(Measure("declared clearance", declared),),
                    limit=Measure("required clearance", required), method=CLEARANCE_METHOD,
                    explanation=clearance_text(site, inputs, need), keys=keys, sources=(CLEARANCE_SOURCE,),
@@ -201,7 +203,7 @@ def judged_creepage(site: Site, inputs: Inputs, need: CreepageNeed, keys: tuple)
     text = creepage_text(site, inputs, need) + bridged_text(site, bridged)
     sources = (CREEPAGE_SOURCE,) if need.off_board_mm is None else (CREEPAGE_SOURCE, PRODUCT_CREEPAGE_SOURCE)
     title = f"Creepage for {site.grade} insulation" + (": not credited, a slot counts as bridged" if bridged else "")
-    return Finding(code="ISO-CREEPAGE", calc=NAME, subject=site.barrier.name, title=title,
+    return finding(code="ISO-CREEPAGE", subject=site.barrier.name, title=title,
                    verdict=outcome, values=(Measure("declared creepage", declared),), limit=Measure("required creepage", required),
                    method=CREEPAGE_METHOD, explanation=text, keys=keys, sources=sources, extra=_creepage_extra(need))
 
@@ -267,7 +269,7 @@ def _off_board_note(need: CreepageNeed) -> str:
 
 
 def unsuitable_material(site: Site, reason: str, keys: tuple) -> Finding:
-    return Finding(code="ISO-CREEPAGE", calc=NAME, subject=site.barrier.name, title="Creepage: insulating material unsuitable",
+    return finding(code="ISO-CREEPAGE", subject=site.barrier.name, title="Creepage: insulating material unsuitable",
                    verdict=Verdict.FAIL, values=(Measure("CTI", site.barrier.cti),),
                    explanation=f"{reason}. Use a material of CTI 100 or more and declare its group or CTI.",
                    keys=keys, sources=(CREEPAGE_SOURCE,))
@@ -294,7 +296,7 @@ def slot_finding(site: Site, inputs: Inputs) -> Finding:
     except std.OutsideTable as problem:
         return not_assessed(site, "ISO-SLOT", "Slot width", str(problem), keys, GROOVE_SOURCE)
     outcome = Verdict.INFO if not slot.credited else verdict(site, slot.width, minimum)
-    return Finding(code="ISO-SLOT", calc=NAME, subject=site.barrier.name, title=slot_title(slot, minimum),
+    return finding(code="ISO-SLOT", subject=site.barrier.name, title=slot_title(slot, minimum),
                    verdict=outcome, values=(Measure("slot width", slot.width),), limit=Measure("minimum groove width", minimum),
                    method=SLOT_METHOD, explanation=slot_text(site, inputs, slot, minimum), keys=keys, sources=(GROOVE_SOURCE,))
 
@@ -311,8 +313,9 @@ def slot_title(slot, minimum) -> str:
 
 def slot_text(site: Site, inputs: Inputs, slot, minimum) -> str:
     clearance = site.barrier.clearance.to("mm")
-    reduced = " (one third of the declared clearance, as it is below 3 mm)" if clearance.magnitude < std.GROOVE_REDUCTION_BELOW_MM else ""
-    text = f"At pollution degree {inputs.pollution_degree} a groove must be at least {fmt(minimum)} wide{reduced} to interrupt a creepage path."
+    reduced = "; as the declared clearance is below 3 mm, one third of it is enough" if clearance.magnitude < std.GROOVE_REDUCTION_BELOW_MM else ""
+    base = fmt(Q_(std.GROOVE_MINIMUM_MM[inputs.pollution_degree], "mm"))
+    text = f"Clause 6.8: at pollution degree {inputs.pollution_degree} a groove interrupts a creepage path only if it is at least {base} wide{reduced}."
     if slot.width < minimum:
         text += " A narrower one is measured straight across, as if bridged by dirt and moisture."
     if not slot.credited:
@@ -330,12 +333,12 @@ def verdict(site: Site, declared, required) -> Verdict:
 
 
 def not_assessed(site: Site, code: str, what: str, reason: str, keys: tuple, source) -> Finding:
-    return Finding(code=code, calc=NAME, subject=site.barrier.name, title=f"{what} not assessed", verdict=Verdict.INFO,
-                   explanation=f"{reason}. Check this barrier against IEC 60664-1 directly.", keys=keys, sources=(source,))
+    why = f"{reason}; check this barrier against IEC 60664-1 directly"
+    return not_assessed_finding(NAME, code, site.barrier.name, f"{what} not assessed", why, keys, (source,))
 
 
 def no_voltage_finding(site: Site) -> Finding:
-    return Finding(code="ISO-NO-VOLTAGE", calc=NAME, subject=site.barrier.name, title="Barrier not assessed: no working voltage",
+    return finding(code="ISO-NO-VOLTAGE", subject=site.barrier.name, title="Barrier not assessed: no working voltage",
                    verdict=Verdict.INFO, keys=(site.key("working_voltage"), ("mains",)), sources=(INPUTS_SOURCE,),
                    explanation=("The record has no mains section and the barrier declares no working_voltage. Add a mains section "
                                 "(nominal, frequency, overvoltage_category) or give working_voltage on this barrier."))

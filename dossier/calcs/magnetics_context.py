@@ -4,12 +4,12 @@ from __future__ import annotations
 
 from dataclasses import dataclass, replace
 
+from dossier.calcs.finding_kit import maker
 from dossier.calcs.magnetics_core import CoreGeometry, geometry
 from dossier.calcs.magnetics_currents import winding_current
 from dossier.calcs.magnetics_fill import Fill, lay
 from dossier.calcs.magnetics_voltages import Drive, drive_of
 from dossier.citations import MCLYMAN
-from dossier.findings import Finding
 from dossier.units import Q_
 from dossier.wording import measure_text
 
@@ -19,7 +19,7 @@ FARADAY = replace(MCLYMAN, clause="Faraday's law with waveform factor 4.0 (squar
 STEINMETZ = replace(MCLYMAN, clause="core loss as k f^alpha B^beta from the maker's loss curves; from memory")
 TEMPERATURE_RISE = replace(MCLYMAN, clause="temperature rise T_r = 450 psi^0.826 (psi in W/cm^2), chapter on efficiency, regulation and temperature rise; from memory")
 CHOKE = replace(MCLYMAN, clause="inductor design: L = A_L N^2, energy L I^2 / 2, field N I / l_e; from memory")
-SKIN = replace(MCLYMAN, clause="skin effect in copper, penetration depth 6.62 / sqrt(f) cm at 20 degC; from memory")
+SKIN = replace(MCLYMAN, clause="skin effect in copper, penetration depth 6.62 / sqrt(f) cm at 20 degC, taken here at the hot temperature; from memory")
 
 
 @dataclass(frozen=True)
@@ -74,9 +74,12 @@ def _hot(material):
     return DEFAULT_HOT, "100 degC taken: the material declares no maximum temperature"
 
 
+_finding = maker("magnetics")
+
+
 def make(code: str, subject: str, title: str, verdict, **details):
     """A magnetics finding."""
-    return Finding(code=code, calc="magnetics", subject=subject, title=title, verdict=verdict, **details)
+    return _finding(code=code, subject=subject, title=title, verdict=verdict, **details)
 
 
 def listing(measures) -> str:

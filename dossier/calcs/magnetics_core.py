@@ -48,7 +48,7 @@ def toroid(core) -> CoreGeometry:
         effective_area=area,
         path_length=path,
         volume=volume,
-        window_area=(math.pi * core.inner_diameter**2 / 4).to("mm**2"),
+        window_area=hole_area(core.inner_diameter),
         mean_turn_length=section_perimeter(core.outer_diameter, core.inner_diameter, core.height),
         surface_area=toroid_surface(core.outer_diameter, core.inner_diameter, core.height),
         al=al,
@@ -74,6 +74,11 @@ def declared(core) -> CoreGeometry:
 
 def geometry(core) -> CoreGeometry:
     return toroid(core) if core.shape == "toroid" else declared(core)
+
+
+def hole_area(inner):
+    """A toroid's winding window: its hole, pi ID^2 / 4."""
+    return (math.pi * inner**2 / 4).to("mm**2")
 
 
 def section_perimeter(outer, inner, height):

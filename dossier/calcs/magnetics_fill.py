@@ -10,6 +10,7 @@ from __future__ import annotations
 import math
 from dataclasses import dataclass
 
+from dossier.calcs.magnetics_core import hole_area, section_perimeter, toroid_surface
 from dossier.standards.wire import copper_area, overall_diameter
 from dossier.units import Q_
 
@@ -65,7 +66,7 @@ def window_share(winding, overall, tape_length):
 
 def lay_toroid(core, windings) -> Fill:
     radius = core.inner_diameter / 2
-    base = 2 * core.height + (core.outer_diameter - core.inner_diameter)
+    base = section_perimeter(core.outer_diameter, core.inner_diameter, core.height)
     below, layouts = Q_(0, "mm"), []
     for winding in windings:
         overall, basis = overall_of(winding)
@@ -76,7 +77,7 @@ def lay_toroid(core, windings) -> Fill:
         mlt = (base + 8 * below + 4 * build).to("mm")
         layouts.append(Layout(winding.name, copper_area(winding.wire, winding.strands), overall, basis, share, build, mlt, layers))
         below = below + build
-    window = (math.pi * core.inner_diameter**2 / 4).to("mm**2")
+    window = hole_area(core.inner_diameter)
     occupied = sum((l.window_share for l in layouts), Q_(0, "mm**2"))
     return Fill(tuple(layouts), window, occupied, (core.inner_diameter - 2 * below).to("mm"))
 
@@ -104,10 +105,8 @@ def wound_surface(core, fill: Fill | None):
     if core.shape != "toroid":
         return core.surface_area
     build = (core.inner_diameter - fill.hole_left) / 2 if fill else Q_(0, "mm")
-    outer, inner, height = core.outer_diameter + 2 * build, core.inner_diameter - 2 * build, core.height + 2 * build
-    inner = max(inner, Q_(0, "mm"))
-    faces = math.pi / 2 * (outer**2 - inner**2)
-    return (faces + math.pi * (outer + inner) * height).to("cm**2")
+    inner = max(core.inner_diameter - 2 * build, Q_(0, "mm"))
+    return toroid_surface(core.outer_diameter + 2 * build, inner, core.height + 2 * build)
 
 
 def _layers(count: int, overall, hole_radius) -> int:

@@ -4,13 +4,13 @@ from __future__ import annotations
 
 from dossier.calcs.magnetics_context import CHOKE, FARADAY, STEINMETZ, listing, make
 from dossier.calcs.magnetics_losses import choke_figures, core_loss, transformer_flux
+from dossier.calcs.magnetics_saturation import family_of, rule_for
 from dossier.calcs.magnetics_voltages import LINES, winding_voltages
 from dossier.citations import IEC_60205
 from dossier.findings import Measure, Verdict, common_practice, judge
 from dossier.units import Q_, fmt
 
-FLUX_HEADROOM = 0.25  # marginal when the peak is within 25 % of saturation
-FLUX_PRACTICE = common_practice("peak flux density kept at least a quarter below saturation at the hot temperature")
+MAKER_DATA = common_practice("a core's effective parameters A_e, l_e and A_L as its maker's data sheet gives them")
 FIELD_HEADROOM = 0.10
 FIELD_PRACTICE = common_practice("DC field kept below where the maker's permeability-versus-field curve has fallen too far")
 
@@ -20,7 +20,7 @@ def core_finding(ctx):
     values = [Measure("effective area A_e", core.effective_area), Measure("path length l_e", core.path_length),
               Measure("effective volume V_e", core.volume.to("cm**3"))]
     values += [Measure(label, q) for label, q in (("window area A_w", core.window_area), ("bare mean turn", core.mean_turn_length), ("A_L", core.al)) if q is not None]
-    sources = (IEC_60205,) if ctx.magnetic.core.shape == "toroid" else ()
+    sources = (IEC_60205,) if ctx.magnetic.core.shape == "toroid" else (MAKER_DATA,)
     return make("MAG-CORE", ctx.ref, f"Core of {ctx.ref}: effective parameters", Verdict.INFO, values=tuple(values),
                 method=core.method, explanation=f"{listing(values[1:])} A_L: {core.al_basis}.", keys=(ctx.key("core"),), sources=sources)
 
@@ -41,7 +41,7 @@ def _ratio(ctx, position, winding, reference, voltages):
         values += [Measure(f"each half, peak at {line} line", voltages[f"{winding.name}/half"][line]) for line in LINES]
     return make("MAG-RATIO", ctx.subject(winding), f"Turns ratio and voltages of {ctx.subject(winding)}", Verdict.INFO,
                 values=tuple(values), explanation=listing(values), method=f"voltage across '{reference.name}' scaled by turns; drive: {ctx.drive.basis}",
-                keys=(ctx.winding_key(position, "turns"), ctx.drive.key))
+                keys=(ctx.winding_key(position, "turns"), ctx.drive.key), sources=(FARADAY,))
 
 
 def flux_findings(ctx):
@@ -50,27 +50,32 @@ def flux_findings(ctx):
     peak = transformer_flux(ctx, "high")
     if peak is None:
         return []
-    saturation = ctx.magnetic.core.material.saturation_flux.to("T")
-    extra = tuple(Measure(f"peak at {line} line", transformer_flux(ctx, line)) for line in ("low", "nominal"))
     drive = ctx.drive
     formula = "V / (4 f N A_e)" if drive.waveform == "square" else "V_rms / (4.44 f N A_e)"
     when = " at high line" if ctx.magnetic.excitation is None else ""
-    return [make("MAG-FLUX", ctx.ref, f"Peak flux density in {ctx.ref}{when}", judge(peak, saturation, "<=", FLUX_HEADROOM),
-                 values=(Measure("peak flux density", peak),), limit=Measure(_saturation_label(ctx), saturation), relation="<=",
-                 method=f"B_pk = {formula} at {fmt(drive.frequency)}, {drive.winding} turns; drive: {drive.basis}",
-                 extra=extra + (Measure("frequency", drive.frequency),),
-                 keys=(ctx.key("core", "material", "saturation_flux"), drive.key), sources=(FARADAY, FLUX_PRACTICE))]
+    extra = tuple(Measure(f"peak at {line} line", transformer_flux(ctx, line)) for line in ("low", "nominal"))
+    return [_flux(ctx, peak, f"Peak flux density in {ctx.ref}{when}", extra + (Measure("frequency", drive.frequency),),
+                  f"B_pk = {formula} at {fmt(drive.frequency)}, {drive.winding} turns; drive: {drive.basis}", drive.key)]
 
 
 def _choke_flux(ctx):
     figures = choke_figures(ctx)
     if figures is None:
         return []
-    saturation = ctx.magnetic.core.material.saturation_flux.to("T")
-    return [make("MAG-FLUX", ctx.ref, f"Peak flux density in {ctx.ref} at peak current", judge(figures.peak_flux, saturation, "<=", FLUX_HEADROOM),
-                 values=(Measure("peak flux density", figures.peak_flux),), limit=Measure(_saturation_label(ctx), saturation),
-                 relation="<=", method="B_pk = L I_pk / (N A_e)", extra=(Measure("peak current", figures.peak_current),),
-                 keys=(ctx.key("core", "material", "saturation_flux"),), sources=(FARADAY, FLUX_PRACTICE))]
+    return [_flux(ctx, figures.peak_flux, f"Peak flux density in {ctx.ref} at peak current",
+                  (Measure("peak current", figures.peak_current),), "B_pk = L I_pk / (N A_e)", ctx.key("windings", 0, "current"))]
+
+
+def _flux(ctx, peak, title, extra, method, drive_key):
+    material = ctx.magnetic.core.material
+    family, how = family_of(material, ctx.frequency)
+    rule = rule_for(family)
+    verdict = judge(peak, material.saturation_flux.to("T"), "<=", rule.headroom)
+    return make("MAG-FLUX", ctx.ref, title, verdict, values=(Measure("peak flux density", peak),),
+                limit=Measure(_saturation_label(ctx), material.saturation_flux.to("T")), relation="<=",
+                method=f"{method}; {family} ({how}): marginal within {rule.headroom:.0%} of saturation",
+                extra=extra, explanation=rule.advice if verdict in (Verdict.FAIL, Verdict.MARGINAL) else "",
+                keys=(ctx.key("core", "material", "saturation_flux"), drive_key), sources=(FARADAY, rule.source))
 
 
 def _saturation_label(ctx) -> str:

@@ -14,7 +14,7 @@ from __future__ import annotations
 import math
 from dataclasses import dataclass
 
-LINES = ("low", "nominal", "high")
+from dossier.calcs.mains_lines import LINES, line_peaks, line_rms
 
 # Fraction of the bus voltage across a converter transformer's primary, by stage topology.
 BUS_FRACTION = {
@@ -77,16 +77,6 @@ def drive_of(record, magnetic) -> Drive | None:
     return None
 
 
-def line_voltages(mains) -> dict:
-    """Mains RMS voltage at low, nominal and high line."""
-    return {"low": mains.low, "nominal": mains.nominal, "high": mains.high}
-
-
-def bus_voltages(mains) -> dict:
-    """The rectified mains peak at low, nominal and high line (no diode drop, no ripple)."""
-    return {line: value * math.sqrt(2) for line, value in line_voltages(mains).items()}
-
-
 def reference_winding(magnetic) -> str:
     """The first primary, or the first winding when none is called primary."""
     primaries = [w.name for w in magnetic.windings if w.role == "primary"]
@@ -111,12 +101,11 @@ def _declared(record, magnetic) -> Drive:
 
 
 def _from_mains(record, magnetic) -> Drive:
-    lines = line_voltages(record.mains)
     return Drive(
         winding=reference_winding(magnetic),
         waveform="sine",
-        amplitude={line: value * math.sqrt(2) for line, value in lines.items()},
-        rms=dict(lines),
+        amplitude=line_peaks(record.mains),
+        rms=line_rms(record.mains),
         frequency=record.mains.frequency,
         duty=1.0,
         basis="the mains sine across the primary",
@@ -130,7 +119,7 @@ def _from_converter(record, magnetic) -> Drive | None:
         return None
     index, stage = found
     fraction = BUS_FRACTION[stage.topology]
-    amplitude = {line: bus * fraction for line, bus in bus_voltages(record.mains).items()}
+    amplitude = {line: bus * fraction for line, bus in line_peaks(record.mains).items()}
     return Drive(
         winding=reference_winding(magnetic),
         waveform="square",

@@ -3,14 +3,14 @@
 from __future__ import annotations
 
 import dataclasses
-from functools import partial
 
+from dossier.calcs.finding_kit import maker
 from dossier.citations import EDN_FUSE_CHECKLIST, FUSEOLOGY, IEC_60050_131, IEC_60127_1
-from dossier.findings import Finding, Measure, Verdict, common_practice
+from dossier.findings import Measure, Verdict, common_practice
 
 CALC_NAME = "protection"
 
-finding = partial(Finding, calc=CALC_NAME)
+finding = maker(CALC_NAME)
 
 FUSEOLOGY_RUNNING = dataclasses.replace(FUSEOLOGY, clause="selection factors: 75 % of rating at 25 degC, temperature re-rating")
 FUSEOLOGY_VOLTAGE = dataclasses.replace(FUSEOLOGY, clause="selection factors: voltage rating at least the circuit voltage")

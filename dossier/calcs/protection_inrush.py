@@ -2,9 +2,9 @@
 
 from __future__ import annotations
 
-import math
 from dataclasses import dataclass
 
+from dossier.calcs.mains_lines import high_line_peak
 from dossier.calcs.protection_common import (
     FUSEOLOGY_PULSE_CYCLES, FUSEOLOGY_WAVESHAPES, RC_CHARGE, add_text, finding, lowered, measure, percent,
 )
@@ -30,11 +30,6 @@ class Pulse:
     assumed: tuple[str, ...]
 
 
-def line_peak(mains):
-    """Crest of the highest mains voltage: sqrt 2 (1 + tolerance) V_nominal."""
-    return (mains.high * math.sqrt(2)).to("V")
-
-
 def _path_resistance(protection, limiter_resistance) -> tuple[object, tuple[str, ...]]:
     parts = {"protection.source_resistance": protection.source_resistance, "protection.bulk_esr": protection.bulk_esr}
     assumed = tuple(key for key, value in parts.items() if value is None)
@@ -50,7 +45,7 @@ def charging_pulse(record, limiter_resistance) -> Pulse | None:
     resistance, assumed = _path_resistance(record.protection, limiter_resistance)
     if resistance.magnitude <= 0:
         return None
-    crest = line_peak(record.mains)
+    crest = high_line_peak(record.mains)
     peak = (crest / resistance).to("A")
     tau = (resistance * capacitance).to("ms")
     return Pulse(peak, tau, exponential_i2t(peak, tau), resistance, crest, assumed)
@@ -118,7 +113,8 @@ def _peak_finding(record, pulse: Pulse):
     return finding(code="PROT-INRUSH-PEAK", subject=limiter.ref if limiter else "switch-on", title="Switch-on peak current",
                    verdict=lowered(verdict, list(pulse.assumed)), values=(measure("peak current at high line", pulse.peak), measure("time constant", pulse.time_constant)),
                    method="I_pk = sqrt(2) V_high / (R_limiter + R_source + ESR); tau = R C",
-                   explanation=text + add_text(list(pulse.assumed)), keys=(("protection", "inrush_limiter"),),
+                   explanation=text + add_text(list(pulse.assumed)),
+                   keys=(("protection", "inrush_limiter", "cold_resistance") if limiter else ("protection", "bulk_capacitance"),),
                    sources=(RC_CHARGE,) if limiter else (RC_CHARGE, NO_LIMITER))
 
 

@@ -94,7 +94,8 @@ def _distance(fuse):
                        keys=(("protection", "output_fuse"),), sources=(FUSE_NEAR_BATTERY,))
     verdict = Verdict.PASS if fuse.distance_to_battery <= MAX_FUSE_DISTANCE else Verdict.MARGINAL
     return finding(code="PROT-OUTPUT-DISTANCE", subject=fuse.ref, title="Battery-lead fuse position", verdict=verdict,
-                   values=(measure("lead between battery and fuse", fuse.distance_to_battery),), limit=measure("usual most", MAX_FUSE_DISTANCE), relation="<=",
+                   values=(measure("lead between battery and fuse", fuse.distance_to_battery),), limit=measure("usual longest unfused lead", MAX_FUSE_DISTANCE), relation="<=",
+                   method="unfused lead between battery terminal and fuse <= 200 mm",
                    explanation="" if verdict is Verdict.PASS else "The lead between the battery and the fuse is unprotected; move the fuse nearer the battery.",
                    keys=(("protection", "output_fuse", "distance_to_battery"),), sources=(FUSE_NEAR_BATTERY,))
 

@@ -8,10 +8,11 @@ The subclass impulse figures are recalled from IEC 60384-14, not read from it: m
 
 from __future__ import annotations
 
-from dataclasses import dataclass
+from dataclasses import dataclass, replace
 
 from dossier.citations import IEC_60384_14, IEC_60664_1
 from dossier.findings import Source
+from dossier.standards import iec60664
 
 # Peak impulse voltage (kV) each subclass is tested to, IEC 60384-14 subclass tables (from memory);
 # Y3 has no impulse test.
@@ -21,22 +22,8 @@ Y_BRIDGES = {"Y1": ("basic", "supplementary", "reinforced", "double"), "Y2": ("b
 # Highest line voltage (V RMS) each Y subclass is made for (IEC 60384-14, from memory).
 Y_MAX_LINE = {"Y1": 500, "Y2": 300, "Y4": 150}
 
-# Rated impulse voltage (kV), IEC 60664-1 Table F.1: line-to-neutral volts up to -> category I..IV.
-RATED_IMPULSE_KV = (
-    (50, (0.33, 0.5, 0.8, 1.5)),
-    (100, (0.5, 0.8, 1.5, 2.5)),
-    (150, (0.8, 1.5, 2.5, 4.0)),
-    (300, (1.5, 2.5, 4.0, 6.0)),
-    (600, (2.5, 4.0, 6.0, 8.0)),
-    (1000, (4.0, 6.0, 8.0, 12.0)),
-)
-CATEGORIES = ("I", "II", "III", "IV")
-CLASS_SOURCE = Source(
-    title=IEC_60384_14.title,
-    publisher=IEC_60384_14.publisher,
-    clause="subclasses X1-X3 and Y1-Y4: impulse test voltages and the insulation each may bridge (from memory)",
-)
-IMPULSE_SOURCE = Source(title=IEC_60664_1.title, publisher=IEC_60664_1.publisher, edition=IEC_60664_1.edition, clause="Table F.1")
+CLASS_SOURCE = replace(IEC_60384_14, clause="subclasses X1-X3 and Y1-Y4: impulse test voltages and the insulation each may bridge (from memory)")
+IMPULSE_SOURCE = replace(IEC_60664_1, clause="Table F.1")
 
 
 @dataclass(frozen=True)
@@ -47,11 +34,11 @@ class Requirement:
 
 
 def rated_impulse_kv(line_to_neutral_volts: float, category: str) -> float | None:
-    """Rated impulse voltage for a line-to-neutral voltage and overvoltage category, or None above 1000 V."""
-    for up_to, by_category in RATED_IMPULSE_KV:
-        if line_to_neutral_volts <= up_to:
-            return by_category[CATEGORIES.index(category)]
-    return None
+    """Rated impulse voltage (IEC 60664-1 Table F.1) for a line-to-neutral voltage and category, or None above 1000 V."""
+    try:
+        return iec60664.rated_impulse_voltage(line_to_neutral_volts, category) / 1000
+    except iec60664.OutsideTable:
+        return None
 
 
 def across_line(nominal_volts: float, category: str) -> Requirement | None:

@@ -3,6 +3,7 @@
 from __future__ import annotations
 
 from dossier.calcs import safety_class
+from dossier.calcs.finding_kit import banded, maker, not_assessed
 from dossier.calcs.margins import Margin, margin
 from dossier.calcs.stress_voltages import RECTIFIER_KINDS, Rail, Voltages, stage_of
 from dossier.citations import ARRL_HANDBOOK, IEC_60384_14, MOHAN_POWER_ELECTRONICS
@@ -24,6 +25,7 @@ BLOCKING_FACTOR = {
 }
 AC_POSITIONS = ("across-line", "line-to-earth", "across-barrier")
 MARGINS_KEY = ("devices", "margins")
+finding = maker(NAME)
 
 
 def run(record, windings=None):
@@ -40,8 +42,8 @@ def _bus(voltages: Voltages) -> list[Finding]:
     rail = voltages.bus()
     if rail is None:
         return []
-    return [Finding(
-        code="STRESS-BUS", calc=NAME, subject="DC bus", title="DC bus voltage at high line", verdict=Verdict.INFO,
+    return [finding(
+        code="STRESS-BUS", subject="DC bus", title="DC bus voltage at high line", verdict=Verdict.INFO,
         values=(Measure("DC bus at high line", rail.voltage),), method=rail.formula,
         explanation=f"The {rail.basis}; switches and capacitors on the mains side are judged against it.",
         keys=(rail.key,), sources=(MOHAN_POWER_ELECTRONICS,),
@@ -50,18 +52,12 @@ def _bus(voltages: Voltages) -> list[Finding]:
 
 # --- the rating check every part shares -------------------------------------------------------
 
-def rated_verdict(rating, stress, required) -> Verdict:
-    """Fail below the stress itself; marginal inside the spike margin; pass at or above the margin."""
-    if rating < stress:
-        return Verdict.FAIL
-    return Verdict.MARGINAL if rating < required else Verdict.PASS
-
-
 def _rating_finding(code, subject, title, rating, rail: Rail, chosen: Margin, stressed: str, key, sources) -> Finding:
     required = rail.voltage * chosen.value.to("").magnitude
-    verdict = rated_verdict(rating, rail.voltage, required)
-    return Finding(
-        code=code, calc=NAME, subject=subject, title=title, verdict=verdict,
+    # fail below the stress itself; marginal inside the spike margin; pass at or above the margin
+    verdict = banded(rating, required, rail.voltage, ">=")
+    return finding(
+        code=code, subject=subject, title=title, verdict=verdict,
         values=(Measure("voltage rating", rating), Measure(stressed, rail.voltage)),
         limit=Measure(f"rating needed with x{fmt(chosen.value)} margin", required),
         method=f"rating >= margin x stress; {rail.formula}",
@@ -74,14 +70,21 @@ def _rating_finding(code, subject, title, rating, rail: Rail, chosen: Margin, st
 def _rating_words(verdict, subject, rating, rail: Rail, stressed: str, chosen: Margin) -> str:
     seen = f"{subject} sees {fmt(rail.voltage)} ({stressed}; {rail.basis})."
     if verdict is Verdict.FAIL:
-        return f"{seen} Its {fmt(rating)} rating is below even that: it will break down at high line. Fit a part rated for at least x{fmt(chosen.value)} the stress."
+        return f"{seen} Its rating is below even that: it will break down at high line. Fit a part rated for at least x{fmt(chosen.value)} the stress."
     if verdict is Verdict.MARGINAL:
         return f"{seen} Its rating covers the steady peak but not the x{fmt(chosen.value)} allowance for switching spikes and ringing."
     return seen
 
 
 def _not_assessed(code, subject, title, why, key) -> list[Finding]:
-    return [Finding(code=code, calc=NAME, subject=subject, title=title, verdict=Verdict.INFO, explanation=f"Not assessed: {why}.", keys=(key,))]
+    return [not_assessed(NAME, code, subject, title, why, (key,), NOT_ASSESSED_SOURCES[code])]
+
+
+NOT_ASSESSED_SOURCES = {
+    "STRESS-SWITCH": (MOHAN_POWER_ELECTRONICS,),
+    "STRESS-RECTIFIER": (ARRL_HANDBOOK,),
+    "STRESS-CAPACITOR": (IEC_60384_14,),
+}
 
 
 # --- switches and rectifiers --------------------------------------------------------------------
@@ -188,8 +191,8 @@ def _ac_capacitor(voltages: Voltages, capacitor, key, title) -> list[Finding]:
     if rail is None:
         return _not_assessed("STRESS-CAPACITOR", capacitor.ref, title, "the record has no mains section", key)
     verdict = Verdict.PASS if capacitor.voltage_rating >= rail.voltage else Verdict.FAIL
-    return [Finding(
-        code="STRESS-CAPACITOR", calc=NAME, subject=capacitor.ref, title=title, verdict=verdict,
+    return [finding(
+        code="STRESS-CAPACITOR", subject=capacitor.ref, title=title, verdict=verdict,
         values=(Measure("rated AC voltage", capacitor.voltage_rating),),
         limit=Measure("RMS voltage across it at high line", rail.voltage),
         method=f"V_rated (AC RMS) >= V across it; {rail.formula}",
@@ -215,8 +218,8 @@ def _safety_class(record, index: int, capacitor) -> list[Finding]:
         return []
     given = capacitor.safety_class
     verdict = Verdict.PASS if given in requirement.accepted else Verdict.FAIL
-    return [Finding(
-        code="STRESS-SAFETY-CLASS", calc=NAME, subject=capacitor.ref, title=f"{capacitor.ref} safety class for its position", verdict=verdict,
+    return [finding(
+        code="STRESS-SAFETY-CLASS", subject=capacitor.ref, title=f"{capacitor.ref} safety class for its position", verdict=verdict,
         values=(Measure("class", given or "none given"),),
         limit=Measure("accepted classes", ", ".join(requirement.accepted)), relation="in",
         method="class tested for the position's impulse and insulation grade",

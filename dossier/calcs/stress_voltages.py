@@ -2,10 +2,10 @@
 
 from __future__ import annotations
 
-import math
 from dataclasses import dataclass
 
 from dossier.calcs.magnetics_voltages import winding_voltages
+from dossier.calcs.mains_lines import HIGH_PEAK_FORMULA, high_line_peak
 
 MAIN_TRANSFORMER_ROLES = ("transformer", "mains-transformer")
 RECTIFIER_TOPOLOGIES = ("bridge", "centre-tapped")
@@ -46,8 +46,7 @@ class Voltages:
         """The rectified mains peak at high line, when a rectifier sits on the mains side."""
         if self.record.mains is None or not self._mains_rectifier():
             return None
-        peak = self.record.mains.high * math.sqrt(2)
-        return Rail(peak, "V_bus = sqrt(2) x V_mains x (1 + tolerance)", "rectified mains peak at high line, no diode drop", ("mains", "nominal"))
+        return Rail(high_line_peak(self.record.mains), f"V_bus = {HIGH_PEAK_FORMULA}", "rectified mains peak at high line, no diode drop", ("mains", "nominal"))
 
     def _mains_rectifier(self) -> bool:
         mains_stages = [stage for stage in self.record.stages if stage.side == "mains"]
@@ -57,8 +56,7 @@ class Voltages:
         """Each diode of a bridge on the mains blocks the line peak."""
         if self.record.mains is None:
             return None
-        peak = self.record.mains.high * math.sqrt(2)
-        return Rail(peak, "PIV = sqrt(2) x V_mains x (1 + tolerance) (bridge on the mains)", "mains peak at high line", ("mains", "nominal"))
+        return Rail(high_line_peak(self.record.mains), f"PIV = {HIGH_PEAK_FORMULA} (bridge on the mains)", "mains peak at high line", ("mains", "nominal"))
 
     def secondary(self):
         """(index, magnetic, winding) of the main transformer's secondary the output rectifier sits on."""
@@ -88,7 +86,7 @@ class Voltages:
             return None if peak is None else Rail(peak.voltage, "PIV = V_pk of the secondary (bridge)", peak.basis, peak.key)
         if topology == "centre-tapped":
             half = self.winding_peak(half=True)
-            return None if half is None else Rail(2 * half.voltage, "PIV = 2 x V_pk of one half winding (centre-tapped full-wave)", half.basis, half.key)
+            return None if half is None else Rail(2 * half.voltage, "PIV = 2 x V_pk of one half winding (centre-tapped full-wave)", f"twice the {half.basis}", half.key)
         return None
 
     def rectified(self, topology: str) -> Rail | None:

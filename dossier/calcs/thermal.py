@@ -3,6 +3,7 @@
 from __future__ import annotations
 
 from dossier.calcs import thermal_path as path
+from dossier.calcs.finding_kit import banded, maker, not_assessed
 from dossier.calcs.margins import margin
 from dossier.calcs.thermal_soak import soak_findings
 from dossier.citations import IEC_61140, MOHAN_POWER_ELECTRONICS
@@ -12,6 +13,7 @@ from dossier.units import fmt
 
 NAME = "thermal"
 PAD_RANGES = common_practice("insulating pads about 1-4 K/W, greased bare mount about 0.1-0.5 K/W (makers' pad listings)")
+finding = maker(NAME)
 
 
 def run(record):
@@ -26,25 +28,19 @@ def run(record):
 
 # --- junctions ----------------------------------------------------------------------------------
 
-def junction_verdict(junction, maximum, allowance) -> Verdict:
-    """Fail above the maximum junction temperature; marginal inside the allowance below it."""
-    if junction.to("K") > maximum.to("K"):
-        return Verdict.FAIL
-    return Verdict.MARGINAL if junction.to("K") > (maximum.to("K") - allowance.to("K")) else Verdict.PASS
-
-
 def _junction(record, index: int, device) -> list[Finding]:
     key = ("devices", "semiconductors", index)
     title = f"{device.ref} junction temperature"
     ambient = record.environment.max_ambient
     junction = path.junction_of(record, device, ambient)
     if junction is None or device.max_junction is None:
-        return [_info("THERM-JUNCTION", device.ref, title, _junction_missing(device), key)]
+        return [not_assessed(NAME, "THERM-JUNCTION", device.ref, title, _junction_missing(device), (key,), (MOHAN_POWER_ELECTRONICS,))]
     allowance = margin(record, "junction")
     limit = (device.max_junction.to("K") - allowance.value.to("K")).to("degC")
-    verdict = junction_verdict(junction.temperature, device.max_junction, allowance.value)
-    return [Finding(
-        code="THERM-JUNCTION", calc=NAME, subject=device.ref, title=title, verdict=verdict,
+    # fail above the maximum junction temperature; marginal inside the allowance below it
+    verdict = banded(junction.temperature, limit, device.max_junction, "<=")
+    return [finding(
+        code="THERM-JUNCTION", subject=device.ref, title=title, verdict=verdict,
         values=(Measure(f"junction at {fmt(ambient)} ambient", junction.temperature),),
         limit=Measure(f"max junction {fmt(device.max_junction)} less {fmt(allowance.value)}", limit), relation="<=",
         method=f"{junction.formula}; {junction.loss.formula}",
@@ -87,17 +83,13 @@ def _loss_measures(junction) -> tuple[Measure, ...]:
     return tuple(measures) + (Measure("loss", junction.loss.total), Measure("junction-to-air resistance", junction.path))
 
 
-def _info(code, subject, title, why, key) -> Finding:
-    return Finding(code=code, calc=NAME, subject=subject, title=title, verdict=Verdict.INFO, explanation=f"Not assessed: {why}.", keys=(key,))
-
-
 # --- heatsinks ----------------------------------------------------------------------------------
 
 def _heatsink(record, index: int, heatsink) -> list[Finding]:
     losses = path.sink_losses(record, heatsink)
     temperature = path.sink_temperature(record.environment.max_ambient, heatsink, losses)
     common = dict(
-        code="THERM-HEATSINK", calc=NAME, subject=heatsink.ref, title=f"{heatsink.ref} temperature",
+        code="THERM-HEATSINK", subject=heatsink.ref, title=f"{heatsink.ref} temperature",
         values=(Measure(f"heatsink at {fmt(record.environment.max_ambient)} ambient", temperature),),
         method="T_sink = T_a + R_sa x sum(P of the devices on it)",
         keys=(("devices", "heatsinks", index, "rth_sa"), ("environment", "max_ambient")),
@@ -105,10 +97,10 @@ def _heatsink(record, index: int, heatsink) -> list[Finding]:
     )
     words = _sink_words(heatsink, losses)
     if not heatsink.touchable:
-        return [Finding(**common, verdict=Verdict.INFO, explanation=words + " It cannot be touched from outside, so no touch limit applies.", sources=(MOHAN_POWER_ELECTRONICS,))]
+        return [finding(**common, verdict=Verdict.INFO, explanation=words + " It cannot be touched from outside, so no touch limit applies.", sources=(MOHAN_POWER_ELECTRONICS,))]
     touch = margin(record, "touch_temperature")
     verdict = Verdict.FAIL if temperature.to("K") > touch.value.to("K") else Verdict.PASS
-    return [Finding(**common, verdict=verdict, limit=Measure("touch limit", touch.value), relation="<=",
+    return [finding(**common, verdict=verdict, limit=Measure("touch limit", touch.value), relation="<=",
                     explanation=words + _touch_words(verdict), sources=(MOHAN_POWER_ELECTRONICS, touch.source))]
 
 
@@ -134,8 +126,8 @@ def _pad(record, index: int, device) -> list[Finding]:
         return []
     reachable = heatsink.touchable or heatsink.earthed
     verdict = _pad_verdict(device, reachable)
-    return [Finding(
-        code="THERM-PAD", calc=NAME, subject=device.ref, title=f"{device.ref} live tab on {heatsink.ref}", verdict=verdict,
+    return [finding(
+        code="THERM-PAD", subject=device.ref, title=f"{device.ref} live tab on {heatsink.ref}", verdict=verdict,
         values=(Measure("insulating pad", "fitted" if device.insulated else "none"),),
         method="a tab at mains potential on a touchable or earthed heatsink needs insulation between them",
         explanation=_pad_words(device, heatsink, verdict),

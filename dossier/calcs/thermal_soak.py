@@ -5,11 +5,13 @@ from __future__ import annotations
 from dataclasses import dataclass
 
 from dossier.calcs import thermal_path as path
+from dossier.calcs.finding_kit import maker, not_assessed
 from dossier.calcs.margins import margin
 from dossier.findings import Finding, Measure, Verdict, common_practice
 from dossier.units import Q_, fmt
 
 NAME = "thermal"
+finding = maker(NAME)
 # How far the measured rise may exceed the estimated rise before the estimate is called optimistic.
 RISE_TOLERANCE = 0.2
 SETTLING = Q_(1, "h")
@@ -39,13 +41,13 @@ def _reading(record, index: int, reading) -> list[Finding]:
     estimate = _estimate(record, device, heatsink, reading.ambient)
     title = f"{reading.ref} soak reading against the estimate"
     if estimate is None:
-        return [Finding(code="THERM-SOAK", calc=NAME, subject=reading.ref, title=title, verdict=Verdict.INFO, values=(Measure("measured", reading.temperature),),
-                        explanation="Not compared: the record lacks the data for an estimate at this point (loss and resistances).", keys=(key,))]
+        return [not_assessed(NAME, "THERM-SOAK", reading.ref, title, "the record lacks the data for an estimate at this point "
+                             "(the losses and thermal resistances of what is measured)", (key,), (SOAK_PRACTICE,))]
     allowed = _allowed(estimate, reading.ambient)
     projection = _projection(record, device, heatsink, reading)
     verdict = _verdict(reading.temperature, allowed, projection)
-    return [Finding(
-        code="THERM-SOAK", calc=NAME, subject=reading.ref, title=title, verdict=verdict,
+    return [finding(
+        code="THERM-SOAK", subject=reading.ref, title=title, verdict=verdict,
         values=(Measure(f"measured after {fmt(reading.duration)} at {fmt(reading.ambient)}", reading.temperature), Measure("estimate at that ambient", estimate)),
         limit=Measure(f"estimate plus {RISE_TOLERANCE:.0%} of its rise", allowed), relation="<=",
         method="rise = T_measured - T_ambient, against the estimated rise; projected = T_measured + (T_a,max - T_ambient)",
@@ -100,7 +102,7 @@ def _verdict(measured, allowed, projection: Projection | None) -> Verdict:
 
 
 def _words(reading, estimate, projection: Projection | None, verdict) -> str:
-    text = f"Measured {fmt(reading.temperature)} against an estimate of {fmt(estimate)} at {fmt(reading.ambient)}."
+    text = f"The estimate at {fmt(reading.ambient)} is {fmt(estimate)}."
     if projection is not None:
         text += f" Carried to the highest ambient: {projection.label} {fmt(projection.temperature)} against {projection.limit_label} {fmt(projection.limit)}."
     if verdict is Verdict.MARGINAL:

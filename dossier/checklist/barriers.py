@@ -5,6 +5,7 @@ from __future__ import annotations
 from dossier.checklist.general import INSULATION_MINIMUM, INSULATION_TEST_VOLTAGE
 from dossier.checklist.items import Item, Origin, Phase, at_least, slug
 from dossier.citations import DIN_EN_50678
+from dossier.findings import common_practice
 from dossier.units import fmt
 
 DISTANCE_CODES = {"clearance": "ISO-CLEARANCE", "creepage": "ISO-CREEPAGE"}
@@ -51,6 +52,8 @@ def tab_isolation_items(record) -> list[Item]:
 
 
 def _tab(device, sink) -> Item:
+    if not device.insulated:
+        return _live_sink(device)
     earthed = sink is not None and sink.earthed
     minimum = INSULATION_MINIMUM["I" if earthed else "II"]
     return Item(
@@ -70,4 +73,20 @@ def _tab(device, sink) -> Item:
             "The standard sets this figure for the whole unit; it is applied here to the pad alone, "
             f"{'as basic insulation to earthed metal' if earthed else 'as the figure for double or reinforced insulation'}."
         ),
+    )
+
+
+def _live_sink(device) -> Item:
+    """No pad: the heatsink itself carries mains."""
+    return Item(
+        key=f"tab-isolation-{slug(device.ref)}",
+        phase=Phase.UNPOWERED,
+        origin=Origin.BUILD,
+        title=f"Heatsink {device.heatsink} is live through {device.ref}'s tab",
+        steps=(
+            f"{device.ref} is mounted on {device.heatsink} with no insulating pad, so the heatsink is at mains potential. "
+            "Check that it cannot be touched with the unit closed, that it clears earthed metal and the output side "
+            "as mains does, and treat it as live while the unit is open."
+        ),
+        sources=(common_practice("a heatsink bolted to a live tab is itself live"),),
     )

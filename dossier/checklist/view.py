@@ -2,7 +2,7 @@
 
 from __future__ import annotations
 
-from dataclasses import dataclass, field
+from dataclasses import dataclass
 
 from dossier.checklist.items import Item, Origin
 from dossier.checklist.outcome import ItemOutcome, Judgement, Summary, outcomes, summarise
@@ -90,7 +90,6 @@ class SheetView:
     status: ShownStatus
     filled: Filled | None = None
     commissioning_file: str = ""
-    links: dict = field(default_factory=dict)
 
 
 def sheet_view(checklist: Checklist, record_status: str, commissioning=None) -> SheetView:

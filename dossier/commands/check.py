@@ -57,6 +57,21 @@ def _check_one(rev, calcs, outcome: Outcome, verbose: bool) -> None:
     title = f"{rev.path}  ({loaded.record.id} rev {loaded.record.revision}: {loaded.record.title})"
     outcome.blocks.extend(text_report.record_block(title, findings, loaded.locate, verbose))
     outcome.json.append(json_report.record_json(str(rev.path), findings, loaded.locate))
+    _check_commissioning(loaded, findings, outcome)
+
+
+def _check_commissioning(loaded, findings, outcome: Outcome) -> None:
+    """A commissioning file beside the record is validated like the record itself."""
+    from dossier.checklist.overview import commissioning_state, load_for_revision
+
+    try:
+        commissioning = load_for_revision(loaded, findings)
+    except InputError as error:
+        outcome.invalid = True
+        outcome.blocks.extend(text_report.problem_block(error.problems))
+        return
+    if commissioning is not None:
+        outcome.blocks.append("  commissioning: " + commissioning_state(loaded, findings, commissioning).overview_markdown().replace("**", ""))
 
 
 def render(outcome: Outcome, as_json: bool) -> str:

@@ -10,7 +10,7 @@ from dossier.drawing import parts as P
 from dossier.drawing import sheet
 from dossier.drawing.drawers import StageDrawer, finish_stage
 from dossier.drawing.parts import Picker
-from dossier.drawing.symbols import BridgeRectifier, ProtectiveEarth
+from dossier.drawing.symbols import Box, BridgeRectifier, ProtectiveEarth
 from dossier.drawing.views import PartView, StageView
 
 LINE_Y = 2.6  # line conductor (L), later the positive DC rail
@@ -41,8 +41,9 @@ def _inlet(drawing, inlet: PartView | None) -> None:
         sheet.add(drawing, elm.Dot(open=True, radius=0.11).at((0, y)))
         sheet.text(drawing, (-0.25, y), name, halign="right")
     if inlet is not None:
-        sheet.add(drawing, elm.Rect(corner1=(-0.75, LINE_Y + 0.45), corner2=(0.3, EARTH_Y - 0.45)).at((0, 0)).linestyle("--").zorder(1))
-        sheet.text(drawing, (-0.75, LINE_Y + 0.6), inlet.label, valign="bottom")
+        outline = Box(1.25, LINE_Y - EARTH_Y + 0.9, fill="none", dashed=True)
+        sheet.add(drawing, outline.at((-0.95, LINE_Y + 0.45)))
+        sheet.text(drawing, (-0.95, LINE_Y + 0.6), inlet.label, valign="bottom")
     sheet.wire(drawing, (0.11, LINE_Y), (START_X, LINE_Y))
     sheet.wire(drawing, (0.11, NEUTRAL_Y), (START_X, NEUTRAL_Y))
 

@@ -52,10 +52,41 @@ def _problem(item: dict, sources: SourceMap) -> Problem:
     )
 
 
+EXPECTED_BY_TYPE = {
+    "string_too_long": "at most {max_length} characters",
+    "string_too_short": "at least {min_length} character(s)",
+    "too_short": "at least {min_length} item(s)",
+    "too_long": "at most {max_length} item(s)",
+    "greater_than": "a number above {gt}",
+    "greater_than_equal": "a number of at least {ge}",
+    "less_than": "a number below {lt}",
+    "less_than_equal": "a number of at most {le}",
+    "string_pattern_mismatch": "text matching {pattern}",
+    "string_type": "text",
+    "int_type": "a whole number",
+    "int_parsing": "a whole number",
+    "float_type": "a number",
+    "float_parsing": "a number",
+    "bool_type": "true or false",
+    "bool_parsing": "true or false",
+    "list_type": "a list",
+    "dict_type": "a mapping",
+    "model_type": "a mapping",
+    "date_type": "a date (YYYY-MM-DD)",
+    "date_from_datetime_parsing": "a date (YYYY-MM-DD)",
+}
+
+
 def _expected(item: dict) -> str:
     ctx = item.get("ctx") or {}
     if "expected" in ctx:
         return str(ctx["expected"])
+    template = EXPECTED_BY_TYPE.get(item["type"])
+    if template:
+        try:
+            return template.format(**ctx)
+        except KeyError:
+            pass
     if item["type"] == "missing":
         return "this key"
     if item["type"] == "extra_forbidden":

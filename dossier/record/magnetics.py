@@ -40,6 +40,9 @@ class Steinmetz(Section):
 
 class CoreMaterial(Section):
     name: str = Field("", description="Material name or grade as the builder knows it.")
+    family: Literal["ferrite", "iron-powder", "silicon-steel"] | None = Field(
+        None, description="ferrite, iron-powder or silicon-steel (laminations or tape); sets the headroom kept below "
+                          "saturation. When not given: silicon-steel at 400 Hz or below, ferrite above.")
     saturation_flux: FluxDensity = Field(description="Saturation flux density at the hot temperature below.")
     saturation_temperature: Temperature | None = Field(None, description="Temperature the saturation figure is given at.")
     initial_permeability: float | None = Field(None, gt=0, description="Initial relative permeability; gives A_L when A_L is not declared.")

@@ -1,0 +1,61 @@
+"""The demo site in headless Chromium, over file:// and over HTTP: it loads cleanly and stays on this machine."""
+
+from __future__ import annotations
+
+import pytest
+
+from tests.browser.conftest import html_pages
+
+LOCAL_FILE = ("file://", "data:", "blob:")
+
+
+def visit_all(watched_page, base: str, pages, prefixes):
+    watch = watched_page(prefixes)
+    problems = {}
+    for relative in pages:
+        watch.errors.clear()
+        watch.page.goto(f"{base}/{relative}", wait_until="load")
+        if watch.errors:
+            problems[relative] = list(watch.errors)
+    return watch, problems
+
+
+def test_every_page_loads_over_file_with_no_errors_and_no_outside_requests(demo_site, watched_page):
+    pages = [p.relative_to(demo_site).as_posix() for p in html_pages(demo_site)]
+    assert len(pages) > 20
+    watch, problems = visit_all(watched_page, demo_site.as_uri(), pages, LOCAL_FILE)
+    assert problems == {}
+    assert watch.outside == []
+
+
+def test_every_page_loads_over_http_with_no_errors_and_no_outside_requests(demo_site, served_site, watched_page):
+    pages = [p.relative_to(demo_site).as_posix() for p in html_pages(demo_site)]
+    watch, problems = visit_all(watched_page, served_site, pages, (served_site, "data:", "blob:"))
+    assert problems == {}
+    assert watch.outside == []
+
+
+def test_schematics_are_visible(demo_site, watched_page):
+    watch = watched_page(LOCAL_FILE)
+    watch.page.goto((demo_site / "builds" / "sw-charger-12v" / "schematics.html").as_uri(), wait_until="load")
+    figures = watch.page.locator("article img[src$='.svg']")
+    assert figures.count() >= 6
+    for index in range(figures.count()):
+        figure = figures.nth(index)
+        figure.scroll_into_view_if_needed()
+        box = figure.bounding_box()
+        assert box and box["width"] > 200 and box["height"] > 80
+        assert figure.evaluate("img => img.complete && img.naturalWidth > 0")
+
+
+@pytest.mark.parametrize("query, expected", [("RT1", "sw-charger-12v"), ("rotator", "rotator-control"), ("binding posts", "bench-psu-13v8")])
+def test_search_finds_a_build_by_designator_title_or_part(served_site, watched_page, query, expected):
+    watch = watched_page((served_site, "data:", "blob:"))
+    watch.page.goto(f"{served_site}/index.html", wait_until="load")
+    box = watch.page.locator("input[data-md-component='search-query']")
+    box.click()
+    box.fill(query)
+    results = watch.page.locator(".md-search-result__item a")
+    results.first.wait_for(timeout=10_000)
+    links = [results.nth(i).get_attribute("href") or "" for i in range(results.count())]
+    assert any(expected in link for link in links), links
