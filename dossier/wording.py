@@ -100,6 +100,8 @@ def margin_text(finding: Finding) -> str:
         return ""
     value, limit = finding.value.quantity, finding.limit.quantity.to(finding.value.quantity.units)
     gap = value - limit if finding.relation == ">=" else limit - value
+    if gap.check("[temperature]"):
+        gap = gap.to("kelvin")  # a difference of temperatures reads better in K than as a 'delta degC'
     word = "short by" if gap.magnitude < 0 else "margin"
     return f"{word} {fmt(abs(gap))}"
 

@@ -18,6 +18,7 @@ from dossier.wording import comparison_text, margin_text
 
 REVIEWED = ("isolation", "protection", "magnetics", "stress", "thermal")
 DEMOS = [("sw-charger-12v", "A"), ("sw-charger-12v", "B"), ("sw-charger-12v", "C"), ("bench-psu-13v8", "A"), ("rotator-control", "A")]
+WORDING_PHRASES = ("vs at least", "vs at most", "short by", "margin of")  # dossier.wording's comparison phrases
 ASKS_TO_ADD = ("Add ", "add ", "Declare ", "declare ", "give ")
 
 
@@ -88,6 +89,7 @@ def test_explanation_does_not_repeat_the_comparison(loaded, calc, finding):
     if finding.limit is not None:
         assert comparison not in finding.explanation
         assert not margin or margin not in finding.explanation
+    assert not any(words in finding.explanation for words in WORDING_PHRASES)
 
 
 def test_a_missing_optional_input_is_information():

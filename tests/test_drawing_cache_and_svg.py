@@ -150,3 +150,17 @@ def test_drawings_do_not_follow_a_module_wide_schemdraw_setting():
     finally:
         schemdraw.schemdraw.schemdrawstyle.clear()
         schemdraw.schemdraw.schemdrawstyle.update(saved)
+
+
+def test_the_svg_namespace_survives_other_code_changing_elementtree_s_registry():
+    """schemdraw relies on ElementTree's prefix registry; other libraries in the process may change it."""
+    record = load_demo("rotator-control", "A")
+    expected = [f.svg for f in schematics.figures(record)]
+    saved = dict(ElementTree._namespace_map)
+    try:
+        ElementTree._namespace_map.pop("http://www.w3.org/2000/svg", None)
+        assert sheet.svg_of(sheet.new_drawing()).startswith("<ns0:svg")  # what schemdraw then writes
+        assert [f.svg for f in schematics.figures(record)] == expected
+    finally:
+        ElementTree._namespace_map.clear()
+        ElementTree._namespace_map.update(saved)

@@ -221,6 +221,7 @@ def test_groove_width_at_pollution_degree_4_is_refused():
 
 
 def test_interpolate_keeps_exact_rows_and_refuses_beyond_the_last():
+    # linear interpolation between two points (arithmetic): halfway from 10 to 30 is 20
     points = ((1, 10.0), (3, 30.0))
     assert std.interpolate(points, 0.5, "t") == 10.0
     assert std.interpolate(points, 3, "t") == 30.0

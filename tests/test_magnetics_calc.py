@@ -101,6 +101,7 @@ def test_core_loss_by_steinmetz_at_nominal_line():
 
 
 def test_secondary_ratio_reports_both_halves():
+    # turns ratio 60 : 18 = 3.33 (Faraday's law: the same volts per turn in every winding)
     finding = one(findings_of(load_demo("sw-charger-12v", "A")), "MAG-RATIO", "T1 secondary")
     labels = [m.label for m in finding.values]
     assert labels[0] == "turns ratio primary : secondary" and finding.value.quantity.magnitude == pytest.approx(60 / 18)

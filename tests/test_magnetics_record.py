@@ -42,6 +42,11 @@ CASES = {
         "max_field: 4000 A/m", "max_field: 4000 A",
         "magnetics[2].core.material.max_field: wrong kind of unit; expected field strength (e.g. 4000 A/m), found 4000.0 A (current)",
     ),
+    "unknown-core-family": (
+        "family: iron-powder", "family: powdered iron",
+        "magnetics[2].core.material.family: not one of the allowed values; expected 'ferrite', 'iron-powder' or "
+        "'silicon-steel', found 'powdered iron'",
+    ),
     "zero-frequency": (
         "frequency: 40 kHz\n    core", "frequency: 0 kHz\n    core",
         "magnetics[0].frequency: value out of range; expected more than zero, found 0 kHz",

@@ -1,33 +1,48 @@
-"""The built site in a real browser, opened from a folder (file://): search works, nothing comes from the network."""
+"""The built site in a real browser, opened from a folder (file://): search works, nothing comes from the network.
+
+Each check runs Playwright in a thread of its own: Playwright's sync API refuses to start in a thread
+where another test's browser session is still open.
+"""
 
 from __future__ import annotations
 
 import shutil
+import threading
 
 import pytest
 
 from test_site_kit import demo_site, drawing_cache  # noqa: F401  (fixtures)
 
 CHROMIUM = shutil.which("chromium") or shutil.which("chromium-browser")
-playwright = pytest.importorskip("playwright.sync_api")
+pytest.importorskip("playwright.sync_api")
 pytestmark = pytest.mark.skipif(CHROMIUM is None, reason="needs Debian's chromium")
 
 
-@pytest.fixture(scope="module")
-def browser():
-    with playwright.sync_playwright() as driver:
-        launched = driver.chromium.launch(executable_path=CHROMIUM, args=["--no-sandbox"])
-        yield launched
-        launched.close()
+def in_browser(url: str, check):
+    """Open url in headless Chromium and return check(page, requests), run in a fresh thread."""
+    outcome: dict = {}
 
+    def run():
+        from playwright.sync_api import sync_playwright
 
-@pytest.fixture
-def page(browser):
-    opened = browser.new_page()
-    opened.requests = []
-    opened.on("request", lambda request: opened.requests.append(request.url))
-    yield opened
-    opened.close()
+        try:
+            with sync_playwright() as driver:
+                browser = driver.chromium.launch(executable_path=CHROMIUM, args=["--no-sandbox"])
+                page = browser.new_page()
+                requests: list[str] = []
+                page.on("request", lambda request: requests.append(request.url))
+                page.goto(url)
+                outcome["value"] = check(page, requests)
+                browser.close()
+        except BaseException as error:  # handed to the test's own thread
+            outcome["error"] = error
+
+    worker = threading.Thread(target=run)
+    worker.start()
+    worker.join(120)
+    if "error" in outcome:
+        raise outcome["error"]
+    return outcome["value"]
 
 
 def search(page, words: str) -> list[str]:
@@ -37,20 +52,26 @@ def search(page, words: str) -> list[str]:
     return [link.get_attribute("href") for link in page.query_selector_all(".md-search-result__link")]
 
 
-def test_search_over_file_urls_finds_a_build_by_designator(page, demo_site):
-    page.goto((demo_site / "builds" / "rotator-control" / "index.html").as_uri())
-    found = search(page, "RT1")
+def outside(requests: list[str]) -> list[str]:
+    return [url for url in requests if not url.startswith("file:")]
+
+
+def test_search_over_file_urls_finds_a_build_by_designator(demo_site):
+    found, requests = in_browser((demo_site / "builds" / "rotator-control" / "index.html").as_uri(), lambda page, requests: (search(page, "RT1"), requests))
     assert any("builds/sw-charger-12v/" in href for href in found)
-    assert [url for url in page.requests if not url.startswith("file:")] == []
+    assert outside(requests) == []
 
 
-def test_search_finds_a_build_by_note_text(page, demo_site):
-    page.goto((demo_site / "index.html").as_uri())
-    assert any("builds/rotator-control/" in href for href in search(page, "mast-team"))
+def test_search_over_file_urls_finds_a_build_by_note_text(demo_site):
+    found = in_browser((demo_site / "index.html").as_uri(), lambda page, requests: search(page, "mast-team"))
+    assert any("builds/rotator-control/" in href for href in found)
 
 
-def test_schematics_load_from_the_folder(page, demo_site):
-    page.goto((demo_site / "builds" / "sw-charger-12v" / "schematics.html").as_uri())
-    widths = page.eval_on_selector_all("article img", "images => images.map(image => image.naturalWidth)")
-    assert widths and all(width > 0 for width in widths)
-    assert [url for url in page.requests if not url.startswith("file:")] == []
+def test_schematics_load_from_the_folder(demo_site):
+    def widths(page, requests):
+        page.wait_for_load_state("load")
+        return page.eval_on_selector_all("article img", "images => images.map(image => image.naturalWidth)"), requests
+
+    loaded, requests = in_browser((demo_site / "builds" / "sw-charger-12v" / "schematics.html").as_uri(), widths)
+    assert loaded and all(width > 0 for width in loaded)
+    assert outside(requests) == []

@@ -177,3 +177,15 @@ def test_the_only_date_in_the_site_is_the_newest_record_date(site):
     midnight = datetime.datetime.combine(newest, datetime.time(), tzinfo=datetime.timezone.utc)
     gz = (site / "sitemap.xml.gz").read_bytes()
     assert int.from_bytes(gz[4:8], "little") == int(midnight.timestamp())  # gzip header MTIME field
+
+
+def test_a_long_build_shows_progress_on_standard_error(tmp_path, monkeypatch):
+    archive = tmp_path / "archive"
+    for number in range(20):
+        write_record(archive, f"unit-{number:02d}", "A")
+    monkeypatch.setattr("dossier.site.collect.load_calcs", lambda: [TEST_CALC])
+    result = CliRunner().invoke(main, ["build", str(archive), "-o", str(tmp_path / "out"), "--pages-only", "--no-cache"])
+    assert result.exit_code == 0, result.output
+    assert "reviewing builds" in result.stderr
+    quiet = CliRunner().invoke(main, ["build", str(archive), "-o", str(tmp_path / "out"), "--pages-only", "--no-cache", "--quiet"])
+    assert quiet.exit_code == 0 and "reviewing builds" not in quiet.stderr

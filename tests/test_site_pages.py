@@ -191,3 +191,54 @@ def test_a_build_without_mains_has_no_caution(tmp_path):
     write_tree(collect(archive, [TEST_CALC]), root)
     overview = page(root, "builds/bench-meter/index.md")
     assert MAINS_CAUTION not in overview and "This build has no mains connection." in overview
+
+
+def test_an_amendment_after_publication_shows_on_the_changes_page(tmp_path):
+    import datetime
+
+    from dossier.lock import Target, amend, publish, save_ledger
+
+    archive = tmp_path / "archive"
+    write_record(archive, "amp", "A")
+    write_record(archive, "amp", "B", notes="Rewound.")
+    save_ledger(archive, publish(archive, [], datetime.date(2026, 2, 1))[0])
+    path = archive / "amp" / "rev-A.yaml"
+    path.write_text(path.read_text(encoding="utf-8").replace("club's winder", "club's coil winder"), encoding="utf-8")
+    save_ledger(archive, amend(archive, Target.parse("amp:A"), "typo in the notes", datetime.date(2026, 2, 9)))
+    root = tmp_path / "tree"
+    write_tree(collect(archive, [TEST_CALC]), root)
+    step_a = page(root, "builds/amp/changes.md").split("## Revision A")[1]
+    assert "### Edited after publication" in step_a and "- 2026-02-09: typo in the notes (content hash sha256 " in step_a
+    assert "Published on 2026-02-01" in page(root, "builds/amp/rev-A/index.md")
+
+
+def test_archive_settings_errors_are_located(tmp_path):
+    from dossier.problems import InputError
+
+    archive = tmp_path / "archive"
+    write_record(archive, "amp", "A")
+    (archive / "archive.yaml").write_text("club: Test club\ntitel: Misspelt\n", encoding="utf-8")
+    with pytest.raises(InputError) as refused:
+        collect(archive, [TEST_CALC])
+    problem = refused.value.problems[0]
+    assert (problem.code, problem.key, problem.location.line, problem.location.column) == ("extra_forbidden", "titel", 2, 1)
+
+
+def test_an_empty_archive_gives_an_index_with_no_builds(tmp_path):
+    (tmp_path / "archive").mkdir()
+    root = tmp_path / "tree"
+    write_tree(collect(tmp_path / "archive", [TEST_CALC]), root)
+    assert "No builds." in page(root, "index.md")
+
+
+def test_a_failing_drawing_is_shown_on_the_page_and_does_not_stop_the_site(tmp_path, monkeypatch):
+    def broken(record, findings, cache=None):
+        raise RuntimeError("no pencil")
+
+    monkeypatch.setattr("dossier.drawing.schematics.draw", broken)
+    archive = tmp_path / "archive"
+    write_record(archive, "amp", "A")
+    summary = write_tree(collect(archive, [TEST_CALC]), tmp_path / "tree")
+    assert summary.warnings == ["amp rev A: the schematics could not be made: RuntimeError: no pencil"]
+    overview = page(tmp_path / "tree", "builds/amp/index.md")
+    assert '!!! bug "Parts of this page could not be made"' in overview and "RuntimeError: no pencil" in overview

@@ -83,6 +83,7 @@ def test_rectifier_verdict_bands_around_the_margin():
 
 
 def test_fake_winding_voltages_are_used_when_given():
+    # centre-tapped PIV = 2 x 20 V = 40 V (ARRL Handbook, power supplies chapter); x 1.5 margin = 60 V
     def fake(record, magnetic):
         return {"secondary": {"high": Q_(40, "V")}, "secondary/half": {"high": Q_(20, "V")}}
 

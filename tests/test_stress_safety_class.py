@@ -88,6 +88,7 @@ def test_safety_capacitor_rating_against_the_high_line_rms():
 
 
 def test_barrier_working_voltage_is_used_when_declared():
+    # a capacitor across a barrier holds the barrier's declared working voltage, 400 V, above its 300 V rating
     declared = dict(barrier("reinforced"), working_voltage="400 V")
     found = finding(unit("across-barrier", "Y1", rating="300 V", barriers=[declared]), "STRESS-CAPACITOR")
     assert found.verdict is Verdict.FAIL and float(found.limit.quantity.to("V").magnitude) == pytest.approx(400)

@@ -70,6 +70,7 @@ def test_switching_loss_from_energy_per_cycle():
 
 
 def test_conduction_and_switching_add_up():
+    # 1.0 V x 0.7 A = 0.7 W conduction; 1/2 x 340 V x 1 A x 0.25 us x 40 kHz = 1.7 W switching (Mohan et al., from memory)
     switching = {"frequency": "40 kHz", "voltage": "340 V", "current": "1 A", "crossover_time": "0.25 us"}
     record = unit([device(forward_voltage="1.0 V", current="0.7 A", heatsink="HS1", pad="1.5 K/W", switching=switching)], [sink()])
     finding = by(thermal.run(record), "THERM-JUNCTION", "Q1")
@@ -90,6 +91,7 @@ def test_junction_verdict_bands(loss, verdict):
 
 
 def test_club_junction_allowance_overrides_common_practice():
+    # 25 W through 4 K/W from 40 degC = 140 degC; the club's 5 K allowance puts the limit at 150 - 5 = 145 degC
     record = unit([device(loss="25 W", heatsink="HS1", pad="1.0 K/W")], [sink()], margins={"junction": "5 K", "basis": "club sheet"})
     finding = by(thermal.run(record), "THERM-JUNCTION", "Q1")
     assert finding.verdict is Verdict.PASS and degc(finding.limit.quantity) == pytest.approx(145)
@@ -98,6 +100,7 @@ def test_club_junction_allowance_overrides_common_practice():
 
 
 def test_free_air_device_uses_junction_to_air():
+    # T_j = T_a + P R_ja = 30 + 1 W x 60 K/W = 90 degC (Mohan et al., heat sinks and thermal management)
     record = unit([device("U1", kind="regulator", loss="1 W", rth_ja="60 K/W")], ambient="30 degC")
     assert degc(by(thermal.run(record), "THERM-JUNCTION", "U1").value.quantity) == pytest.approx(90)
 

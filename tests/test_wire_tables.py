@@ -112,5 +112,6 @@ def test_skin_depth_of_copper_at_20_kHz():
 
 
 def test_skin_depth_falls_with_the_root_of_frequency():
+    # delta is proportional to 1 / sqrt f: four times the frequency halves it
     ratio = (copper.skin_depth(Q_(10, "kHz")) / copper.skin_depth(Q_(40, "kHz"))).to("").magnitude
     assert ratio == pytest.approx(2.0)

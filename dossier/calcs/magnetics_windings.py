@@ -118,7 +118,7 @@ def _overflow(ctx, limit) -> str:
             break
     text = f"Does not fit: {fmt(over)} more than can be wound by hand; the window is full from winding '{first}' on."
     if fill.hole_left is not None and fill.hole_left.magnitude <= 0:
-        text += f" The windings close the hole (short by {fmt(-fill.hole_left)} of diameter)."
+        text += f" The windings close the hole: they need {fmt(-fill.hole_left)} more diameter than it has."
     return text
 
 

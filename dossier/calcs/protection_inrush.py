@@ -120,7 +120,7 @@ def _peak_finding(record, pulse: Pulse):
 
 def _unlimited_text(pulse: Pulse) -> str:
     return (f"No inrush limiter is declared: at the crest of high line ({fmt(pulse.line_peak)}) the empty capacitors draw "
-            f"{fmt(pulse.peak)}, limited only by the mains wiring and the capacitors' ESR ({fmt(pulse.resistance)}). "
+            f"{fmt(pulse.peak)}, limited only by the mains wiring and the capacitors' ESR ({fmt(pulse.resistance)} together). "
             "A pulse like that can melt or weaken the fuse, exceed the bridge rectifier's surge rating (I_FSM), "
             "pit the switch contacts and trip the breaker upstream. Fit an NTC thermistor, or a resistor bypassed by a relay.")
 

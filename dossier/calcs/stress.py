@@ -112,7 +112,7 @@ def _switch(voltages: Voltages, device, key) -> list[Finding]:
 
 def _missing(device, found) -> str:
     if device.voltage_rating is None:
-        return "the record gives no voltage_rating"
+        return "the record gives no voltage_rating: add it from the maker's data"
     return f"no stage lists {device.ref}, so the voltage it blocks is unknown"
 
 

@@ -12,15 +12,15 @@ import sys
 import time
 from dataclasses import dataclass
 from pathlib import Path
-from typing import Callable
+from typing import Callable, Iterator
 
 import click
 
 from dossier.archive import build_dirs
 from dossier.problems import InputError
 from dossier.site.atomic import OutputRefused, check_output, staging, swap_in
-from dossier.site.collect import Archive, collect
-from dossier.site.pages import write_tree
+from dossier.site.collect import Archive, Build, each_build, open_archive
+from dossier.site.pages import TreeSummary, write_tree
 from dossier.site.render import RenderError, run_mkdocs, source_epoch, write_config
 
 EXIT_BUILT, EXIT_RENDER_FAILED, EXIT_REFUSED, EXIT_BROKEN_PLUGIN = 0, 1, 2, 3
@@ -34,6 +34,7 @@ class Built:
     builds: int
     pages: int
     seconds: float
+    warnings: list[str]
 
 
 def default_output(archive: Path) -> Path:
@@ -42,22 +43,36 @@ def default_output(archive: Path) -> Path:
 
 
 def build_site(archive: Path, output: Path, *, pages_only: bool = False, calcs=None, cache=None, progress: Callable | None = None, announce: Callable[[str], None] | None = None) -> Built:
-    """Build the site (or only its page tree) into output; raises InputError, OutputRefused or RenderError."""
+    """Build the site (or only its page tree) into output; raises InputError, OutputRefused or RenderError.
+
+    Builds are reviewed and written one at a time into a work folder beside the output; every problem in
+    every file is gathered, and if there is any, the work folder is dropped and nothing is replaced.
+    """
     started = time.perf_counter()
     check_output(output, archive)
-    collected = collect(archive, calcs, cache, progress)
+    opened, problems = open_archive(archive, calcs)
     with staging(output) as work:
-        pages = write_tree(collected, work / DOCS)
-        finished = work / DOCS if pages_only else _rendered(collected, work, pages, announce)
+        builds = _reported(each_build(opened, problems, cache), progress)
+        tree = write_tree(opened, work / DOCS, builds)
+        if problems:
+            raise InputError(problems)
+        finished = work / DOCS if pages_only else _rendered(opened, tree, work, announce)
         swap_in(finished, output)
-    return Built(output, len(collected.builds), pages, time.perf_counter() - started)
+    return Built(output, len(tree.rows), tree.pages, time.perf_counter() - started, tree.warnings)
 
 
-def _rendered(collected: Archive, work: Path, pages: int, announce) -> Path:
+def _reported(builds: Iterator[Build], progress: Callable | None) -> Iterator[Build]:
+    for build in builds:
+        if progress is not None:
+            progress(build)
+        yield build
+
+
+def _rendered(opened: Archive, tree: TreeSummary, work: Path, announce) -> Path:
     if announce is not None:
-        announce(f"rendering {pages} pages with MkDocs")
-    config = write_config(collected, work, DOCS, SITE)
-    run_mkdocs(config, source_epoch(collected))
+        announce(f"rendering {tree.pages} pages with MkDocs")
+    config = write_config(opened.settings, tree, work, DOCS, SITE)
+    run_mkdocs(config, source_epoch(tree.newest))
     return work / SITE
 
 
@@ -87,6 +102,8 @@ def run_build(archive: Path, output: Path | None, pages_only: bool, quiet: bool,
         click.echo(error.output, err=True)
         click.echo(f"dossier build: {error}; the previous site at {target} is untouched.", err=True)
         return EXIT_RENDER_FAILED
+    for warning in built.warnings:
+        click.echo(f"warning: {warning}", err=True)
     what = "page tree" if pages_only else "site"
     click.echo(f"wrote the {what} of {built.builds} builds ({built.pages} pages) to {built.output} in {built.seconds:.1f} s")
     return EXIT_BUILT

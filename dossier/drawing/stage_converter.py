@@ -43,9 +43,14 @@ def draw(view: StageView):
     windings = drive_windings(view, drive)
     switch_x = _bridge_path(drawing, view, windings)
     base_x = _switches(drawing, switch_x, picker.take(P.UPPER_SWITCH), picker.take(P.LOWER_SWITCH))
-    right = _base_windings(drawing, switch_x, base_x, windings)
-    right = _start_up(drawing, base_x, right, picker)
-    _rails(drawing, right)
+    labels_end = _base_windings(drawing, switch_x, base_x, windings)
+    network = _start_up_parts(picker)
+    taps = (switch_x, base_x + 0.8)  # where the switches and the lower base winding meet the rails
+    if network is None:
+        _rails(drawing, taps[0], taps[1], taps)
+    else:
+        start_x = _start_up(drawing, base_x, labels_end, network)
+        _rails(drawing, start_x, start_x, taps)
     return finish_stage(drawing, view, picker)
 
 
@@ -59,8 +64,6 @@ def _capacitors(drawing, upper: PartView, lower: PartView) -> None:
     for part, (top, bottom) in ((upper, (TOP, MID)), (lower, (MID, BOTTOM))):
         sheet.add(drawing, elm.Capacitor(polar=True).at((CAP_X, top)).to((CAP_X, bottom)))
         sheet.text(drawing, (CAP_X - 0.45, (top + bottom) / 2), part.label, halign="right")
-    for y in (TOP, BOTTOM):
-        sheet.dot(drawing, (CAP_X, y))
 
 
 def drive_windings(view: StageView, drive: PartView) -> DriveWindings:
@@ -105,8 +108,7 @@ def _switches(drawing, x: float, upper: PartView, lower: PartView) -> float:
     sheet.wire(drawing, bottom.emitter, (x, BOTTOM))
     for device, part in ((top, upper), (bottom, lower)):
         sheet.text(drawing, (x - 0.45, device.base[1]), part.label, halign="right")
-    for y in (TOP, MID, BOTTOM):
-        sheet.dot(drawing, (x, y))
+    sheet.dot(drawing, (x, MID))
     return top.base[0]
 
 
@@ -121,36 +123,45 @@ def _base_windings(drawing, switch_x: float, base_x: float, windings: DriveWindi
     sheet.dot(drawing, (switch_x, joins))
     sheet.wire(drawing, (base_x, lower_base), (winding_x, lower_base))
     sheet.add(drawing, Winding(humps=3, core=True).at((winding_x, lower_base)).to((winding_x, BOTTOM)))
-    sheet.dot(drawing, (winding_x, BOTTOM))
     sheet.text(drawing, (winding_x + 0.55, (upper_base + joins) / 2), windings.upper)
     sheet.text(drawing, (winding_x + 0.55, lower_base / 2), windings.lower)
     widest = max(sheet.text_width(windings.upper), sheet.text_width(windings.lower))
     return winding_x + 0.55 + widest
 
 
-def _start_up(drawing, base_x: float, right: float, picker: Picker) -> float:
+def _start_up_parts(picker: Picker) -> tuple[PartView, PartView, PartView] | None:
+    """Start-up resistor, capacitor and trigger, taken only when all three are there."""
+    tests = (P.START_RESISTOR, P.START_CAPACITOR, P.TRIGGER)
+    if any(picker.peek(test) is None for test in tests):
+        return None
+    return tuple(picker.take(test) for test in tests)
+
+
+def _start_up(drawing, base_x: float, labels_end: float, network) -> float:
     """Resistor and capacitor charge to the trigger's breakover voltage; the trigger fires the lower base."""
-    resistor, capacitor, trigger = (picker.peek(t) for t in (P.START_RESISTOR, P.START_CAPACITOR, P.TRIGGER))
-    if None in (resistor, capacitor, trigger):
-        return right
-    for test in (P.START_RESISTOR, P.START_CAPACITOR, P.TRIGGER):
-        picker.take(test)
-    node = MID - 1.4 - 0.7
-    x = max(right, base_x + 0.8 + sheet.text_width(trigger.label) + 0.6) + 0.8
+    resistor, capacitor, trigger = network
+    node, joint = MID - 1.4 - 0.7, base_x + 0.8
+    x = max(labels_end, joint + sheet.text_width(trigger.label) + 0.6) + 0.8
     sheet.add(drawing, elm.ResistorIEC().at((x, TOP)).to((x, node)))
     sheet.add(drawing, elm.Capacitor().at((x, node)).to((x, BOTTOM)))
-    sheet.add(drawing, elm.Diac().at((x, node)).to((base_x + 0.8, node)))
-    sheet.dot(drawing, (x, node))
-    sheet.dot(drawing, (base_x + 0.8, node))
-    sheet.text(drawing, ((x + base_x + 0.8) / 2, node + 0.7), trigger.label, halign="center", valign="bottom")
+    sheet.add(drawing, elm.Diac().at((x, node)).to((joint, node)))
+    for point in ((x, node), (joint, node)):
+        sheet.dot(drawing, point)
+    sheet.text(drawing, ((x + joint) / 2, node + 0.7), trigger.label, halign="center", valign="bottom")
     sheet.text(drawing, (x + 0.45, (TOP + node) / 2), resistor.label)
     sheet.text(drawing, (x + 0.45, node / 2), capacitor.label)
     return x
 
 
-def _rails(drawing, right: float) -> None:
-    sheet.wire(drawing, (0, TOP), (right, TOP))
-    sheet.wire(drawing, (0, BOTTOM), (right, BOTTOM))
+def _rails(drawing, top_end: float, bottom_end: float, taps: tuple[float, float]) -> None:
+    """Both rails, with a junction dot wherever a tap joins a rail that runs on past it."""
+    sheet.wire(drawing, (0, TOP), (top_end, TOP))
+    sheet.wire(drawing, (0, BOTTOM), (bottom_end, BOTTOM))
+    joins = {TOP: (CAP_X, taps[0]), BOTTOM: (CAP_X, *taps)}
+    for y, end in ((TOP, top_end), (BOTTOM, bottom_end)):
+        for x in joins[y]:
+            if x < end:
+                sheet.dot(drawing, (x, y))
 
 
 def handles(view: StageView) -> bool:

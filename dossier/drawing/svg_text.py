@@ -21,10 +21,26 @@ FONT_FAMILY = 'font-family="Arial, Liberation Sans, Helvetica, sans-serif"'
 
 def finish(svg: str, prefix: str, title: str) -> str:
     """The SVG with its ids prefixed, an accessible title, and checked to be well formed."""
-    text = with_unique_ids(svg, prefix).replace('font-family="sans"', FONT_FAMILY)
+    text = with_unique_ids(with_default_namespace(svg), prefix).replace('font-family="sans"', FONT_FAMILY)
     text = with_title(text, title)
     check_well_formed(text)
     return text
+
+
+SVG_NAMESPACE = "http://www.w3.org/2000/svg"
+_PREFIXED_ROOT = re.compile(r'^<(?P<p>[A-Za-z_][\w.-]*):svg\b(?P<attrs>[^>]*?)\sxmlns:(?P=p)="' + re.escape(SVG_NAMESPACE) + '"')
+
+
+def with_default_namespace(svg: str) -> str:
+    """schemdraw qualifies only the root element and relies on ElementTree's registry to make the
+    SVG namespace the default one; when other code in the process has changed that registry the root
+    comes out as <ns0:svg ...> and its children fall out of the namespace. Put the default back."""
+    match = _PREFIXED_ROOT.match(svg)
+    if match is None:
+        return svg
+    prefix = match.group("p")
+    opening = f'<svg{match.group("attrs")} xmlns="{SVG_NAMESPACE}"'
+    return opening + svg[match.end():].removesuffix(f"</{prefix}:svg>") + "</svg>"
 
 
 def with_unique_ids(svg: str, prefix: str) -> str:

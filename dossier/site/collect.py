@@ -8,7 +8,7 @@ from __future__ import annotations
 
 from dataclasses import dataclass, field
 from pathlib import Path
-from typing import Callable
+from typing import Callable, Iterator
 
 from dossier.archive import RevisionFile, build_dirs, load_revision, revision_files
 from dossier.findings import Finding
@@ -59,30 +59,37 @@ class Archive:
     ledger: Ledger
     builds: list[Build] = field(default_factory=list)
 
-    @property
-    def newest_date(self):
-        dates = [rev.record.date for build in self.builds for rev in build.revisions]
-        return max(dates) if dates else None
 
 
 def collect(root: Path, calcs: list[Calc] | None = None, cache=None, progress: Callable[[Build], None] | None = None) -> Archive:
-    """The validated, reviewed archive; InputError with every problem found if anything is wrong."""
-    if not root.is_dir():
-        raise InputError([Problem("path_missing", Location(str(root)), expected="an archive folder", found="no folder at this path")])
-    problems: list[Problem] = []
-    settings = _gathered(problems, lambda: load_settings(root), None)
-    ledger = _gathered(problems, lambda: load_ledger(root), Ledger())
-    problems.extend(frozen_problems(root, ledger))
-    archive = Archive(root, settings, calcs if calcs is not None else load_calcs(), ledger)
-    for folder in build_dirs(root):
-        build = _collect_build(archive, folder, cache, problems)
-        if build is not None:
-            archive.builds.append(build)
-            if progress is not None:
-                progress(build)
+    """The whole archive in memory; InputError with every problem found if anything is wrong."""
+    archive, problems = open_archive(root, calcs)
+    for build in each_build(archive, problems, cache):
+        archive.builds.append(build)
+        if progress is not None:
+            progress(build)
     if problems:
         raise InputError(problems)
     return archive
+
+
+def open_archive(root: Path, calcs: list[Calc] | None = None) -> tuple[Archive, list[Problem]]:
+    """The archive's settings and publication ledger (no builds yet), and the problems found so far."""
+    if not root.is_dir():
+        raise InputError([Problem("path_missing", Location(str(root)), expected="an archive folder", found="no folder at this path")])
+    problems: list[Problem] = []
+    settings = _gathered(problems, lambda: load_settings(root), ArchiveSettings())
+    ledger = _gathered(problems, lambda: load_ledger(root), Ledger())
+    problems.extend(frozen_problems(root, ledger))
+    return Archive(root, settings, calcs if calcs is not None else load_calcs(), ledger), problems
+
+
+def each_build(archive: Archive, problems: list[Problem], cache=None) -> Iterator[Build]:
+    """Builds one at a time, so a large archive need not be held in memory; problems are added to the list."""
+    for folder in build_dirs(archive.root):
+        build = _collect_build(archive, folder, cache, problems)
+        if build is not None:
+            yield build
 
 
 def _gathered(problems: list[Problem], step, fallback):

@@ -7,10 +7,12 @@ gives the same bytes, file by file, in the same order.
 
 from __future__ import annotations
 
+import datetime
 import shutil
 from dataclasses import dataclass
 from functools import partial
 from pathlib import Path
+from typing import Iterable
 
 from dossier.caution import MAINS_CAUTION
 from dossier.findings import Verdict
@@ -18,7 +20,7 @@ from dossier.record.identity import STATUS_TITLES
 from dossier.site import layout
 from dossier.site.collect import CHECKLIST_SHEETS, Archive, Build
 from dossier.site.env import Md, render
-from dossier.site.views import RevisionView, change_steps, index_rows, revision_view
+from dossier.site.views import IndexRow, RevisionView, change_steps, index_row, newest_first, revision_view
 from dossier.templates import templates_dir
 
 PAGE_LABELS = {"index": "Overview", "calcs": "Calculations", "schematics": "Schematics", "checklist": "Checklist"}
@@ -72,29 +74,49 @@ def _link(here: str, target: str) -> Md:
     return Md(layout.href(here, target))
 
 
-def write_tree(archive: Archive, root: Path) -> int:
-    """Write the whole page tree under root (which must be empty); returns the number of pages."""
+@dataclass
+class TreeSummary:
+    """What the front pages and the renderer need once every build's pages are written."""
+
+    pages: int
+    rows: list[IndexRow]
+    statuses: list[StatusLink]
+    newest: datetime.date | None
+    warnings: list[str]  # parts of pages that could not be made (a drawing or checklist failed)
+
+
+def write_tree(archive: Archive, root: Path, builds: Iterable[Build] | None = None) -> TreeSummary:
+    """Write the page tree under root: each build's pages as it comes, then the archive's front pages.
+
+    builds defaults to archive.builds; pass collect.each_build(...) to hold one build in memory at a time.
+    """
     writer = TreeWriter(root, archive)
-    statuses = status_links(archive)
-    any_mains = any(build.current.record.has_mains for build in archive.builds)
-    shared = {"statuses": statuses, "total": len(archive.builds), "any_mains": any_mains}
-    rows = index_rows(archive)
+    rows, newest, warnings = [], None, []
+    for build in archive.builds if builds is None else builds:
+        write_build(writer, archive, build)
+        rows.append(index_row(build))
+        warnings.extend(f"{build.id} rev {rev.letter}: {text}" for rev in build.revisions for text in rev.extras.failures)
+        newest = max(filter(None, [newest, *(rev.record.date for rev in build.revisions)]))
+    statuses = status_links(rows)
+    _write_front(writer, archive, newest_first(rows), statuses)
+    _write_assets(writer)
+    return TreeSummary(writer.pages, rows, statuses, newest, warnings)
+
+
+def _write_front(writer: TreeWriter, archive: Archive, rows: list[IndexRow], statuses: list[StatusLink]) -> None:
+    shared = {"statuses": statuses, "total": len(rows), "any_mains": any(row.has_mains for row in rows)}
     writer.page(layout.INDEX, "archive.md.j2", page_title=archive.settings.title, rows=rows, current_status="", **shared)
     for link in statuses:
         chosen = [row for row in rows if row.status == link.status]
         writer.page(link.path, "status.md.j2", page_title=link.title, status_title=link.title, rows=chosen, current_status=link.status, **shared)
     writer.page(layout.ABOUT, "about.md.j2", page_title="About this site")
-    for build in archive.builds:
-        write_build(writer, archive, build)
-    _write_assets(writer)
-    return writer.pages
 
 
-def status_links(archive: Archive) -> list[StatusLink]:
+def status_links(rows: list[IndexRow]) -> list[StatusLink]:
     """The statuses that at least one build is in, in the order a build moves through them."""
     tally = {status: 0 for status in STATUS_TITLES}
-    for build in archive.builds:
-        tally[build.current.record.status] = tally.get(build.current.record.status, 0) + 1
+    for row in rows:
+        tally[row.status] = tally.get(row.status, 0) + 1
     return [StatusLink(s, STATUS_TITLES.get(s, s), n, layout.status_page(s)) for s, n in tally.items() if n]
 
 

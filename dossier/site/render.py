@@ -14,9 +14,9 @@ import sys
 from pathlib import Path
 
 from dossier.site import layout
-from dossier.site.collect import Archive
 from dossier.site.env import render
-from dossier.site.pages import status_links
+from dossier.site.pages import StatusLink, TreeSummary
+from dossier.site.settings import ArchiveSettings
 
 CONFIG_NAME = "mkdocs.yml"
 
@@ -29,28 +29,28 @@ class RenderError(Exception):
         self.output = output
 
 
-def config_text(archive: Archive, docs_dir: str, site_dir: str) -> str:
+def config_text(settings: ArchiveSettings, statuses: list[StatusLink], docs_dir: str, site_dir: str) -> str:
     return render(
         "mkdocs.yml.j2",
-        settings=archive.settings,
+        settings=settings,
         docs_dir=docs_dir,
         site_dir=site_dir,
         shim=layout.WORKER_SHIM,
         stylesheet=layout.STYLESHEET,
-        statuses=status_links(archive),
+        statuses=statuses,
     )
 
 
-def write_config(archive: Archive, work: Path, docs_dir: str, site_dir: str) -> Path:
+def write_config(settings: ArchiveSettings, tree: TreeSummary, work: Path, docs_dir: str, site_dir: str) -> Path:
     path = work / CONFIG_NAME
-    path.write_text(config_text(archive, docs_dir, site_dir), encoding="utf-8", newline="\n")
+    path.write_text(config_text(settings, tree.statuses, docs_dir, site_dir), encoding="utf-8", newline="\n")
     return path
 
 
-def source_epoch(archive: Archive) -> int:
+def source_epoch(newest: datetime.date | None) -> int:
     """Midnight UTC of the newest record date: the only date the rendered site may carry."""
-    newest = archive.newest_date or datetime.date(1970, 1, 1)
-    return int(datetime.datetime.combine(newest, datetime.time(), tzinfo=datetime.timezone.utc).timestamp())
+    day = newest or datetime.date(1970, 1, 1)
+    return int(datetime.datetime.combine(day, datetime.time(), tzinfo=datetime.timezone.utc).timestamp())
 
 
 def run_mkdocs(config: Path, epoch: int) -> None:

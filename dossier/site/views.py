@@ -167,9 +167,8 @@ def revision_links(build: Build) -> list[RevisionLink]:
     return links
 
 
-def index_rows(archive: Archive) -> list[IndexRow]:
-    """One row per build, newest current revision first."""
-    rows = [_index_row(build) for build in archive.builds]
+def newest_first(rows: list[IndexRow]) -> list[IndexRow]:
+    """Builds by the date of their current revision, newest first; the same date by id."""
     return sorted(rows, key=lambda row: (_descending(row.date), row.build_id))
 
 
@@ -177,7 +176,7 @@ def _descending(date: str) -> str:
     return "".join(chr(0x10FFFF - ord(ch)) for ch in date)
 
 
-def _index_row(build: Build) -> IndexRow:
+def index_row(build: Build) -> IndexRow:
     record = build.current.record
     return IndexRow(
         build_id=build.id,
