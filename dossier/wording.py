@@ -160,3 +160,22 @@ def verdict_summary_text(tally: dict) -> str:
     """'2 fail, 1 marginal, 12 pass' from counts by verdict."""
     shown = [f"{tally.get(verdict, 0)} {verdict.value}" for verdict in (Verdict.FAIL, Verdict.MARGINAL, Verdict.PASS)]
     return ", ".join(shown)
+
+
+def verdict_counts_text(tally: dict) -> str:
+    """'2 fail, 1 marginal, 12 pass, and 5 for information'."""
+    info = tally.get(Verdict.INFO, 0)
+    return verdict_summary_text(tally) + (f", and {info} for information" if info else "")
+
+
+def limit_text(finding: Finding) -> str:
+    """'at least 3 mm (required clearance)', or '' when the finding has no limit."""
+    if finding.limit is None:
+        return ""
+    bound = {">=": "at least", "<=": "at most"}.get(finding.relation, finding.relation)
+    return f"{bound} {quantity_text(finding.limit.quantity)} ({finding.limit.label})"
+
+
+NO_FAILING_TEXT = "No check fails and none is marginal."
+NOTHING_TO_CHECK_TEXT = "Nothing in this record for this calc to check."
+NO_FINDING_CHANGED_TEXT = "No finding changed verdict or value."

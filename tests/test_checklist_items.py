@@ -76,23 +76,29 @@ def test_a_class_ii_unit_has_no_earth_item_and_the_higher_insulation_minimum():
     assert checklist.item("insulation-mains-metal").expected.low == Q_(2.0, "megaohm")
 
 
-def test_the_fuse_to_fit_is_the_protection_calcs_recommendation():
+
+def test_a_declared_fuse_that_passes_is_the_one_to_fit():
+    # demo rev C declares T2A, which passes every protection check; the smallest that would do is smaller
     loaded, _ = demo("sw-charger-12v", "C")
     choice = recommended_fuse(loaded.record)
+    assert choice.declared_fits
     entry = item("sw-charger-12v", "C", "mains-fuse")
+    assert entry.title == "Mains fuse F1: fit T2A"
+    assert "Fit F1: T2A 250 V ceramic, breaking capacity 1500 A, as the record declares" in entry.steps
+    assert f"The smallest preferred rating that would also do is {marking(choice.rating, choice.speed)}" in entry.steps
+
+
+def test_a_declared_fuse_that_fails_gives_way_to_the_recommendation():
+    # demo rev A declares F1A fast-acting glass, which blows at every switch-on
+    loaded, _ = demo("sw-charger-12v", "A")
+    choice = recommended_fuse(loaded.record)
+    assert not choice.declared_fits
+    entry = item("sw-charger-12v", "A", "mains-fuse")
     fit = marking(choice.rating, choice.speed)
     assert entry.title == f"Mains fuse F1: fit {fit}"
-    assert fit != "T2A", "demo rev C declares T2A; the recommendation differs, so the sheet must say both"
-    assert "The record declares T2A 250 V ceramic" in entry.steps
+    assert fit.startswith("T")
+    assert "The record declares F1A 250 V glass" in entry.steps
     assert "melting I^2 t is at least" in entry.steps
-
-
-def test_the_fuse_item_says_so_when_the_record_agrees():
-    entry = item("bench-psu-13v8", "A", "mains-fuse")
-    loaded, _ = demo("bench-psu-13v8", "A")
-    fuse = loaded.record.protection.fuse
-    assert marking(fuse.rating, fuse.speed) in entry.title
-    assert "The record declares the same" in entry.steps
 
 
 @pytest.mark.parametrize("build, revision", DEMO_REVISIONS)

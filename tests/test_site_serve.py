@@ -91,3 +91,20 @@ def test_serve_with_the_real_build_shows_the_edited_record(tmp_path):
     finally:
         stop.set()
         thread.join(DEADLINE)
+
+
+def test_a_port_in_use_is_a_message_not_a_traceback(tmp_path):
+    import socket
+
+    from click.testing import CliRunner
+
+    from dossier.cli import main
+
+    write_record(tmp_path / "archive", "amp", "A")
+    with socket.socket() as taken:
+        taken.bind(("127.0.0.1", 0))
+        taken.listen()
+        port = taken.getsockname()[1]
+        result = CliRunner().invoke(main, ["serve", str(tmp_path / "archive"), "--port", str(port)])
+    assert result.exit_code == 2 and "choose another --port" in result.stderr
+    assert "Traceback" not in result.output

@@ -26,7 +26,23 @@ def fuse_item(record, findings) -> list[Item]:
     choice = recommended_fuse(record)
     if choice is None or choice.rating is None:
         return [_declared_only(declared)] if declared is not None else [_no_fuse()]
+    if declared is not None and choice.declared_fits:
+        return [_declared_passes(declared, choice, _sources(findings))]
     return [_recommended(declared, choice, _sources(findings))]
+
+
+def _declared_passes(declared, choice, sources) -> Item:
+    """The declared fuse passes every check: fit that one, so the unit matches its record."""
+    fit = marking(declared.rating, declared.speed)
+    smallest = marking(choice.rating, choice.speed)
+    steps = f"Fit {declared.ref}: {declared_text(declared)}, as the record declares; it passes the protection checks. "
+    if smallest != fit:
+        steps += f"The smallest preferred rating that would also do is {smallest}; fit that instead only with a new revision. "
+    return Item(
+        key="mains-fuse", phase=Phase.UNPOWERED, origin=Origin.BUILD,
+        title=f"Mains fuse {declared.ref}: fit {fit}",
+        steps=steps + _reading_text(), sources=sources + (MARKING_PRACTICE,),
+    )
 
 
 def _sources(findings) -> tuple:

@@ -79,34 +79,37 @@ def _rendered(opened: Archive, tree: TreeSummary, work: Path, announce) -> Path:
 def run_build(archive: Path, output: Path | None, pages_only: bool, quiet: bool, use_cache: bool) -> int:
     """The command: messages on standard error, the outcome on standard output, an exit status."""
     from dossier.plugins import PluginError
-    from dossier.wording import problem_line
 
     target = output if output is not None else default_output(archive)
     total = len(build_dirs(archive)) if archive.is_dir() else 0
     show_progress = not quiet and total >= PROGRESS_FROM
     try:
         with _progress(total, show_progress) as advance:
-            built = build_site(archive, target, pages_only=pages_only, cache=_cache(use_cache), progress=advance, announce=_announcer(show_progress))
-    except InputError as error:
-        for problem in error.problems:
-            click.echo(problem_line(problem), err=True)
-        click.echo(f"dossier build: nothing written; {len(error.problems)} problem(s) to put right first.", err=True)
-        return EXIT_REFUSED
-    except OutputRefused as refused:
-        click.echo(f"dossier build: {refused}", err=True)
-        return EXIT_REFUSED
-    except PluginError as error:
-        click.echo(f"dossier build: {error}", err=True)
-        return EXIT_BROKEN_PLUGIN
-    except RenderError as error:
-        click.echo(error.output, err=True)
-        click.echo(f"dossier build: {error}; the previous site at {target} is untouched.", err=True)
-        return EXIT_RENDER_FAILED
+            built = build_site(archive, target, pages_only=pages_only, cache=user_drawing_cache(use_cache), progress=advance, announce=_announcer(show_progress))
+    except (InputError, OutputRefused, PluginError, RenderError) as error:
+        return _failed(error, target)
     for warning in built.warnings:
         click.echo(f"warning: {warning}", err=True)
     what = "page tree" if pages_only else "site"
     click.echo(f"wrote the {what} of {built.builds} builds ({built.pages} pages) to {built.output} in {built.seconds:.1f} s")
     return EXIT_BUILT
+
+
+def _failed(error: Exception, target: Path) -> int:
+    """Say why nothing was written, and the exit status for it."""
+    from dossier.wording import problem_line
+
+    if isinstance(error, InputError):
+        for problem in error.problems:
+            click.echo(problem_line(problem), err=True)
+        click.echo(f"dossier build: nothing written; {len(error.problems)} problem(s) to put right first.", err=True)
+        return EXIT_REFUSED
+    if isinstance(error, RenderError):
+        click.echo(error.output, err=True)
+        click.echo(f"dossier build: {error}; the previous site at {target} is untouched.", err=True)
+        return EXIT_RENDER_FAILED
+    click.echo(f"dossier build: {error}", err=True)
+    return EXIT_REFUSED if isinstance(error, OutputRefused) else EXIT_BROKEN_PLUGIN
 
 
 class _progress:
@@ -131,7 +134,7 @@ def _announcer(shown: bool):
     return (lambda message: click.echo(message, err=True)) if shown else None
 
 
-def _cache(use_cache: bool):
+def user_drawing_cache(use_cache: bool = True):
     """Finished drawings kept between builds, in the user's cache folder (never in the archive)."""
     if not use_cache:
         return None

@@ -10,7 +10,6 @@ from __future__ import annotations
 import functools
 import http.server
 import os
-import shutil
 import tempfile
 import threading
 import time
@@ -80,17 +79,16 @@ class Preview:
 def serve(archive: Path, host: str = "127.0.0.1", port: int = 8000, *, build: Callable[[Path, Path], bool], stop: threading.Event | None = None, on_ready: Callable[[str], None] | None = None, pause: float = POLL_SECONDS) -> int:
     """Serve until stopped (Ctrl-C, or `stop` set); returns how many builds were made."""
     stop = stop or threading.Event()
-    scratch = Path(tempfile.mkdtemp(prefix="dossier-serve-"))
-    output = scratch / "site"
-    output.mkdir()
-    preview = Preview(archive, output, lambda: build(archive, output))
-    server = _server(host, port, output)
-    try:
-        _run(preview, server, stop, on_ready, pause)
-    finally:
-        server.shutdown()
-        server.server_close()
-        shutil.rmtree(scratch, ignore_errors=True)
+    with tempfile.TemporaryDirectory(prefix="dossier-serve-") as scratch:
+        output = Path(scratch) / "site"
+        output.mkdir()
+        preview = Preview(archive, output, lambda: build(archive, output))
+        server = _server(host, port, output)
+        try:
+            _run(preview, server, stop, on_ready, pause)
+        finally:
+            server.shutdown()
+            server.server_close()
     return preview.builds
 
 
@@ -125,31 +123,35 @@ def _rebuild(preview: Preview) -> None:
 
 
 def run_serve(archive: Path, host: str, port: int) -> int:
-    from dossier.commands.build import build_site
+    def ready(url: str) -> None:
+        click.echo(f"serving {archive} at {url} (Ctrl-C to stop); saving a record or template rebuilds the site", err=True)
+
+    try:
+        serve(archive, host, port, build=preview_build, on_ready=ready)
+    except KeyboardInterrupt:
+        click.echo("stopped", err=True)
+    except OSError as error:
+        click.echo(f"dossier serve: cannot listen on {host}:{port}: {error.strerror or error}; choose another --port", err=True)
+        return 2
+    return 0
+
+
+def preview_build(source: Path, output: Path) -> bool:
+    """One build for the preview; on failure say why and keep the last good site."""
+    from dossier.commands.build import build_site, user_drawing_cache
     from dossier.problems import InputError
     from dossier.site.atomic import OutputRefused
     from dossier.site.render import RenderError
     from dossier.wording import problem_line
 
-    def build(source: Path, output: Path) -> bool:
-        try:
-            built = build_site(source, output)
-        except InputError as error:
-            for problem in error.problems:
-                click.echo(problem_line(problem), err=True)
-            click.echo("not rebuilt: put the problems right and save again", err=True)
-            return False
-        except (OutputRefused, RenderError) as error:
-            click.echo(getattr(error, "output", "") or str(error), err=True)
-            return False
-        click.echo(f"built {built.pages} pages in {built.seconds:.1f} s", err=True)
-        return True
-
-    def ready(url: str) -> None:
-        click.echo(f"serving {archive} at {url} (Ctrl-C to stop); saving a record or template rebuilds the site", err=True)
-
     try:
-        serve(archive, host, port, build=build, on_ready=ready)
-    except KeyboardInterrupt:
-        click.echo("stopped", err=True)
-    return 0
+        built = build_site(source, output, cache=user_drawing_cache())
+    except InputError as error:
+        click.echo("\n".join(problem_line(problem) for problem in error.problems), err=True)
+        click.echo("not rebuilt: put the problems right and save again", err=True)
+        return False
+    except (OutputRefused, RenderError) as error:
+        click.echo(getattr(error, "output", "") or str(error), err=True)
+        return False
+    click.echo(f"built {built.pages} pages in {built.seconds:.1f} s", err=True)
+    return True

@@ -14,6 +14,7 @@ from functools import partial
 from pathlib import Path
 from typing import Iterable
 
+from dossier import wording
 from dossier.caution import MAINS_CAUTION
 from dossier.findings import Verdict
 from dossier.record.identity import STATUS_TITLES
@@ -50,6 +51,7 @@ class TreeWriter:
             "Verdict": Verdict,
             "Md": Md,
             "labels": PAGE_LABELS,
+            "words": wording,
         }
 
     def page(self, path: str, template: str, **context) -> None:
@@ -91,16 +93,20 @@ def write_tree(archive: Archive, root: Path, builds: Iterable[Build] | None = No
     builds defaults to archive.builds; pass collect.each_build(...) to hold one build in memory at a time.
     """
     writer = TreeWriter(root, archive)
-    rows, newest, warnings = [], None, []
+    rows, dates, warnings = [], [], []
     for build in archive.builds if builds is None else builds:
         write_build(writer, archive, build)
         rows.append(index_row(build))
-        warnings.extend(f"{build.id} rev {rev.letter}: {text}" for rev in build.revisions for text in rev.extras.failures)
-        newest = max(filter(None, [newest, *(rev.record.date for rev in build.revisions)]))
+        dates.extend(revision.record.date for revision in build.revisions)
+        warnings.extend(_failures(build))
     statuses = status_links(rows)
     _write_front(writer, archive, newest_first(rows), statuses)
     _write_assets(writer)
-    return TreeSummary(writer.pages, rows, statuses, newest, warnings)
+    return TreeSummary(writer.pages, rows, statuses, max(dates, default=None), warnings)
+
+
+def _failures(build: Build) -> list[str]:
+    return [f"{build.id} rev {revision.letter}: {text}" for revision in build.revisions for text in revision.extras.failures]
 
 
 def _write_front(writer: TreeWriter, archive: Archive, rows: list[IndexRow], statuses: list[StatusLink]) -> None:

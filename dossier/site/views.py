@@ -20,7 +20,7 @@ from dossier.site.extras import is_active_svg
 from dossier.site.hazards import hazards
 from dossier.source import dotted
 from dossier.wording import (
-    comparison_text, finding_label, finding_state_text, margin_text, measure_text, source_text, verdict_summary_text,
+    comparison_text, finding_label, finding_state_text, margin_text, measure_text, source_text, verdict_counts_text,
 )
 
 IMAGE_TYPES = (".jpg", ".jpeg", ".png", ".gif", ".webp", ".svg")
@@ -147,7 +147,7 @@ def revision_view(archive: Archive, build: Build, revision: Revision) -> Revisio
         revisions=revision_links(build),
         hazards=hazards(revision.record),
         tally=counts(revision.findings),
-        summary=verdict_summary_text(counts(revision.findings)),
+        summary=verdict_counts_text(counts(revision.findings)),
         failing=sorted(failing, key=lambda view: view.finding.verdict.rank),
         calcs=sections,
         schematics=[_figure(root, f) for f in revision.extras.figures if f.section == "schematics"],
@@ -212,7 +212,7 @@ def _calc_sections(archive: Archive, revision: Revision, root: str) -> list[Calc
         findings = sorted((f for f in revision.findings if f.calc == name), key=lambda f: f.verdict.rank)
         views = [_finding_view(f, revision, layout.page(root, "calcs"), anchors) for f in findings]
         figures = [_figure(root, f) for f in revision.extras.figures if f.section == name]
-        sections.append(CalcSection(name, title, summary, anchor, views, figures, verdict_summary_text(counts(findings))))
+        sections.append(CalcSection(name, title, summary, anchor, views, figures, verdict_counts_text(counts(findings))))
     return sections
 
 
