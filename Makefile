@@ -12,14 +12,25 @@ $(STAMP): pyproject.toml
 	$(BIN)/pip install --quiet -e '.[test]'
 	touch $(STAMP)
 
+# The demo archive has a revision that fails on purpose, so `check` exiting 1 is expected here.
 demo: $(STAMP)
-	$(BIN)/dossier check demo/archive; status=$$?; [ $$status -le 1 ] || exit $$status
+	$(BIN)/dossier check demo/archive > /dev/null; status=$$?; [ $$status -le 1 ] || exit $$status
+	$(BIN)/dossier build demo/archive -o demo/site
+	@echo "Open demo/site/index.html in a browser (works from a folder, no network needed)."
+
+# The project's own docs with the demo archive inside them, rendered strictly.
+docs: $(STAMP)
+	rm -rf docs/archive
+	$(BIN)/dossier build demo/archive --pages-only -o docs/archive
+	$(BIN)/mkdocs build --strict -d site
 
 test: $(STAMP)
 	$(BIN)/python -m pytest
 
 bench: $(STAMP)
 	$(BIN)/python bench/bench_check.py
+	$(BIN)/python bench/bench_drawing.py
+	$(BIN)/python bench/bench_site.py
 
 clean:
 	rm -rf $(VENV) site .cache

@@ -120,6 +120,8 @@ def _parse_text(text: str, expected: str):
 def _checked(quantity, dimension: str, expected: str):
     if quantity.dimensionality != dimensionality_of(dimension):
         raise UnitProblem("wrong_dimension", expected, f"{quantity:~P} ({_dim_text(quantity)})")
+    if dimension == "[temperature]" and quantity.to("kelvin").magnitude <= 0:
+        raise UnitProblem("below_absolute_zero", "a temperature above absolute zero", f"{quantity:~P}")
     return quantity
 
 

@@ -12,6 +12,7 @@ PROBLEM_TEXT = {
     "missing_unit": "a unit is needed",
     "wrong_dimension": "wrong kind of unit",
     "unknown_unit": "unit not recognised",
+    "below_absolute_zero": "impossible temperature",
     "not_a_quantity": "not a value with a unit",
     "duplicate_key": "key given twice",
     "yaml_syntax": "YAML syntax error",

@@ -6,6 +6,7 @@ The number of cases tried is set by EXAMPLES below (three strategies, so 3 x EXA
 
 from __future__ import annotations
 
+import os
 import string
 from pathlib import Path
 
@@ -19,7 +20,7 @@ from dossier.problems import InputError
 from dossier.review import review
 from conftest import DEMO
 
-EXAMPLES = 150
+EXAMPLES = int(os.environ.get("DOSSIER_FUZZ_EXAMPLES", "150"))
 SOURCE = (DEMO / "sw-charger-12v" / "rev-C.yaml").read_text(encoding="utf-8")
 LINES = SOURCE.splitlines()
 CALCS = load_calcs()

@@ -125,11 +125,11 @@ _ONCE: dict[str, object] = {}
 
 @pytest.fixture(scope="session")
 def drawing_cache(tmp_path_factory):
-    """One drawing cache for every site test, so each schematic is drawn once per test run."""
-    from dossier.drawing.cache import DrawingCache
+    """One drawing and PDF cache for every site test, so each schematic and sheet is made once per test run."""
+    from dossier.site.caches import Caches
 
     if "cache" not in _ONCE:
-        _ONCE["cache"] = DrawingCache(tmp_path_factory.mktemp("drawings"))
+        _ONCE["cache"] = Caches.in_folder(tmp_path_factory.mktemp("caches"))
     return _ONCE["cache"]
 
 

@@ -45,13 +45,21 @@ def test_index_lists_every_build_with_revision_status_date_and_counts(demo, tree
         row = table_row(index, f"[{record.title}]")
         tally = counts(build.current.findings)
         assert row[0] == f"[{record.title}](builds/{build.id}/index.md)"
-        assert row[1:] == [build.current.letter, _status_title(record.status), record.date.isoformat(), str(tally[Verdict.PASS]), str(tally[Verdict.MARGINAL]), str(tally[Verdict.FAIL])]
+        assert row[1:] == [build.current.letter, _status_title(build), record.date.isoformat(), str(tally[Verdict.PASS]), str(tally[Verdict.MARGINAL]), str(tally[Verdict.FAIL])]
 
 
-def _status_title(status: str) -> str:
+def _status_title(build) -> str:
+    """The record's status, or, after a passed commissioning, the status it advances to."""
     from dossier.record.identity import STATUS_TITLES
 
-    return STATUS_TITLES[status]
+    state = build.current.extras.commissioning
+    return state.status.title if state is not None else STATUS_TITLES[build.current.record.status]
+
+
+def test_a_passed_commissioning_advances_the_status_shown(tree):
+    # demo: sw-charger-12v rev C is 'in-enclosure' and its commissioning-C.yaml passed on 2026-05-12
+    row = table_row(page(tree, "index.md"), "[12 V lead-acid charger")
+    assert row[2] == "In its enclosure, commissioned 2026-05-12"
 
 
 def test_index_is_newest_first_and_carries_the_caution(tree):
@@ -235,7 +243,7 @@ def test_a_failing_drawing_is_shown_on_the_page_and_does_not_stop_the_site(tmp_p
     def broken(record, findings, cache=None):
         raise RuntimeError("no pencil")
 
-    monkeypatch.setattr("dossier.drawing.schematics.draw", broken)
+    monkeypatch.setattr("dossier.site.extras.draw", broken)
     archive = tmp_path / "archive"
     write_record(archive, "amp", "A")
     summary = write_tree(collect(archive, [TEST_CALC]), tmp_path / "tree")

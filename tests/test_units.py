@@ -67,3 +67,9 @@ def test_one_registry_for_the_package():
 def test_fmt_keeps_three_significant_digits():
     assert fmt(Q_(3.14159, "mm")) == "3.14 mm"
     assert fmt(Q_(0.5, "")) == "0.5"
+
+
+def test_a_temperature_below_absolute_zero_is_refused():
+    with pytest.raises(UnitProblem) as raised:
+        parse_quantity("-40 K", "[temperature]")
+    assert (raised.value.kind, raised.value.found) == ("below_absolute_zero", "-40.0 K")

@@ -3,6 +3,7 @@
 from __future__ import annotations
 
 from dataclasses import dataclass
+from pathlib import Path
 
 from dossier.checklist.load import Commissioning, commissioning_path, load_commissioning
 from dossier.checklist.outcome import Summary, outcomes, summarise
@@ -45,7 +46,8 @@ def load_for_revision(loaded, findings) -> Commissioning | None:
     path = commissioning_path(loaded.path.parent, loaded.record.revision)
     if path is None:
         return None
-    return load_commissioning(path, build_checklist(loaded.record, findings))
+    shown = str(Path(loaded.sources.file).parent / path.name)  # named the way the record itself is shown
+    return load_commissioning(path, build_checklist(loaded.record, findings), shown_as=shown)
 
 
 def commissioning_state(loaded, findings, commissioning: Commissioning | None = None) -> CommissioningState:

@@ -2,9 +2,12 @@
 
 from __future__ import annotations
 
+import hashlib
+import os
 from pathlib import Path
 
 SYSTEM_PACKAGES = "libpango-1.0-0 libpangoft2-1.0-0 fonts-dejavu-core"
+RENDER_VERSION = "checklist-pdf-1"  # raise when the PDF output changes for the same HTML
 
 
 class PdfUnavailable(RuntimeError):
@@ -29,6 +32,39 @@ def write_pdf(html: str, path: Path) -> Path:
     path.parent.mkdir(parents=True, exist_ok=True)
     weasyprint.HTML(string=html, base_url=str(path.parent)).write_pdf(str(path))
     return path
+
+
+class PdfCache:
+    """Finished PDFs by the sha256 of their HTML: an unchanged sheet is never rendered twice."""
+
+    def __init__(self, folder: Path | None):
+        self.folder = Path(folder) if folder is not None else None  # None: render every time, keep nothing
+
+    def pdf_of(self, html: str) -> bytes:
+        if self.folder is None:
+            return render_pdf(html)
+        key = hashlib.sha256((RENDER_VERSION + html).encode("utf-8")).hexdigest()
+        path = self.folder / key[:2] / f"{key}.pdf"
+        if path.is_file():
+            return path.read_bytes()
+        data = render_pdf(html)
+        path.parent.mkdir(parents=True, exist_ok=True)
+        partial = path.with_suffix(f".{os.getpid()}.part")
+        partial.write_bytes(data)
+        os.replace(partial, path)
+        return data
+
+
+def render_pdf(html: str) -> bytes:
+    """One standalone HTML page as PDF bytes; byte-identical for the same HTML (no creation date)."""
+    return _pdf_bytes(_renderer(), html)
+
+
+def _pdf_bytes(weasyprint, html: str) -> bytes:
+    document = weasyprint.HTML(string=html).render()
+    document.metadata.created = None
+    document.metadata.modified = None
+    return document.write_pdf()
 
 
 def pdf_name(build: str, revision: str, paper: str) -> str:

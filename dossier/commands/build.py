@@ -19,6 +19,7 @@ import click
 from dossier.archive import build_dirs
 from dossier.problems import InputError
 from dossier.site.atomic import OutputRefused, check_output, staging, swap_in
+from dossier.site.caches import user_caches
 from dossier.site.collect import Archive, Build, each_build, open_archive
 from dossier.site.pages import TreeSummary, write_tree
 from dossier.site.render import RenderError, run_mkdocs, source_epoch, write_config
@@ -76,7 +77,7 @@ def _rendered(opened: Archive, tree: TreeSummary, work: Path, announce) -> Path:
     return work / SITE
 
 
-def run_build(archive: Path, output: Path | None, pages_only: bool, quiet: bool, use_cache: bool) -> int:
+def run_build(archive: Path, output: Path | None, pages_only: bool, quiet: bool, use_cache: bool, pdfs: bool = True) -> int:
     """The command: messages on standard error, the outcome on standard output, an exit status."""
     from dossier.plugins import PluginError
 
@@ -85,7 +86,7 @@ def run_build(archive: Path, output: Path | None, pages_only: bool, quiet: bool,
     show_progress = not quiet and total >= PROGRESS_FROM
     try:
         with _progress(total, show_progress) as advance:
-            built = build_site(archive, target, pages_only=pages_only, cache=user_drawing_cache(use_cache), progress=advance, announce=_announcer(show_progress))
+            built = build_site(archive, target, pages_only=pages_only, cache=user_caches(use_cache, pdfs), progress=advance, announce=_announcer(show_progress))
     except (InputError, OutputRefused, PluginError, RenderError) as error:
         return _failed(error, target)
     for warning in built.warnings:
@@ -132,16 +133,3 @@ class _progress:
 
 def _announcer(shown: bool):
     return (lambda message: click.echo(message, err=True)) if shown else None
-
-
-def user_drawing_cache(use_cache: bool = True):
-    """Finished drawings kept between builds, in the user's cache folder (never in the archive)."""
-    if not use_cache:
-        return None
-    from dossier.site.extras import optional
-
-    cache_class = optional("dossier.drawing.cache", "DrawingCache")
-    if cache_class is None:
-        return None
-    home = Path(os.environ.get("XDG_CACHE_HOME") or Path.home() / ".cache")
-    return cache_class(home / "dossier" / "drawings")

@@ -138,14 +138,15 @@ def run_serve(archive: Path, host: str, port: int) -> int:
 
 def preview_build(source: Path, output: Path) -> bool:
     """One build for the preview; on failure say why and keep the last good site."""
-    from dossier.commands.build import build_site, user_drawing_cache
+    from dossier.commands.build import build_site
+    from dossier.site.caches import user_caches
     from dossier.problems import InputError
     from dossier.site.atomic import OutputRefused
     from dossier.site.render import RenderError
     from dossier.wording import problem_line
 
     try:
-        built = build_site(source, output, cache=user_drawing_cache())
+        built = build_site(source, output, cache=user_caches())
     except InputError as error:
         click.echo("\n".join(problem_line(problem) for problem in error.problems), err=True)
         click.echo("not rebuilt: put the problems right and save again", err=True)

@@ -33,9 +33,9 @@ def _positive(value, info: ValidationInfo):
 class Steinmetz(Section):
     """Core loss per volume P_v = k f^alpha B^beta, with f in Hz, B in T and P_v in W/m^3."""
 
-    k: float = Field(gt=0, description="Steinmetz coefficient k, for f in Hz, B in T and loss in W/m^3.")
-    alpha: float = Field(gt=0, description="Frequency exponent alpha.")
-    beta: float = Field(gt=0, description="Flux-density exponent beta.")
+    k: float = Field(gt=0, le=1e9, description="Steinmetz coefficient k, for f in Hz, B in T and loss in W/m^3.")
+    alpha: float = Field(gt=0, le=4, description="Frequency exponent alpha; power ferrites lie between about 1 and 2.")
+    beta: float = Field(gt=0, le=4, description="Flux-density exponent beta; power ferrites lie between about 2 and 3.")
 
 
 class CoreMaterial(Section):

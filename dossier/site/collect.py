@@ -17,6 +17,7 @@ from dossier.plugins import Calc, load_calcs
 from dossier.problems import InputError, Location, Problem
 from dossier.record.load import LoadedRecord
 from dossier.review import review
+from dossier.site.caches import Caches
 from dossier.site.extras import Extras, revision_extras
 from dossier.site.settings import ArchiveSettings, load_settings
 
@@ -112,5 +113,6 @@ def _collect_build(archive: Archive, folder: Path, cache, problems: list[Problem
 def _collect_revision(archive: Archive, rev: RevisionFile, cache) -> Revision:
     loaded = load_revision(rev, shown_as=f"{rev.build_id}/{rev.path.name}")
     findings = review(loaded.record, archive.calcs)
-    extras = revision_extras(loaded, findings, rev.path.parent, cache, CHECKLIST_SHEETS)
+    caches = cache or Caches()
+    extras = revision_extras(loaded, findings, caches.drawings, CHECKLIST_SHEETS, caches.pdfs)
     return Revision(rev, loaded, findings, extras, archive.ledger.entry(rev.build_id, rev.letter))

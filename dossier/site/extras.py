@@ -1,19 +1,21 @@
-"""What other parts of dossier add to a revision's pages: schematics, charts and the checklist.
+"""What other parts of dossier add to a revision's pages: schematics, charts, the checklist and its PDFs.
 
-Each part is optional: while its module is not installed the pages simply leave it out. A part that
-is installed but fails on one record does not stop the site: the failure is shown on the page and
-reported on standard error, in the way a failing calc becomes a finding.
+A drawing or PDF that fails on one record does not stop the site: the failure is shown on the page and
+reported on standard error, in the way a failing calc becomes a finding. An invalid commissioning record
+stops the build like an invalid build record.
 """
 
 from __future__ import annotations
 
-import importlib
 import re
 from dataclasses import dataclass, field
-from pathlib import Path
 from xml.etree import ElementTree
 
+from dossier.checklist.overview import CommissioningState, commissioning_state, load_for_revision
+from dossier.checklist.page import checklist_html, checklist_markdown
+from dossier.drawing.charge_chart import figures as charge_figures
 from dossier.drawing.figure import Figure
+from dossier.drawing.schematics import draw
 from dossier.findings import Finding
 
 # An SVG shown on the site must not carry script: it can be opened on its own, outside an <img>.
@@ -29,89 +31,56 @@ class Extras:
     notes: list[Finding | str] = field(default_factory=list)
     checklist: str | None = None
     sheets: dict[str, str] = field(default_factory=dict)  # printable checklist (HTML) by paper size
+    pdfs: dict[str, bytes] = field(default_factory=dict)  # the same sheets as PDF, by paper size
+    commissioning: CommissioningState | None = None
     failures: list[str] = field(default_factory=list)
 
 
-def optional(module: str, name: str):
-    """module.name, or None while that module does not exist (any other import error is raised)."""
-    try:
-        loaded = importlib.import_module(module)
-    except ModuleNotFoundError as error:
-        if error.name and module.startswith(error.name):
-            return None
-        raise
-    return getattr(loaded, name, None)
-
-
-def revision_extras(loaded, findings: list[Finding], build_dir: Path, cache=None, print_links=None) -> Extras:
+def revision_extras(loaded, findings: list[Finding], cache=None, print_links=None, pdf_cache=None) -> Extras:
     extras = Extras()
     _attempt(extras, "schematics", lambda: _schematics(extras, loaded.record, findings, cache))
-    _attempt(extras, "charge chart", lambda: _charge_chart(extras, loaded.record))
-    _attempt(extras, "checklist", lambda: _checklist(extras, loaded, findings, build_dir, print_links))
+    _attempt(extras, "charge chart", lambda: extras.figures.extend(charge_figures(loaded.record)))
+    _checklist(extras, loaded, findings, print_links or {}, pdf_cache)
     extras.figures = _safe_figures(extras)
     return extras
 
 
 def _attempt(extras: Extras, what: str, step) -> None:
-    from dossier.problems import InputError
-
     try:
         step()
-    except InputError:
-        raise
-    except Exception as error:  # another module's bug must not hide the rest of the site
+    except Exception as error:  # a drawing or PDF bug must not hide the rest of the site
         extras.failures.append(f"the {what} could not be made: {type(error).__name__}: {error}")
 
 
 def _schematics(extras: Extras, record, findings, cache) -> None:
-    draw = optional("dossier.drawing.schematics", "draw")
-    if draw is not None:
-        result = draw(record, findings, cache=cache)
-        extras.figures.extend(result.figures)
-        extras.notes.extend(result.notes)
-        return
-    figures = optional("dossier.drawing.schematics", "figures")
-    if figures is not None:
-        _sort_items(extras, figures(record, findings))
+    result = draw(record, findings, cache=cache)
+    extras.figures.extend(result.figures)
+    extras.notes.extend(result.notes)
 
 
-def _charge_chart(extras: Extras, record) -> None:
-    figures = optional("dossier.drawing.charge_chart", "figures")
-    if figures is not None:
-        _sort_items(extras, figures(record))
+def _checklist(extras: Extras, loaded, findings, print_links: dict[str, str], pdf_cache) -> None:
+    """The checklist page, its printable sheets and PDFs, and the commissioning record (an invalid one stops the build)."""
+    commissioning = load_for_revision(loaded, findings)
+    extras.commissioning = commissioning_state(loaded, findings, commissioning)
+    extras.sheets = {paper: checklist_html(loaded, findings, paper, commissioning) for paper in print_links}
+    if pdf_cache is not None:
+        _attempt(extras, "checklist PDF", lambda: extras.pdfs.update({p: pdf_cache.pdf_of(html) for p, html in extras.sheets.items()}))
+    extras.checklist = checklist_markdown(loaded, findings, commissioning, print_links=_print_labels(print_links, extras.pdfs) or None)
 
 
-def _sort_items(extras: Extras, items) -> None:
-    for item in items:
-        (extras.figures if isinstance(item, Figure) else extras.notes).append(item)
+def _print_labels(print_links: dict[str, str], pdfs: dict[str, bytes]) -> dict[str, str]:
+    """Link text -> href for each printable page, and for its PDF where one was written."""
+    labels = {}
+    for paper, href in print_links.items():
+        name = PAPER_LABELS.get(paper, paper)
+        labels[f"{name} (page)"] = href
+        if paper in pdfs:
+            labels[f"{name} (PDF)"] = pdf_href(href)
+    return labels
 
 
-def _checklist(extras: Extras, loaded, findings, build_dir: Path, print_links) -> None:
-    markdown = optional("dossier.checklist.page", "checklist_markdown")
-    if markdown is None:
-        return
-    commissioning = _commissioning(loaded, findings, build_dir)
-    sheet = optional("dossier.checklist.page", "checklist_html")
-    if sheet is not None and print_links:
-        extras.sheets = {paper: sheet(loaded, findings, paper, commissioning) for paper in print_links}
-        labels = {PAPER_LABELS.get(paper, paper): href for paper, href in print_links.items()}
-        extras.checklist = markdown(loaded, findings, commissioning, print_links=labels)
-    else:
-        extras.checklist = markdown(loaded, findings, commissioning)
-
-
-def _commissioning(loaded, findings, build_dir: Path):
-    """The revision's commissioning record, when it has one; an invalid one stops the build like a bad record."""
-    find = optional("dossier.checklist.load", "commissioning_path")
-    load = optional("dossier.checklist.load", "load_commissioning")
-    checklist_of = optional("dossier.checklist.sheet", "build_checklist")
-    if not (find and load and checklist_of):
-        return None
-    path = find(build_dir, loaded.record.revision)
-    if path is None:
-        return None
-    shown = f"{build_dir.name}/{path.name}"
-    return load(path, checklist_of(loaded.record, findings), shown_as=shown)
+def pdf_href(sheet_href: str) -> str:
+    return sheet_href.removesuffix(".html") + ".pdf"
 
 
 def _safe_figures(extras: Extras) -> list[Figure]:

@@ -20,6 +20,7 @@ from dossier.findings import Verdict
 from dossier.record.identity import STATUS_TITLES
 from dossier.site import layout
 from dossier.site.collect import CHECKLIST_SHEETS, Archive, Build
+from dossier.site.extras import pdf_href
 from dossier.site.env import Md, render
 from dossier.site.views import IndexRow, RevisionView, change_steps, index_row, newest_first, revision_view
 from dossier.templates import templates_dir
@@ -62,6 +63,9 @@ class TreeWriter:
     def text(self, path: str, content: str) -> None:
         target = self._target(path)
         target.write_text(content, encoding="utf-8", newline="\n")
+
+    def binary(self, path: str, content: bytes) -> None:
+        self._target(path).write_bytes(content)
 
     def copy(self, source: Path, path: str) -> None:
         shutil.copyfile(source, self._target(path))
@@ -149,6 +153,8 @@ def _write_revision(writer: TreeWriter, view: RevisionView) -> None:
         writer.text(figure.path, figure.svg)
     for paper, sheet in view.revision.extras.sheets.items():
         writer.text(f"{view.root}/{CHECKLIST_SHEETS[paper]}", sheet)
+    for paper, pdf in view.revision.extras.pdfs.items():
+        writer.binary(f"{view.root}/{pdf_href(CHECKLIST_SHEETS[paper])}", pdf)
 
 
 def _carries_caution(markdown: str | None) -> bool:

@@ -16,6 +16,7 @@ from dossier.record.identity import STATUS_TITLES
 from dossier.site import layout
 from dossier.site.changes import finding_changes, record_changes
 from dossier.site.collect import Archive, Build, Revision
+from dossier.site.env import Md
 from dossier.site.extras import is_active_svg
 from dossier.site.hazards import hazards
 from dossier.source import dotted
@@ -103,7 +104,13 @@ class RevisionView:
 
     @property
     def status_title(self) -> str:
-        return STATUS_TITLES.get(self.record.status, self.record.status)
+        return shown_status_title(self.revision)
+
+    @property
+    def commissioning_text(self) -> str:
+        """Who powered this revision up and when, with the outcome; '' without a commissioning record."""
+        state = self.revision.extras.commissioning
+        return Md(state.overview_markdown()) if state is not None else Md("")  # user text in it is escaped already
 
     @property
     def checklist(self) -> str | None:
@@ -184,11 +191,19 @@ def index_row(build: Build) -> IndexRow:
         path=layout.page(layout.build_root(build.id), "index"),
         letter=build.current.letter,
         status=record.status,
-        status_title=STATUS_TITLES.get(record.status, record.status),
+        status_title=shown_status_title(build.current),
         date=record.date.isoformat(),
         tally=counts(build.current.findings),
         has_mains=record.has_mains,
     )
+
+
+def shown_status_title(revision: Revision) -> str:
+    """The record's status, advanced to 'commissioned' when its commissioning record passed."""
+    state = revision.extras.commissioning
+    if state is not None:
+        return state.status.title
+    return STATUS_TITLES.get(revision.record.status, revision.record.status)
 
 
 def _pages(root: str, revision: Revision) -> dict[str, str]:

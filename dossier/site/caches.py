@@ -1,0 +1,33 @@
+"""Work kept between builds: finished drawings and checklist PDFs, by the hash of what they are made from."""
+
+from __future__ import annotations
+
+import os
+from dataclasses import dataclass
+from pathlib import Path
+
+from dossier.checklist.pdf import PdfCache
+from dossier.drawing.cache import DrawingCache
+
+
+@dataclass(frozen=True)
+class Caches:
+    drawings: DrawingCache | None = None
+    pdfs: PdfCache | None = None  # None: the build writes no PDFs
+
+    @classmethod
+    def in_folder(cls, folder: Path) -> "Caches":
+        return cls(DrawingCache(Path(folder) / "drawings"), PdfCache(Path(folder) / "pdfs"))
+
+
+def user_cache_folder() -> Path:
+    """The user's cache folder (never the archive): $XDG_CACHE_HOME/dossier or ~/.cache/dossier."""
+    return Path(os.environ.get("XDG_CACHE_HOME") or Path.home() / ".cache") / "dossier"
+
+
+def user_caches(use_cache: bool = True, pdfs: bool = True) -> Caches:
+    """With use_cache false, every drawing and PDF is made again and nothing is kept."""
+    if use_cache:
+        caches = Caches.in_folder(user_cache_folder())
+        return caches if pdfs else Caches(caches.drawings, None)
+    return Caches(None, PdfCache(None) if pdfs else None)
