@@ -112,10 +112,10 @@ def cli_markdown() -> str:
     from dossier.cli import main
 
     parts = [CLI_HEADER]
-    context = click.Context(main, info_name="dossier")
+    context = click.Context(main, info_name="dossier", help_option_names=["-h", "--help"])
     for name in sorted(main.list_commands(context)):
         command = main.get_command(context, name)
-        sub = click.Context(command, info_name=f"dossier {name}", terminal_width=100, max_content_width=100)
+        sub = click.Context(command, info_name=name, parent=context, terminal_width=100, max_content_width=100)
         parts.append(f"## dossier {name}\n\n```text\n{command.get_help(sub).strip()}\n```\n")
     return "\n".join(parts)
 

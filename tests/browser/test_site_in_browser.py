@@ -48,7 +48,7 @@ def test_schematics_are_visible(demo_site, watched_page):
         assert figure.evaluate("img => img.complete && img.naturalWidth > 0")
 
 
-@pytest.mark.parametrize("query, expected", [("RT1", "sw-charger-12v"), ("rotator", "rotator-control"), ("binding", "bench-psu-13v8")])
+@pytest.mark.parametrize("query, expected", [("RT1", "sw-charger-12v"), ("rotator", "rotator-control"), ("notebook", "sw-charger-12v")])
 def test_search_finds_a_build_by_designator_title_or_part(served_site, watched_page, query, expected):
     watch = watched_page((served_site, "data:", "blob:"))
     watch.page.goto(f"{served_site}/index.html", wait_until="load")
