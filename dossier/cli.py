@@ -84,9 +84,10 @@ def new(build_id: str, archive: Path) -> None:
 @click.option("-o", "--output", type=click.Path(path_type=Path), help="Folder for the site; default: 'site' beside the archive folder. Replaced whole on success.")
 @click.option("--pages-only", is_flag=True, help="Write only the Markdown page tree (e.g. into another MkDocs project's docs), not the rendered site.")
 @click.option("--no-cache", is_flag=True, help="Draw every schematic and render every PDF again instead of reusing unchanged ones.")
+@click.option("-j", "--jobs", type=click.IntRange(1, 64), help="Processes for reviewing and drawing builds; default: every core for archives of 8 builds or more.")
 @click.option("--no-pdf", is_flag=True, help="Skip the checklist PDFs (quicker previews); the printable pages are still written.")
 @click.option("-q", "--quiet", is_flag=True, help="No progress bar on long builds.")
-def build(archive: Path, output: Path | None, pages_only: bool, no_cache: bool, no_pdf: bool, quiet: bool) -> None:
+def build(archive: Path, output: Path | None, pages_only: bool, no_cache: bool, no_pdf: bool, quiet: bool, jobs: int | None) -> None:
     """Build ARCHIVE into a static site that works offline, from a folder or any web server.
 
     Exit status: 0 built, 1 MkDocs failed (the previous site is untouched), 2 a record is invalid,
@@ -94,7 +95,7 @@ def build(archive: Path, output: Path | None, pages_only: bool, no_cache: bool, 
     """
     from dossier.commands.build import run_build
 
-    sys.exit(run_build(archive, output, pages_only, quiet, not no_cache, not no_pdf))
+    sys.exit(run_build(archive, output, pages_only, quiet, not no_cache, not no_pdf, jobs))
 
 
 @main.command()

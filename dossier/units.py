@@ -58,6 +58,7 @@ def registry() -> pint.UnitRegistry:
     """The registry; built once and cached on disk so start-up stays quick."""
     reg = pint.UnitRegistry(cache_folder=":auto:", autoconvert_offset_to_baseunit=True)
     reg.formatter.default_format = "~P"
+    pint.set_application_registry(reg)  # quantities unpickled from a worker process land in this registry too
     return reg
 
 

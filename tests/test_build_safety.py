@@ -73,3 +73,21 @@ def test_an_interrupted_build_leaves_the_previous_site_whole(archive_and_site, t
     clean = tmp_path / "clean"
     subprocess.run(build_command(changed, clean), check=True, capture_output=True)
     assert now == tree_digest(clean), "the site is neither the previous one nor a complete new one"
+
+
+def test_collecting_on_two_cores_gives_the_same_pages_as_one(tmp_path):
+    from dossier.commands.build import build_site
+    from dossier.site.caches import Caches
+
+    caches = Caches.in_folder(tmp_path / "caches")
+    build_site(DEMO, tmp_path / "one", pages_only=True, cache=caches, jobs=1)
+    build_site(DEMO, tmp_path / "two", pages_only=True, cache=caches, jobs=2)
+    assert tree_digest(tmp_path / "two") == tree_digest(tmp_path / "one")
+
+
+def test_workers_pay_only_for_larger_archives():
+    from dossier.site.parallel import MIN_BUILDS_FOR_WORKERS, worker_count
+
+    assert worker_count(MIN_BUILDS_FOR_WORKERS - 1) == 1
+    assert worker_count(MIN_BUILDS_FOR_WORKERS) == min(os.cpu_count() or 1, MIN_BUILDS_FOR_WORKERS)
+    assert worker_count(3, jobs=2) == 2

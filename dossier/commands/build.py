@@ -43,7 +43,7 @@ def default_output(archive: Path) -> Path:
     return archive.resolve().parent / "site"
 
 
-def build_site(archive: Path, output: Path, *, pages_only: bool = False, calcs=None, cache=None, progress: Callable | None = None, announce: Callable[[str], None] | None = None) -> Built:
+def build_site(archive: Path, output: Path, *, pages_only: bool = False, calcs=None, cache=None, progress: Callable | None = None, announce: Callable[[str], None] | None = None, jobs: int | None = None) -> Built:
     """Build the site (or only its page tree) into output; raises InputError, OutputRefused or RenderError.
 
     Builds are reviewed and written one at a time into a work folder beside the output; every problem in
@@ -53,7 +53,7 @@ def build_site(archive: Path, output: Path, *, pages_only: bool = False, calcs=N
     check_output(output, archive)
     opened, problems = open_archive(archive, calcs)
     with staging(output) as work:
-        builds = _reported(each_build(opened, problems, cache), progress)
+        builds = _reported(each_build(opened, problems, cache, jobs), progress)
         tree = write_tree(opened, work / DOCS, builds)
         if problems:
             raise InputError(problems)
@@ -77,7 +77,7 @@ def _rendered(opened: Archive, tree: TreeSummary, work: Path, announce) -> Path:
     return work / SITE
 
 
-def run_build(archive: Path, output: Path | None, pages_only: bool, quiet: bool, use_cache: bool, pdfs: bool = True) -> int:
+def run_build(archive: Path, output: Path | None, pages_only: bool, quiet: bool, use_cache: bool, pdfs: bool = True, jobs: int | None = None) -> int:
     """The command: messages on standard error, the outcome on standard output, an exit status."""
     from dossier.plugins import PluginError
 
@@ -86,7 +86,7 @@ def run_build(archive: Path, output: Path | None, pages_only: bool, quiet: bool,
     show_progress = not quiet and total >= PROGRESS_FROM
     try:
         with _progress(total, show_progress) as advance:
-            built = build_site(archive, target, pages_only=pages_only, cache=user_caches(use_cache, pdfs), progress=advance, announce=_announcer(show_progress))
+            built = build_site(archive, target, pages_only=pages_only, cache=user_caches(use_cache, pdfs), progress=advance, announce=_announcer(show_progress), jobs=jobs)
     except (InputError, OutputRefused, PluginError, RenderError) as error:
         return _failed(error, target)
     for warning in built.warnings:

@@ -19,6 +19,7 @@ from dossier.record.load import LoadedRecord
 from dossier.review import review
 from dossier.site.caches import Caches
 from dossier.site.extras import Extras, revision_extras
+from dossier.site.parallel import collect_in_workers, worker_count
 from dossier.site.settings import ArchiveSettings, load_settings
 
 CHECKLIST_SHEETS = {"a4": "checklist-a4.html", "letter": "checklist-letter.html"}
@@ -85,10 +86,17 @@ def open_archive(root: Path, calcs: list[Calc] | None = None) -> tuple[Archive, 
     return Archive(root, settings, calcs if calcs is not None else load_calcs(), ledger), problems
 
 
-def each_build(archive: Archive, problems: list[Problem], cache=None) -> Iterator[Build]:
-    """Builds one at a time, so a large archive need not be held in memory; problems are added to the list."""
-    for folder in build_dirs(archive.root):
-        build = _collect_build(archive, folder, cache, problems)
+def each_build(archive: Archive, problems: list[Problem], cache=None, jobs: int | None = None) -> Iterator[Build]:
+    """Builds in archive order, a few at a time so a large archive is never all in memory; problems are added
+    to the list. Large archives are collected on every core (see dossier.site.parallel)."""
+    folders = build_dirs(archive.root)
+    workers = worker_count(len(folders), jobs)
+    if workers == 1:
+        results = (collect_with_problems(archive, folder, cache) for folder in folders)
+    else:
+        results = collect_in_workers(archive, folders, cache, workers, collect_with_problems)
+    for build, found in results:
+        problems.extend(found)
         if build is not None:
             yield build
 
@@ -99,6 +107,11 @@ def _gathered(problems: list[Problem], step, fallback):
     except InputError as error:
         problems.extend(error.problems)
         return fallback
+
+
+def collect_with_problems(archive: Archive, folder: Path, cache) -> tuple[Build | None, list[Problem]]:
+    problems: list[Problem] = []
+    return _collect_build(archive, folder, cache, problems), problems
 
 
 def _collect_build(archive: Archive, folder: Path, cache, problems: list[Problem]) -> Build | None:
