@@ -91,3 +91,12 @@ def test_workers_pay_only_for_larger_archives():
     assert worker_count(MIN_BUILDS_FOR_WORKERS - 1) == 1
     assert worker_count(MIN_BUILDS_FOR_WORKERS) == min(os.cpu_count() or 1, MIN_BUILDS_FOR_WORKERS)
     assert worker_count(3, jobs=2) == 2
+
+
+def test_a_relative_output_folder_works(tmp_path, monkeypatch):
+    archive = shutil.copytree(DEMO, tmp_path / "archive")
+    monkeypatch.chdir(tmp_path)
+    result = subprocess.run([sys.executable, "-m", "dossier", "build", "archive", "-o", "out/site", "-q", "--no-pdf"], capture_output=True, text=True)
+    assert result.returncode == 0, result.stderr
+    assert (tmp_path / "out" / "site" / "index.html").exists()
+    assert archive.exists()

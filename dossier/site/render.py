@@ -54,6 +54,7 @@ def source_epoch(newest: datetime.date | None) -> int:
 
 
 def run_mkdocs(config: Path, epoch: int) -> None:
+    config = config.resolve()  # mkdocs runs in the config's folder; a relative path would point elsewhere
     command = [sys.executable, "-m", "mkdocs", "build", "--strict", "--clean", "--config-file", str(config)]
     environment = dict(os.environ, SOURCE_DATE_EPOCH=str(epoch), NO_MKDOCS_2_WARNING="1")
     result = subprocess.run(command, capture_output=True, text=True, env=environment, cwd=config.parent)
