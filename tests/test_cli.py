@@ -17,8 +17,25 @@ def run(*args):
 
 def test_check_on_a_clean_record_exits_0():
     result = run("check", DEMO / "sw-charger-12v" / "rev-C.yaml")
+    assert result.exit_code == 0, result.output
     assert "rev C" in result.output
     assert "Mains voltages can kill" in result.output
+
+
+def test_check_on_the_demo_archive_exits_1_because_rev_a_fails_on_purpose():
+    result = run("check", DEMO)
+    assert result.exit_code == 1
+    assert "FAIL  ISO-CLEARANCE" in result.output and "FAIL  PROT-INRUSH" in result.output
+
+
+def test_a_broken_commissioning_record_is_located(tmp_path):
+    build = shutil.copytree(DEMO / "sw-charger-12v", tmp_path / "sw-charger-12v")
+    path = build / "commissioning-C.yaml"
+    path.write_text(path.read_text(encoding="utf-8").replace("witness:", "witnes:", 1), encoding="utf-8")
+    result = run("check", build / "rev-C.yaml")
+    assert result.exit_code == 2
+    assert "commissioning-C.yaml:" in result.output and "witnes" in result.output
+    assert "Traceback" not in result.output
 
 
 def test_check_on_an_invalid_record_exits_2_with_located_problems(tmp_path):
