@@ -138,7 +138,7 @@ def one_size(builds: int, revisions: int, with_full_nav: bool) -> dict:
         started = time.process_time()
         opened, problems = open_archive(archive)
         reviewing = Stopwatch()
-        tree = write_tree(opened, work / "pages", reviewing.timed(each_build(opened, problems)))
+        tree = write_tree(opened, work / "pages", reviewing.timed(each_build(opened, problems, jobs=1)))
         assert not problems, problems
         collect_s = reviewing.spent
         generate_s = time.process_time() - started - collect_s
@@ -158,13 +158,23 @@ def one_size(builds: int, revisions: int, with_full_nav: bool) -> dict:
             wide = work / "full-nav.yml"
             wide.write_text(full_nav(config.read_text(encoding="utf-8"), work / "pages").replace("site_dir: site", "site_dir: full-site"), encoding="utf-8")
             full_s = mkdocs_build(wide)
+        serial_s, parallel_s = collect_walls(archive, work)
         warm_s, changed_s = rebuild_times(archive, work)
     own_kb = resource.getrusage(resource.RUSAGE_SELF).ru_maxrss
     mkdocs_kb = resource.getrusage(resource.RUSAGE_CHILDREN).ru_maxrss  # the largest MkDocs run
     return {
         "builds": builds, "revisions": revisions, "pages": pages, "collect_s": collect_s, "generate_s": generate_s,
-        "render_s": render_s, "plain_s": plain_s, "full_nav_s": full_s, "warm_s": warm_s, "changed_s": changed_s, "peak_mb": own_kb / 1024, "mkdocs_peak_mb": mkdocs_kb / 1024, "wall_s": wall_s,
+        "render_s": render_s, "plain_s": plain_s, "full_nav_s": full_s, "warm_s": warm_s, "changed_s": changed_s, "serial_s": serial_s, "parallel_s": parallel_s, "peak_mb": own_kb / 1024, "mkdocs_peak_mb": mkdocs_kb / 1024, "wall_s": wall_s,
     }
+
+
+def collect_walls(archive: Path, work: Path) -> tuple[float, float]:
+    """Wall seconds of writing the page tree (no drawing cache, no render): one process, then every core."""
+    from dossier.commands.build import build_site
+
+    serial = _timed(lambda: build_site(archive, work / "tree-1", pages_only=True, jobs=1))
+    parallel = _timed(lambda: build_site(archive, work / "tree-n", pages_only=True))
+    return serial, parallel
 
 
 def rebuild_times(archive: Path, work: Path) -> tuple[float, float]:
@@ -194,13 +204,13 @@ def row(result: dict) -> str:
     full_text = f"{full:8.1f} {1000 * full / result['pages']:9.1f}" if full else f"{'-':>8} {'-':>9}"
     return (
         f"{result['builds']:6d} {result['pages']:6d} {result['collect_s']:8.1f} {result['generate_s']:8.1f} {result['render_s']:8.1f} "
-        f"{total / result['builds']:8.2f} {per_page:9.1f} {result['plain_s']:8.1f} {result['render_s'] / result['plain_s']:6.2f} {full_text} {result['peak_mb']:8.0f} {result['mkdocs_peak_mb']:8.0f} {result['wall_s']:8.1f} {result['warm_s']:8.1f} {result['changed_s']:8.1f}"
+        f"{total / result['builds']:8.2f} {per_page:9.1f} {result['plain_s']:8.1f} {result['render_s'] / result['plain_s']:6.2f} {full_text} {result['peak_mb']:8.0f} {result['mkdocs_peak_mb']:8.0f} {result['wall_s']:8.1f} {result['warm_s']:8.1f} {result['changed_s']:8.1f} {result['serial_s']:8.1f} {result['parallel_s']:8.1f}"
     )
 
 
 HEADER = (
     f"{'builds':>6} {'pages':>6} {'collect':>8} {'generate':>8} {'render':>8} {'s/build':>8} {'ms/page':>9} {'plain':>8} {'ratio':>6} "
-    f"{'fullnav':>8} {'ms/page':>9} {'peak MB':>8} {'MkDocs':>8} {'wall':>8} {'warm':>8} {'1 edit':>8}"
+    f"{'fullnav':>8} {'ms/page':>9} {'peak MB':>8} {'MkDocs':>8} {'wall':>8} {'warm':>8} {'1 edit':>8} {'tree 1p':>8} {'tree Np':>8}"
 )
 
 
