@@ -20,12 +20,18 @@ class CommissioningState:
 
     def overview_markdown(self) -> str:
         """One paragraph for the revision's overview page; '' when it has no commissioning record."""
+        return self._sentence(lambda value: f"**{markup.text(value)}**")
+
+    def overview_text(self) -> str:
+        """The same paragraph as plain text, for the terminal."""
+        return self._sentence(str)
+
+    def _sentence(self, show) -> str:
         if self.commissioning is None:
             return ""
         entry = self.commissioning.entry
-        line = (f"Powered up on **{entry.date.isoformat()}** by **{markup.text(entry.tested_by)}**, "
-                f"witnessed by **{markup.text(entry.witness)}**.")
-        return f"{line} {self._result_text()} Status shown: **{markup.text(self.status.title)}**."
+        line = f"Powered up on {show(entry.date.isoformat())} by {show(entry.tested_by)}, witnessed by {show(entry.witness)}."
+        return f"{line} {self._result_text()} Status shown: {show(self.status.title)}."
 
     def _result_text(self) -> str:
         summary = self.summary

@@ -71,7 +71,7 @@ def _check_commissioning(loaded, findings, outcome: Outcome) -> None:
         outcome.blocks.extend(text_report.problem_block(error.problems))
         return
     if commissioning is not None:
-        outcome.blocks.append("  commissioning: " + commissioning_state(loaded, findings, commissioning).overview_markdown().replace("**", ""))
+        outcome.blocks.append("  commissioning: " + commissioning_state(loaded, findings, commissioning).overview_text())
 
 
 def render(outcome: Outcome, as_json: bool) -> str:
