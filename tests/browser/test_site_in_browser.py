@@ -67,3 +67,15 @@ def test_search_finds_a_build_by_designator_title_or_part(served_site, watched_p
     else:
         pytest.fail(f"search for {query!r} never listed {expected}")
     assert results.count() >= 1
+
+
+def test_attached_photos_show_and_datasheets_link(demo_site, watched_page):
+    # demo: sw-charger-12v rev C attaches photos/t1-wound.png and sheets/t1-winding-sheet.pdf
+    watch = watched_page(LOCAL_FILE)
+    watch.page.goto((demo_site / "builds" / "sw-charger-12v" / "index.html").as_uri(), wait_until="load")
+    photo = watch.page.locator("article img[src$='t1-wound.png']")
+    photo.scroll_into_view_if_needed()
+    assert photo.evaluate("img => img.complete && img.naturalWidth === 640")
+    sheet = watch.page.locator("article a[href$='t1-winding-sheet.pdf']")
+    assert sheet.count() == 1
+    assert (demo_site / "builds" / "sw-charger-12v" / sheet.get_attribute("href")).read_bytes().startswith(b"%PDF")
