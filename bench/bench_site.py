@@ -57,6 +57,7 @@ def synthetic_archive(root: Path, builds: int, revisions: int) -> Path:
 def _variant(base: dict, build_id: str, number: int, index: int, letter: str) -> dict:
     data = json.loads(json.dumps(base, default=str))
     data.update(id=build_id, revision=letter, title=f"Synthetic charger {number} for the benchmark", date=f"2026-0{1 + index % 9}-1{number % 10}")
+    data.pop("attachments", None)  # the demo's attached files are not copied into the synthetic archive
     data["notes"] = f"Synthetic build {number}, revision {letter}: notes text to search for, word{number}x{index}."
     data["stages"][0]["parts"][0]["value"] = f"IEC inlet {number}-{index}"
     data["barriers"][0]["clearance"] = f"{3.0 + 0.1 * index + 0.001 * number:.3f} mm"
