@@ -7,6 +7,7 @@ The number of cases tried is set by EXAMPLES below (three strategies, so 3 x EXA
 from __future__ import annotations
 
 import os
+import shutil
 import string
 from pathlib import Path
 
@@ -32,9 +33,19 @@ junk = st.one_of(
 )
 
 
-def check_mutant(tmp: Path, text: str) -> None:
+ATTACHED = ("photos", "sheets")  # the folders rev C's attachments live in
+
+
+def demo_build_in(tmp: Path) -> Path:
     build = tmp / "sw-charger-12v"
     build.mkdir(parents=True, exist_ok=True)
+    for folder in ATTACHED:
+        shutil.copytree(DEMO / "sw-charger-12v" / folder, build / folder, dirs_exist_ok=True)
+    return build
+
+
+def check_mutant(tmp: Path, text: str) -> None:
+    build = demo_build_in(tmp)
     path = build / "rev-C.yaml"
     path.write_text(text, encoding="utf-8")
     try:
@@ -44,6 +55,14 @@ def check_mutant(tmp: Path, text: str) -> None:
         return
     crashed = [f for f in review(loaded.record, CALCS) if f.code == "CALC-ERROR"]
     assert not crashed, crashed[0].explanation
+
+
+def test_the_unmutated_record_loads_and_runs_every_calc(tmp_path):
+    """Guards the fuzzing itself: if the untouched record did not load, every mutant would 'pass'."""
+    build = demo_build_in(tmp_path)
+    (build / "rev-C.yaml").write_text(SOURCE, encoding="utf-8")
+    loaded = load_revision(RevisionFile("sw-charger-12v", "C", build / "rev-C.yaml"))
+    assert len(review(loaded.record, CALCS)) > 50
 
 
 @FUZZ
@@ -102,9 +121,7 @@ def test_value_replacements(tmp_path_factory, path, value):
 def test_byte_splices(tmp_path_factory, offset, chunk):
     raw = SOURCE.encode("utf-8")
     mutant = raw[:offset] + chunk + raw[offset:]
-    tmp = tmp_path_factory.mktemp("m")
-    build = tmp / "sw-charger-12v"
-    build.mkdir()
+    build = demo_build_in(tmp_path_factory.mktemp("m"))
     (build / "rev-C.yaml").write_bytes(mutant)
     try:
         load_revision(RevisionFile("sw-charger-12v", "C", build / "rev-C.yaml"))

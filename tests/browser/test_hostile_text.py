@@ -36,6 +36,7 @@ def hostile_record(source: dict, text: str) -> dict:
     stages[0]["parts"] = [dict(part, value=f"{part.get('value', '')} {text}", note=text) for part in stages[0]["parts"]]
     record["stages"] = stages
     record["barriers"] = [dict(b, name=f"barrier {text}") for b in record["barriers"]]
+    record["attachments"] = [dict(a, caption=f"Caption {text}") for a in record.get("attachments", [])]
     return record
 
 
@@ -45,7 +46,10 @@ def hostile_site(tmp_path_factory) -> Path:
     build = archive / "sw-charger-12v"
     build.mkdir(parents=True)
     shutil.copy(ROOT / "demo" / "archive" / "archive.yaml", archive / "archive.yaml")
-    source = yaml.safe_load((ROOT / "demo" / "archive" / "sw-charger-12v" / "rev-C.yaml").read_text(encoding="utf-8"))
+    demo_build = ROOT / "demo" / "archive" / "sw-charger-12v"
+    for folder in ("photos", "sheets"):  # the files rev C attaches
+        shutil.copytree(demo_build / folder, build / folder)
+    source = yaml.safe_load((demo_build / "rev-C.yaml").read_text(encoding="utf-8"))
     text = " | ".join(HOSTILE)
     (build / "rev-C.yaml").write_text(yaml.safe_dump(hostile_record(source, text), sort_keys=False, allow_unicode=True), encoding="utf-8")
     return build_site(archive, archive.parent / "site")
