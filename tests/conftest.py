@@ -2,6 +2,7 @@
 
 from __future__ import annotations
 
+from dataclasses import dataclass
 from pathlib import Path
 
 import pytest
@@ -27,3 +28,17 @@ def load_demo(build: str, revision: str = "A"):
 @pytest.fixture(scope="session")
 def calcs():
     return load_calcs()
+
+
+@dataclass
+class FakeEntryPoint:
+    """Stands in for an importlib.metadata entry point: loads its target, or raises its error."""
+
+    name: str
+    target: object = None
+    error: Exception | None = None
+
+    def load(self):
+        if self.error:
+            raise self.error
+        return self.target

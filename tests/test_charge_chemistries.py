@@ -2,28 +2,17 @@
 
 from __future__ import annotations
 
-from dataclasses import dataclass, replace
+from dataclasses import replace
 
 import pytest
 from charge_records import charger, findings_by_code
+from conftest import FakeEntryPoint
 
 from dossier.findings import Verdict, common_practice
 from dossier.standards import chemistries
 from dossier.standards.chemistries import GROUP, ChemistryError, CurveModel, Window, load_chemistries
 from dossier.standards.lead_acid import AGM
 from dossier.units import Q_
-
-
-@dataclass
-class FakeEntryPoint:
-    name: str
-    target: object = None
-    error: Exception | None = None
-
-    def load(self):
-        if self.error:
-            raise self.error
-        return self.target
 
 
 TEST_SOURCE = common_practice("invented test chemistry, not real data")

@@ -2,25 +2,12 @@
 
 from __future__ import annotations
 
-from dataclasses import dataclass
-
 import pytest
 
+from conftest import FakeEntryPoint
 from dossier.findings import Finding, Verdict
 from dossier.plugins import Calc, PluginError, load_calcs
 from dossier.review import review
-
-
-@dataclass
-class FakeEntryPoint:
-    name: str
-    target: object = None
-    error: Exception | None = None
-
-    def load(self):
-        if self.error:
-            raise self.error
-        return self.target
 
 
 def good_run(record):
