@@ -93,3 +93,13 @@ def test_diff_command_prints_the_same(calcs):
 def test_diff_command_refuses_a_folder_or_missing_file(tmp_path):
     result = CliRunner().invoke(main, ["diff", str(DEMO / "sw-charger-12v"), str(tmp_path / "rev-Z.yaml")])
     assert result.exit_code == 2 and "one record file" in result.output and "Traceback" not in result.output
+
+
+def test_diff_of_mains_revisions_carries_the_caution():
+    from dossier.caution import MAINS_CAUTION
+    from dossier.commands.diff import diff_text
+    from conftest import DEMO
+
+    build = DEMO / "sw-charger-12v"
+    text = diff_text(build / "rev-A.yaml", build / "rev-B.yaml")
+    assert text.endswith(f"Caution: {MAINS_CAUTION}")

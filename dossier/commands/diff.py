@@ -5,6 +5,7 @@ from __future__ import annotations
 from pathlib import Path
 
 from dossier.archive import expand, load_revision
+from dossier.caution import MAINS_CAUTION
 from dossier.plugins import load_calcs
 from dossier.problems import InputError, Location, Problem
 from dossier.review import review
@@ -22,6 +23,8 @@ def diff_text(old_path: Path, new_path: Path, calcs=None) -> str:
     lines += ["", "Findings whose verdict or value changed:"]
     changes = finding_changes(review(old.record, calcs), review(new.record, calcs))
     lines += [INDENT + change.text for change in changes] or [INDENT + "none"]
+    if old.record.has_mains or new.record.has_mains:
+        lines += ["", f"Caution: {MAINS_CAUTION}"]
     return "\n".join(lines)
 
 
