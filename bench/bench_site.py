@@ -1,6 +1,6 @@
 """How `dossier build` scales: synthetic archives of increasing size, time per build and peak memory.
 
-Run: python bench/bench_site.py [--sizes 10,25,50,100] [--revisions 2] [--full-nav-up-to 100]
+Run: python bench/bench_site.py [--sizes 10,25,50,100] [--revisions 2] [--full-nav-up-to 100] [--kept-only]
 
 For each size N it writes an archive of N builds (each with --revisions revisions, made from the demo
 charger with its own id, title and part values so no drawing is shared), then, in a fresh process:
@@ -11,6 +11,15 @@ charger with its own id, title and part values so no drawing is shared), then, i
   plain      MkDocs alone on the same number of plain pages of the same average size, same theme
   full nav   the same tree rendered with a sidebar listing every page of every build (the design dossier
              avoids), to show what such a sidebar costs as the archive grows
+
+Then the rebuilds, in wall seconds of `dossier build` with a filled drawing cache:
+
+  warm       nothing changed, the site rendered again anyway (what `--no-cache` forces, minus the drawing)
+  kept       nothing changed: the page tree matches the one the site was rendered from, so the site is kept
+  1 edit     one record changed: its drawings are drawn again and the whole site is rendered again
+  tree 1p/Np the page tree alone (collect + generate, no cache), in one process and on every core
+
+--kept-only times only the build that fills the cache and the rebuild that keeps the site.
 
 It prints one row per size, in CPU seconds: seconds per build, milliseconds per rendered page, peak
 memory (the largest resident set of the dossier process, and of the largest MkDocs run) and render / plain,
@@ -160,12 +169,12 @@ def one_size(builds: int, revisions: int, with_full_nav: bool) -> dict:
             wide.write_text(full_nav(config.read_text(encoding="utf-8"), work / "pages").replace("site_dir: site", "site_dir: full-site"), encoding="utf-8")
             full_s = mkdocs_build(wide)
         serial_s, parallel_s = collect_walls(archive, work)
-        warm_s, changed_s = rebuild_times(archive, work)
+        rebuilds = rebuild_times(archive, work)
     own_kb = resource.getrusage(resource.RUSAGE_SELF).ru_maxrss
     mkdocs_kb = resource.getrusage(resource.RUSAGE_CHILDREN).ru_maxrss  # the largest MkDocs run
     return {
         "builds": builds, "revisions": revisions, "pages": pages, "collect_s": collect_s, "generate_s": generate_s,
-        "render_s": render_s, "plain_s": plain_s, "full_nav_s": full_s, "warm_s": warm_s, "changed_s": changed_s, "serial_s": serial_s, "parallel_s": parallel_s, "peak_mb": own_kb / 1024, "mkdocs_peak_mb": mkdocs_kb / 1024, "wall_s": wall_s,
+        "render_s": render_s, "plain_s": plain_s, "full_nav_s": full_s, **rebuilds, "serial_s": serial_s, "parallel_s": parallel_s, "peak_mb": own_kb / 1024, "mkdocs_peak_mb": mkdocs_kb / 1024, "wall_s": wall_s,
     }
 
 
@@ -178,18 +187,33 @@ def collect_walls(archive: Path, work: Path) -> tuple[float, float]:
     return serial, parallel
 
 
-def rebuild_times(archive: Path, work: Path) -> tuple[float, float]:
-    """Wall seconds of `dossier build` with a filled drawing cache: nothing changed, then one record changed."""
+def rebuild_times(archive: Path, work: Path, kept_only: bool = False) -> dict:
+    """Wall seconds of `dossier build` with a filled drawing cache: nothing changed (rendered again, and with
+    the rendered site kept), then one record changed. kept_only: only the build that keeps the site."""
     from dossier.commands.build import build_site
     from dossier.site.caches import Caches
 
     caches = Caches(Caches.in_folder(work / "caches").drawings, None)  # PDFs are timed on their own, see docs
-    build_site(archive, work / "out", cache=caches)  # fills the cache
-    warm_s = _timed(lambda: build_site(archive, work / "out", cache=caches))
+    build = lambda reuse=True: build_site(archive, work / "out", cache=caches, reuse=reuse)  # noqa: E731
+    times = {"fill_s": _timed(build)}
+    kept = build_site(archive, work / "out", cache=caches)
+    assert not kept.replaced, "an unchanged archive must keep its rendered site"
+    times["kept_s"] = kept.seconds
+    if kept_only:
+        return times
+    times["warm_s"] = _timed(lambda: build(reuse=False))
     record = sorted(archive.glob("*/rev-A.yaml"))[0]
     record.write_text(record.read_text(encoding="utf-8").replace("Synthetic charger", "Edited synthetic charger", 1), encoding="utf-8")
-    changed_s = _timed(lambda: build_site(archive, work / "out", cache=caches))
-    return warm_s, changed_s
+    times["changed_s"] = _timed(build)
+    return times
+
+
+def kept_size(builds: int, revisions: int) -> dict:
+    """Run in a fresh process: only the rebuilds of one archive size (the fill, and the build that keeps the site)."""
+    with tempfile.TemporaryDirectory(prefix="dossier-bench-") as scratch:
+        work = Path(scratch)
+        archive = synthetic_archive(work / "archive", builds, revisions)
+        return {"builds": builds, "revisions": revisions, **rebuild_times(archive, work, kept_only=True)}
 
 
 def _timed(step) -> float:
@@ -205,13 +229,13 @@ def row(result: dict) -> str:
     full_text = f"{full:8.1f} {1000 * full / result['pages']:9.1f}" if full else f"{'-':>8} {'-':>9}"
     return (
         f"{result['builds']:6d} {result['pages']:6d} {result['collect_s']:8.1f} {result['generate_s']:8.1f} {result['render_s']:8.1f} "
-        f"{total / result['builds']:8.2f} {per_page:9.1f} {result['plain_s']:8.1f} {result['render_s'] / result['plain_s']:6.2f} {full_text} {result['peak_mb']:8.0f} {result['mkdocs_peak_mb']:8.0f} {result['wall_s']:8.1f} {result['warm_s']:8.1f} {result['changed_s']:8.1f} {result['serial_s']:8.1f} {result['parallel_s']:8.1f}"
+        f"{total / result['builds']:8.2f} {per_page:9.1f} {result['plain_s']:8.1f} {result['render_s'] / result['plain_s']:6.2f} {full_text} {result['peak_mb']:8.0f} {result['mkdocs_peak_mb']:8.0f} {result['wall_s']:8.1f} {result['warm_s']:8.1f} {result['kept_s']:8.1f} {result['changed_s']:8.1f} {result['serial_s']:8.1f} {result['parallel_s']:8.1f}"
     )
 
 
 HEADER = (
     f"{'builds':>6} {'pages':>6} {'collect':>8} {'generate':>8} {'render':>8} {'s/build':>8} {'ms/page':>9} {'plain':>8} {'ratio':>6} "
-    f"{'fullnav':>8} {'ms/page':>9} {'peak MB':>8} {'MkDocs':>8} {'wall':>8} {'warm':>8} {'1 edit':>8} {'tree 1p':>8} {'tree Np':>8}"
+    f"{'fullnav':>8} {'ms/page':>9} {'peak MB':>8} {'MkDocs':>8} {'wall':>8} {'warm':>8} {'kept':>8} {'1 edit':>8} {'tree 1p':>8} {'tree Np':>8}"
 )
 
 
@@ -220,22 +244,44 @@ def main() -> None:
     parser.add_argument("--sizes", default="10,25,50,100", help="comma-separated numbers of builds")
     parser.add_argument("--revisions", type=int, default=2, help="revisions per build")
     parser.add_argument("--full-nav-up-to", type=int, default=100, help="also render with a full sidebar up to this many builds")
+    parser.add_argument("--kept-only", action="store_true", help="time only the rebuild that keeps an unchanged site (and the build before it)")
     parser.add_argument("--one", type=int, help=argparse.SUPPRESS)
     args = parser.parse_args()
     if args.one is not None:
-        print(json.dumps(one_size(args.one, args.revisions, args.one <= args.full_nav_up_to)))
+        measured = kept_size(args.one, args.revisions) if args.kept_only else one_size(args.one, args.revisions, args.one <= args.full_nav_up_to)
+        print(json.dumps(measured))
         return
+    if args.kept_only:
+        return kept_rows(args)
     print("CPU seconds unless marked (so other load on the machine does not count); wall = elapsed build time;")
     print("ratio = render / plain, MkDocs on dossier's pages against MkDocs alone on as many plain pages")
     print(HEADER)
     results = []
     for size in (int(s) for s in args.sizes.split(",")):
-        command = [sys.executable, __file__, "--one", str(size), "--revisions", str(args.revisions), "--full-nav-up-to", str(args.full_nav_up_to)]
-        output = subprocess.run(command, capture_output=True, text=True, check=True, env=ENVIRONMENT).stdout
-        results.append(json.loads(output.strip().splitlines()[-1]))
+        results.append(measure_in_child(size, args))
         print(row(results[-1]), flush=True)
-    RESULTS.parent.mkdir(parents=True, exist_ok=True)
-    RESULTS.write_text(json.dumps(results, indent=2), encoding="utf-8")
+    save(results, RESULTS)
+
+
+def kept_rows(args) -> None:
+    print("wall seconds of `dossier build` with a filled drawing cache: the build before, then nothing changed")
+    print(f"{'builds':>6} {'build':>8} {'kept':>8}")
+    results = []
+    for size in (int(s) for s in args.sizes.split(",")):
+        results.append(measure_in_child(size, args, "--kept-only"))
+        print(f"{size:6d} {results[-1]['fill_s']:8.1f} {results[-1]['kept_s']:8.1f}", flush=True)
+    save(results, RESULTS.with_name("site-kept.json"))
+
+
+def measure_in_child(size: int, args, *extra: str) -> dict:
+    command = [sys.executable, __file__, "--one", str(size), "--revisions", str(args.revisions), "--full-nav-up-to", str(args.full_nav_up_to), *extra]
+    output = subprocess.run(command, capture_output=True, text=True, check=True, env=ENVIRONMENT).stdout
+    return json.loads(output.strip().splitlines()[-1])
+
+
+def save(results: list, path: Path) -> None:
+    path.parent.mkdir(parents=True, exist_ok=True)
+    path.write_text(json.dumps(results, indent=2), encoding="utf-8")
 
 
 if __name__ == "__main__":

@@ -83,7 +83,7 @@ def new(build_id: str, archive: Path) -> None:
 @click.argument("archive", type=click.Path(path_type=Path, file_okay=False))
 @click.option("-o", "--output", type=click.Path(path_type=Path), help="Folder for the site; default: 'site' beside the archive folder. Replaced whole on success.")
 @click.option("--pages-only", is_flag=True, help="Write only the Markdown page tree (e.g. into another MkDocs project's docs), not the rendered site.")
-@click.option("--no-cache", is_flag=True, help="Draw every schematic and render every PDF again instead of reusing unchanged ones.")
+@click.option("--no-cache", is_flag=True, help="Draw every schematic, render every PDF and render the site again instead of reusing unchanged ones.")
 @click.option("-j", "--jobs", type=click.IntRange(1, 64), help="Processes for reviewing and drawing builds; default: every core for archives of 8 builds or more.")
 @click.option("--no-pdf", is_flag=True, help="Skip the checklist PDFs (quicker previews); the printable pages are still written.")
 @click.option("-q", "--quiet", is_flag=True, help="No progress bar on long builds.")

@@ -48,6 +48,11 @@ PROBLEM_TEXT = {
 }
 
 
+def counted(number: int, noun: str) -> str:
+    """'1 build', '3 builds': a count with its noun in the right number."""
+    return f"{number} {noun if number == 1 else noun + 's'}"
+
+
 def problem_line(problem: Problem) -> str:
     """One line per problem: 'file:line:col: key: what; expected X, found Y (hint)'."""
     head = f"{problem.location}: "

@@ -90,7 +90,7 @@ def test_a_failed_render_leaves_the_previous_site_untouched(site, tmp_path, monk
 
     monkeypatch.setattr("dossier.commands.build.run_mkdocs", broken)
     with pytest.raises(RenderError):
-        build_site(DEMO, output, cache=drawing_cache)
+        build_site(DEMO, output, cache=drawing_cache, reuse=False)
     assert _digest(output) == before
     assert [p.name for p in tmp_path.iterdir()] == ["site"], "no work folder may be left behind"
 
@@ -166,7 +166,7 @@ def test_build_command_reports_what_it_wrote(tmp_path, monkeypatch):
     monkeypatch.setattr("dossier.site.collect.load_calcs", lambda: [TEST_CALC])
     result = CliRunner().invoke(main, ["build", str(archive), "-o", str(tmp_path / "out"), "--pages-only", "--no-cache"])
     assert result.exit_code == 0, result.output
-    assert "wrote the page tree of 1 builds" in result.output
+    assert "wrote the page tree of 1 build" in result.output
     assert (tmp_path / "out" / "builds" / "amp" / "index.md").is_file()
 
 

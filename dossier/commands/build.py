@@ -21,6 +21,7 @@ from dossier.problems import InputError
 from dossier.site.atomic import OutputRefused, check_output, staging, swap_in
 from dossier.site.caches import user_caches
 from dossier.site.collect import Archive, Build, each_build, open_archive
+from dossier.site.fingerprint import marker_text, render_inputs, still_current
 from dossier.site.pages import TreeSummary, write_tree
 from dossier.site.render import RenderError, run_mkdocs, source_epoch, write_config
 
@@ -36,6 +37,7 @@ class Built:
     pages: int
     seconds: float
     warnings: list[str]
+    replaced: bool = True  # False: the site in place already was this rendering and was kept
 
 
 def default_output(archive: Path) -> Path:
@@ -43,11 +45,12 @@ def default_output(archive: Path) -> Path:
     return archive.resolve().parent / "site"
 
 
-def build_site(archive: Path, output: Path, *, pages_only: bool = False, calcs=None, cache=None, progress: Callable | None = None, announce: Callable[[str], None] | None = None, jobs: int | None = None) -> Built:
+def build_site(archive: Path, output: Path, *, pages_only: bool = False, calcs=None, cache=None, progress: Callable | None = None, announce: Callable[[str], None] | None = None, jobs: int | None = None, reuse: bool = True) -> Built:
     """Build the site (or only its page tree) into output; raises InputError, OutputRefused or RenderError.
 
     Builds are reviewed and written one at a time into a work folder beside the output; every problem in
-    every file is gathered, and if there is any, the work folder is dropped and nothing is replaced.
+    every file is gathered, and if there is any, the work folder is dropped and nothing is replaced. With
+    reuse, a site already rendered from the same page tree, and untouched since, is kept without rendering.
     """
     started = time.perf_counter()
     check_output(output, archive)
@@ -57,9 +60,10 @@ def build_site(archive: Path, output: Path, *, pages_only: bool = False, calcs=N
         tree = write_tree(opened, work / DOCS, builds)
         if problems:
             raise InputError(problems)
-        finished = work / DOCS if pages_only else _rendered(opened, tree, work, announce)
-        swap_in(finished, output)
-    return Built(output, len(tree.rows), tree.pages, time.perf_counter() - started, tree.warnings)
+        if pages_only:
+            swap_in(work / DOCS, output)
+        replaced = pages_only or _render_and_swap(opened, tree, work, output, announce, reuse)
+    return Built(output, len(tree.rows), tree.pages, time.perf_counter() - started, tree.warnings, replaced)
 
 
 def _reported(builds: Iterator[Build], progress: Callable | None) -> Iterator[Build]:
@@ -69,12 +73,18 @@ def _reported(builds: Iterator[Build], progress: Callable | None) -> Iterator[Bu
         yield build
 
 
-def _rendered(opened: Archive, tree: TreeSummary, work: Path, announce) -> Path:
+def _render_and_swap(opened: Archive, tree: TreeSummary, work: Path, output: Path, announce, reuse: bool) -> bool:
+    """Render the tree and put the site in place; False when the site in place already is that rendering."""
+    config = write_config(opened.settings, tree, work, DOCS, SITE)
+    epoch = source_epoch(tree.newest)
+    inputs = render_inputs(work / DOCS, config, epoch)
+    if reuse and still_current(output, inputs):
+        return False
     if announce is not None:
         announce(f"rendering {tree.pages} pages with MkDocs")
-    config = write_config(opened.settings, tree, work, DOCS, SITE)
-    run_mkdocs(config, source_epoch(tree.newest))
-    return work / SITE
+    run_mkdocs(config, epoch)
+    swap_in(work / SITE, output, marker_text(work / SITE, inputs))
+    return True
 
 
 def run_build(archive: Path, output: Path | None, pages_only: bool, quiet: bool, use_cache: bool, pdfs: bool = True, jobs: int | None = None) -> int:
@@ -86,24 +96,33 @@ def run_build(archive: Path, output: Path | None, pages_only: bool, quiet: bool,
     show_progress = not quiet and total >= PROGRESS_FROM
     try:
         with _progress(total, show_progress) as advance:
-            built = build_site(archive, target, pages_only=pages_only, cache=user_caches(use_cache, pdfs), progress=advance, announce=_announcer(show_progress), jobs=jobs)
+            built = build_site(archive, target, pages_only=pages_only, cache=user_caches(use_cache, pdfs), progress=advance, announce=_announcer(show_progress), jobs=jobs, reuse=use_cache)
     except (InputError, OutputRefused, PluginError, RenderError) as error:
         return _failed(error, target)
     for warning in built.warnings:
         click.echo(f"warning: {warning}", err=True)
-    what = "page tree" if pages_only else "site"
-    click.echo(f"wrote the {what} of {built.builds} builds ({built.pages} pages) to {built.output} in {built.seconds:.1f} s")
+    click.echo(_outcome(built, pages_only))
     return EXIT_BUILT
+
+
+def _outcome(built: Built, pages_only: bool) -> str:
+    from dossier.wording import counted
+
+    what = "page tree" if pages_only else "site"
+    size = f"{counted(built.builds, 'build')} ({counted(built.pages, 'page')})"
+    if not built.replaced:
+        return f"the site at {built.output} already shows these {size}; kept it as it is, nothing rendered ({built.seconds:.1f} s)"
+    return f"wrote the {what} of {size} to {built.output} in {built.seconds:.1f} s"
 
 
 def _failed(error: Exception, target: Path) -> int:
     """Say why nothing was written, and the exit status for it."""
-    from dossier.wording import problem_line
+    from dossier.wording import counted, problem_line
 
     if isinstance(error, InputError):
         for problem in error.problems:
             click.echo(problem_line(problem), err=True)
-        click.echo(f"dossier build: nothing written; {len(error.problems)} problem(s) to put right first.", err=True)
+        click.echo(f"dossier build: nothing written; {counted(len(error.problems), 'problem')} to put right first.", err=True)
         return EXIT_REFUSED
     if isinstance(error, RenderError):
         click.echo(error.output, err=True)

@@ -40,9 +40,9 @@ def staging(output: Path):
         shutil.rmtree(work, ignore_errors=True)
 
 
-def swap_in(new: Path, output: Path) -> None:
+def swap_in(new: Path, output: Path, marker: str = MARKER_TEXT) -> None:
     """Put the finished folder in place of the old one; if that fails, the old one is put back."""
-    (new / MARKER).write_text(MARKER_TEXT, encoding="utf-8")
+    (new / MARKER).write_text(marker, encoding="utf-8")
     old = _move_aside(output)
     try:
         os.rename(new, output)

@@ -1,0 +1,121 @@
+"""A site already rendered from the same page tree is kept, not rendered again; any change renders it."""
+
+from __future__ import annotations
+
+import shutil
+
+import pytest
+from click.testing import CliRunner
+
+from conftest import DEMO
+from dossier.cli import main
+from dossier.commands.build import build_site
+from dossier.site import fingerprint
+from dossier.site.atomic import MARKER
+from test_site_build import _digest
+from test_site_kit import TEST_CALC, demo_site, drawing_cache, write_record  # noqa: F401  (fixtures)
+
+
+class CountingRenderer:
+    """Stands in for MkDocs: writes a one-page site from the tree and counts the renders."""
+
+    def __init__(self):
+        self.calls = 0
+
+    def __call__(self, config, epoch):
+        self.calls += 1
+        site = config.parent / "site"
+        site.mkdir()
+        (site / "index.html").write_text(f"render {self.calls}", encoding="utf-8")
+
+
+@pytest.fixture
+def renderer(monkeypatch):
+    counting = CountingRenderer()
+    monkeypatch.setattr("dossier.commands.build.run_mkdocs", counting)
+    return counting
+
+
+@pytest.fixture
+def archive(tmp_path):
+    root = tmp_path / "archive"
+    write_record(root, "amp")
+    return root
+
+
+def test_the_demo_site_rebuilt_with_nothing_changed_is_kept_without_rendering(demo_site, tmp_path, drawing_cache, renderer):
+    output = tmp_path / "site"
+    shutil.copytree(demo_site, output)
+    before = _digest(output)
+    built = build_site(DEMO, output, cache=drawing_cache)
+    assert not built.replaced and renderer.calls == 0
+    assert _digest(output) == before
+
+
+def test_a_changed_record_renders_the_site_again(archive, tmp_path, renderer):
+    output = tmp_path / "site"
+    build_site(archive, output, calcs=[TEST_CALC])
+    write_record(archive, "amp", summary="A unit for the tests, rewired.")
+    built = build_site(archive, output, calcs=[TEST_CALC])
+    assert built.replaced and renderer.calls == 2
+    assert (output / "index.html").read_text(encoding="utf-8") == "render 2"
+
+
+def test_an_unchanged_archive_is_not_rendered_twice(archive, tmp_path, renderer):
+    output = tmp_path / "site"
+    first = build_site(archive, output, calcs=[TEST_CALC])
+    second = build_site(archive, output, calcs=[TEST_CALC])
+    assert first.replaced and not second.replaced and renderer.calls == 1
+
+
+@pytest.mark.parametrize("tamper", ["edit", "remove", "add"])
+def test_a_site_changed_by_hand_is_rendered_again(archive, tmp_path, renderer, tamper):
+    output = tmp_path / "site"
+    build_site(archive, output, calcs=[TEST_CALC])
+    page = output / "index.html"
+    {"edit": lambda: page.write_text("edited by hand", encoding="utf-8"), "remove": page.unlink, "add": lambda: (output / "extra.html").write_text("x", encoding="utf-8")}[tamper]()
+    built = build_site(archive, output, calcs=[TEST_CALC])
+    assert built.replaced and renderer.calls == 2
+    assert page.read_text(encoding="utf-8") == "render 2" and not (output / "extra.html").exists()
+
+
+def test_a_new_renderer_version_renders_the_site_again(archive, tmp_path, renderer, monkeypatch):
+    output = tmp_path / "site"
+    build_site(archive, output, calcs=[TEST_CALC])
+    monkeypatch.setattr(fingerprint, "_version", lambda distribution: f"{distribution} 99.0")
+    assert build_site(archive, output, calcs=[TEST_CALC]).replaced and renderer.calls == 2
+
+
+def test_without_reuse_the_site_is_always_rendered(archive, tmp_path, renderer):
+    output = tmp_path / "site"
+    build_site(archive, output, calcs=[TEST_CALC])
+    assert build_site(archive, output, calcs=[TEST_CALC], reuse=False).replaced and renderer.calls == 2
+
+
+def test_a_marker_without_fingerprints_renders_the_site_again(archive, tmp_path, renderer):
+    output = tmp_path / "site"
+    build_site(archive, output, calcs=[TEST_CALC])
+    (output / MARKER).write_text("Written by dossier.\n", encoding="utf-8")
+    assert build_site(archive, output, calcs=[TEST_CALC]).replaced and renderer.calls == 2
+
+
+def test_the_marker_holds_both_fingerprints(archive, tmp_path, renderer):
+    output = tmp_path / "site"
+    build_site(archive, output, calcs=[TEST_CALC])
+    stamped = fingerprint.read_stamp(output / MARKER)
+    assert set(stamped) == {"pages", "site"} and all(len(value) == 64 for value in stamped.values())
+    assert stamped["site"] == fingerprint.folder_digest(output, frozenset({MARKER}))
+
+
+def test_the_command_says_the_site_was_kept_and_no_cache_renders_it(tmp_path, monkeypatch, renderer):
+    from dossier.site.caches import Caches
+
+    monkeypatch.setattr("dossier.commands.build.user_caches", lambda use_cache=True, pdfs=True: Caches(Caches.in_folder(tmp_path / "caches").drawings) if use_cache else Caches())
+    archive = tmp_path / "archive"
+    write_record(archive, "amp")
+    command = ["build", str(archive), "-o", str(tmp_path / "site"), "--no-pdf"]
+    assert CliRunner().invoke(main, command).exit_code == 0
+    kept = CliRunner().invoke(main, command)
+    assert kept.exit_code == 0 and "kept it as it is" in kept.stdout and renderer.calls == 1
+    again = CliRunner().invoke(main, [*command, "--no-cache"])
+    assert again.exit_code == 0 and "wrote the site of 1 build" in again.stdout and renderer.calls == 2
