@@ -2,6 +2,7 @@
 
 from __future__ import annotations
 
+from collections import Counter
 from dataclasses import dataclass
 from pathlib import Path
 
@@ -12,6 +13,22 @@ from dossier.plugins import load_calcs
 
 ROOT = Path(__file__).resolve().parents[1]
 DEMO = ROOT / "demo" / "archive"
+
+# Bad inputs tried in this run, by kind: the hostile-input tests count every case they feed to dossier,
+# and the count is printed at the end of the run.
+BAD_INPUT_TRIED: Counter = Counter()
+
+
+def tried(kind: str) -> None:
+    BAD_INPUT_TRIED[kind] += 1
+
+
+def pytest_terminal_summary(terminalreporter):
+    if not BAD_INPUT_TRIED:
+        return
+    terminalreporter.write_sep("-", f"bad input tried: {sum(BAD_INPUT_TRIED.values())} cases")
+    for kind, number in sorted(BAD_INPUT_TRIED.items()):
+        terminalreporter.write_line(f"{number:7d}  {kind}")
 
 
 @pytest.fixture(scope="session")

@@ -9,6 +9,7 @@ import pytest
 from dossier.archive import RevisionFile, load_revision
 from dossier.problems import InputError
 from dossier.wording import problem_line
+from conftest import tried
 
 RECORD = """id: unit
 title: Attachment test
@@ -30,6 +31,7 @@ def load_with(tmp_path, path: str):
 
 
 def problem_for(tmp_path, path: str) -> str:
+    tried("attachment paths (absolute, with .., linked out, missing)")
     with pytest.raises(InputError) as raised:
         load_with(tmp_path, path)
     (problem,) = raised.value.problems

@@ -9,6 +9,7 @@ import pytest
 from dossier.problems import InputError
 from dossier.record.load import load_record
 from dossier.wording import problem_line
+from conftest import tried
 
 CASES = sorted((Path(__file__).parent / "cases" / "bad-records").glob("*.yaml"))
 
@@ -19,6 +20,7 @@ def expected_lines(path: Path) -> list[str]:
 
 @pytest.mark.parametrize("case", CASES, ids=[c.stem for c in CASES])
 def test_bad_record_reports_located_problems(case: Path):
+    tried("malformed records kept in tests/cases/bad-records")
     with pytest.raises(InputError) as raised:
         load_record(case, shown_as="CASE")
     assert sorted(problem_line(p) for p in raised.value.problems) == sorted(expected_lines(case))

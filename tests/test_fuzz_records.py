@@ -19,7 +19,7 @@ from dossier.archive import RevisionFile, load_revision
 from dossier.plugins import load_calcs
 from dossier.problems import InputError
 from dossier.review import review
-from conftest import DEMO
+from conftest import DEMO, tried
 
 EXAMPLES = int(os.environ.get("DOSSIER_FUZZ_EXAMPLES", "150"))
 SOURCE = (DEMO / "sw-charger-12v" / "rev-C.yaml").read_text(encoding="utf-8")
@@ -45,6 +45,7 @@ def demo_build_in(tmp: Path) -> Path:
 
 
 def check_mutant(tmp: Path, text: str) -> None:
+    tried("mutated records (hypothesis: line edits and value replacements)")
     build = demo_build_in(tmp)
     path = build / "rev-C.yaml"
     path.write_text(text, encoding="utf-8")
@@ -119,6 +120,7 @@ def test_value_replacements(tmp_path_factory, path, value):
 @FUZZ
 @given(st.integers(0, len(SOURCE) - 1), st.binary(min_size=1, max_size=4))
 def test_byte_splices(tmp_path_factory, offset, chunk):
+    tried("mutated records (hypothesis: random bytes spliced in)")
     raw = SOURCE.encode("utf-8")
     mutant = raw[:offset] + chunk + raw[offset:]
     build = demo_build_in(tmp_path_factory.mktemp("m"))

@@ -7,9 +7,11 @@ import pytest
 from dossier import source
 from dossier.problems import InputError
 from dossier.source import read_document
+from conftest import tried
 
 
 def problem_of(path):
+    tried("hostile or broken files (encodings, size, nesting, tags, aliases, control characters, missing)")
     with pytest.raises(InputError) as raised:
         read_document(path, shown_as="F")
     (problem,) = raised.value.problems
