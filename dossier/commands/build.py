@@ -18,10 +18,11 @@ import click
 
 from dossier.archive import build_dirs
 from dossier.problems import InputError
-from dossier.site.atomic import OutputRefused, check_output, staging, swap_in
+from dossier.site.atomic import OutputRefused, check_output, swap_in
 from dossier.site.caches import user_caches
 from dossier.site.collect import Archive, Build, each_build, open_archive
 from dossier.site.fingerprint import marker_text, render_inputs, still_current
+from dossier.site.output_lock import building
 from dossier.site.pages import TreeSummary, write_tree
 from dossier.site.render import RenderError, run_mkdocs, source_epoch, write_config
 
@@ -55,7 +56,7 @@ def build_site(archive: Path, output: Path, *, pages_only: bool = False, calcs=N
     started = time.perf_counter()
     check_output(output, archive)
     opened, problems = open_archive(archive, calcs)
-    with staging(output) as work:
+    with building(output) as work:
         builds = _reported(each_build(opened, problems, cache, jobs), progress)
         tree = write_tree(opened, work / DOCS, builds)
         if problems:
