@@ -85,9 +85,40 @@ def _bad_encoding(raw: bytes, error: UnicodeDecodeError, name: str):
     raise _single("not_utf8", Location(name, line, column), expected="UTF-8 text", found=found)
 
 
+class _BoundedLoader(yaml.SafeLoader):
+    """Composes nodes while counting them and their depth, so a file that is too large or too deep is
+    refused as soon as the limit is passed (not after composing it all, nor by running out of stack)."""
+
+    def __init__(self, text: str, name: str):
+        super().__init__(text)
+        self.name = name
+        self.nodes = 0
+        self.depth = 0
+
+    def compose_node(self, parent, index):
+        self.nodes += 1
+        self.depth += 1
+        try:
+            self._guard()
+            return super().compose_node(parent, index)
+        finally:
+            self.depth -= 1
+
+    def _guard(self) -> None:
+        if self.nodes <= MAX_NODES and self.depth <= MAX_DEPTH + 1:  # the top node is at depth 1 here, 0 below
+            return
+        mark = self.peek_event().start_mark
+        where = Location(self.name, mark.line + 1, mark.column + 1)
+        if self.nodes > MAX_NODES:
+            raise _single("too_many_nodes", where, expected=f"at most {MAX_NODES:,} values (aliases count each time they are used)")
+        raise _single("too_deep", where, expected=f"nesting at most {MAX_DEPTH} levels")
+
+
 def _compose(text: str, name: str):
+    loader = None
     try:
-        return yaml.compose(text, Loader=yaml.SafeLoader)
+        loader = _BoundedLoader(text, name)  # the reader checks every character here
+        return loader.get_single_node()
     except yaml.MarkedYAMLError as error:
         mark = error.problem_mark or error.context_mark
         location = Location(name, mark.line + 1, mark.column + 1) if mark else Location(name)
@@ -97,6 +128,9 @@ def _compose(text: str, name: str):
         raise _single("control_character", location, expected="printable text", found=f"character U+{ord(error.character) if isinstance(error.character, str) else error.character:04X}") from None
     except yaml.YAMLError as error:
         raise _single("yaml_syntax", Location(name, 1, 1), found=str(error)) from None
+    finally:
+        if loader is not None:
+            loader.dispose()
 
 
 def _offset_location(text: str, offset: int, name: str) -> Location:

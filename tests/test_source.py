@@ -58,6 +58,27 @@ def test_deep_nesting_is_refused(tmp_path):
     assert problem_of(path).code == "too_deep"
 
 
+def test_nesting_far_past_the_stack_is_refused_at_the_limit(tmp_path):
+    path = tmp_path / "abyss.yaml"
+    path.write_text("a: " + "[" * 100_000 + "]" * 100_000 + "\n", encoding="utf-8")
+    problem = problem_of(path)
+    assert (problem.code, problem.location.line, problem.location.column) == ("too_deep", 1, 3 + source.MAX_DEPTH + 1)
+
+
+def test_a_file_of_too_many_plain_values_is_refused(tmp_path):
+    path = tmp_path / "many.yaml"
+    path.write_text("a: [" + ", ".join(["1"] * (source.MAX_NODES + 10)) + "]\n", encoding="utf-8")
+    problem = problem_of(path)
+    assert problem.code == "too_many_nodes" and problem.location.line == 1
+
+
+def test_a_file_at_the_size_limit_is_refused_without_a_monkeypatched_limit(tmp_path):
+    path = tmp_path / "huge.yaml"
+    path.write_text("notes: " + "x" * source.MAX_BYTES + "\n", encoding="utf-8")
+    problem = problem_of(path)
+    assert problem.code == "file_too_large" and problem.found == f"{source.MAX_BYTES + 8:,} bytes"
+
+
 def test_merge_keys_are_refused(tmp_path):
     path = tmp_path / "merge.yaml"
     path.write_text("base: &b {x: 1}\nother:\n  <<: *b\n", encoding="utf-8")
