@@ -2,6 +2,7 @@
 
 from __future__ import annotations
 
+import re
 from dataclasses import dataclass
 from pathlib import Path
 
@@ -110,7 +111,7 @@ class _BoundedLoader(yaml.SafeLoader):
         mark = self.peek_event().start_mark
         where = Location(self.name, mark.line + 1, mark.column + 1)
         if self.nodes > MAX_NODES:
-            raise _single("too_many_nodes", where, expected=f"at most {MAX_NODES:,} values (aliases count each time they are used)")
+            raise _too_many(where)
         raise _single("too_deep", where, expected=f"nesting at most {MAX_DEPTH} levels")
 
 
@@ -122,7 +123,7 @@ def _compose(text: str, name: str):
     except yaml.MarkedYAMLError as error:
         mark = error.problem_mark or error.context_mark
         location = Location(name, mark.line + 1, mark.column + 1) if mark else Location(name)
-        raise _single("yaml_syntax", location, found=error.problem or str(error), hint=_syntax_context(error)) from None
+        raise _single("yaml_syntax", location, **_syntax_details(error.problem or str(error)), hint=_syntax_context(error)) from None
     except yaml.reader.ReaderError as error:
         location = _offset_location(text, error.position, name)
         raise _single("control_character", location, expected="printable text", found=f"character U+{ord(error.character) if isinstance(error.character, str) else error.character:04X}") from None
@@ -131,6 +132,27 @@ def _compose(text: str, name: str):
     finally:
         if loader is not None:
             loader.dispose()
+
+
+# The YAML reader words its problems as "found X", "expected X, but found Y" and the like; split them so
+# they read as dossier's own "expected ..., found ..." without saying "found" twice.
+_SYNTAX_WORDING = (
+    re.compile(r"expected (?P<expected>.+?),? but (?:found|got) (?P<found>.+)"),
+    re.compile(r"could not find expected (?P<expected>.+)"),
+    re.compile(r"(?:but )?found (?P<found>.+)"),
+)
+
+
+def _syntax_details(problem: str) -> dict:
+    for pattern in _SYNTAX_WORDING:
+        match = pattern.fullmatch(problem)
+        if match:
+            return {key: value for key, value in match.groupdict().items() if value}
+    return {"found": problem}
+
+
+def _too_many(where: Location) -> InputError:
+    return _single("too_many_nodes", where, expected=f"at most {MAX_NODES:,} values (aliases count each time they are used)")
 
 
 def _offset_location(text: str, offset: int, name: str) -> Location:
@@ -174,7 +196,7 @@ class _Converter:
         self.count += 1
         where = _location(self.sources, node)
         if self.count > MAX_NODES:
-            raise _single("too_many_nodes", where, expected=f"at most {MAX_NODES:,} values (aliases count each time they are used)")
+            raise _too_many(where)
         if depth > MAX_DEPTH:
             raise _single("too_deep", where, expected=f"nesting at most {MAX_DEPTH} levels")
         if node.tag not in PLAIN_TAGS:

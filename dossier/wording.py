@@ -20,7 +20,7 @@ PROBLEM_TEXT = {
     "not_utf8": "file is not UTF-8 text",
     "file_too_large": "file too large",
     "file_unreadable": "file cannot be read",
-    "too_many_nodes": "too many values (alias expansion refused)",
+    "too_many_nodes": "too many values",
     "too_deep": "nesting too deep",
     "control_character": "file holds a control character",
     "yaml_tag": "YAML tags are not allowed",

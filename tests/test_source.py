@@ -102,3 +102,18 @@ def test_control_characters_are_located(tmp_path):
     path.write_text("id: x\ntitle: a\x0cb\n", encoding="utf-8")
     problem = problem_of(path)
     assert (problem.code, problem.location.line, problem.location.column, problem.found) == ("control_character", 2, 9, "character U+000C")
+
+
+@pytest.mark.parametrize(
+    "text, expected, found",
+    [
+        ("a:\n\tb: 1\n", "", "character '\\t' that cannot start any token"),
+        ("a: 1\n---\nb: 2\n", "", "another document"),
+        ("a: [1, 2\nb: 3\n", "',' or ']'", "':'"),
+    ],
+)
+def test_yaml_syntax_errors_read_as_expected_and_found(tmp_path, text, expected, found):
+    path = tmp_path / "broken.yaml"
+    path.write_text(text, encoding="utf-8")
+    problem = problem_of(path)
+    assert (problem.code, problem.expected, problem.found) == ("yaml_syntax", expected, found)
