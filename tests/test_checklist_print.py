@@ -124,3 +124,35 @@ def test_the_build_writes_both_papers(printed):
     written = [printed["sw-charger-12v", "C", paper] for paper in PAPER_POINTS]
     assert [path.name for path in written] == ["checklist-sw-charger-12v-rev-C-a4.pdf", "checklist-sw-charger-12v-rev-C-letter.pdf"]
     assert all(path.read_bytes().startswith(b"%PDF-") for path in written)
+
+
+def test_the_pdf_renderer_fetches_nothing_the_html_names(tmp_path):
+    """Defence in depth: even if markup slipped through escaping, printing makes no request."""
+    import http.server
+    import threading
+
+    from dossier.checklist.pdf import render_pdf
+
+    requests = []
+
+    class Counting(http.server.BaseHTTPRequestHandler):
+        def do_GET(self):
+            requests.append(self.path)
+            self.send_response(404)
+            self.end_headers()
+
+        def log_message(self, *args):
+            pass
+
+    server = http.server.HTTPServer(("127.0.0.1", 0), Counting)
+    threading.Thread(target=server.serve_forever, daemon=True).start()
+    local = tmp_path / "local.png"
+    local.write_bytes(b"not an image")
+    address = f"http://127.0.0.1:{server.server_port}"
+    html = f'<html><head><link rel="stylesheet" href="{address}/a.css"></head><body><img src="{address}/b.png"><img src="{local.as_uri()}"><p style="background: url({address}/c.png)">x</p></body></html>'
+    try:
+        assert render_pdf(html).startswith(b"%PDF")
+        write_pdf(html, tmp_path / "sheet.pdf")
+    finally:
+        server.shutdown()
+    assert requests == []

@@ -25,12 +25,18 @@ def _renderer():
     return weasyprint
 
 
+def no_fetching(weasyprint):
+    """The sheet is self-contained: nothing is fetched, not even a file, whatever the HTML names.
+    A fetcher that allows no protocol; WeasyPrint warns and leaves the resource out."""
+    return weasyprint.urls.URLFetcher(allowed_protocols=())
+
+
 def write_pdf(html: str, path: Path) -> Path:
     """Render one standalone HTML page to a PDF file; returns the path written."""
     weasyprint = _renderer()
     path = Path(path)
     path.parent.mkdir(parents=True, exist_ok=True)
-    weasyprint.HTML(string=html, base_url=str(path.parent)).write_pdf(str(path))
+    weasyprint.HTML(string=html, base_url=str(path.parent), url_fetcher=no_fetching(weasyprint)).write_pdf(str(path))
     return path
 
 
@@ -61,7 +67,7 @@ def render_pdf(html: str) -> bytes:
 
 
 def _pdf_bytes(weasyprint, html: str) -> bytes:
-    document = weasyprint.HTML(string=html).render()
+    document = weasyprint.HTML(string=html, url_fetcher=no_fetching(weasyprint)).render()
     document.metadata.created = None
     document.metadata.modified = None
     return document.write_pdf()
