@@ -119,3 +119,16 @@ def test_the_command_says_the_site_was_kept_and_no_cache_renders_it(tmp_path, mo
     assert kept.exit_code == 0 and "kept it as it is" in kept.stdout and renderer.calls == 1
     again = CliRunner().invoke(main, [*command, "--no-cache"])
     assert again.exit_code == 0 and "wrote the site of 1 build" in again.stdout and renderer.calls == 2
+
+
+def test_the_preview_says_when_no_page_changed(tmp_path, monkeypatch, renderer, capsys):
+    from dossier.commands.serve import preview_build
+    from dossier.site.caches import Caches
+
+    monkeypatch.setattr("dossier.site.caches.user_caches", lambda use_cache=True, pdfs=True: Caches(Caches.in_folder(tmp_path / "caches").drawings))
+    archive = tmp_path / "archive"
+    write_record(archive, "amp")
+    assert preview_build(archive, tmp_path / "preview") and preview_build(archive, tmp_path / "preview")
+    said = capsys.readouterr().err.splitlines()
+    assert said[0].startswith("built ") and said[1].startswith("no page changed; the preview stays as it was")
+    assert renderer.calls == 1

@@ -154,5 +154,8 @@ def preview_build(source: Path, output: Path) -> bool:
     except (OutputRefused, RenderError) as error:
         click.echo(getattr(error, "output", "") or str(error), err=True)
         return False
-    click.echo(f"built {built.pages} pages in {built.seconds:.1f} s", err=True)
+    if built.replaced:
+        click.echo(f"built {built.pages} pages in {built.seconds:.1f} s", err=True)
+    else:
+        click.echo(f"no page changed; the preview stays as it was ({built.seconds:.1f} s)", err=True)
     return True
