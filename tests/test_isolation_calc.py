@@ -17,10 +17,12 @@ CASES_DIR = Path(__file__).parent / "cases" / "isolation"
 IDENTITY = {"id": "case", "title": "worked case", "revision": "A", "date": "2026-01-01", "authors": ["tests"], "status": "design"}
 
 
-def load_cases():
+def load_cases() -> list:
+    cases = []
     for path in sorted(CASES_DIR.glob("*.yaml")):
         for case in yaml.safe_load(path.read_text(encoding="utf-8"))["cases"]:
-            yield pytest.param(case, id=f"{path.stem}: {case['name']}")
+            cases.append(pytest.param(case, id=f"{path.stem}: {case['name']}"))
+    return cases
 
 
 def case_record(case: dict) -> Record:
