@@ -102,9 +102,15 @@ def save_ledger(archive: Path, ledger: Ledger) -> Path:
     path = archive / LOCK_FILE
     body = yaml.safe_dump(ledger.model_dump(mode="json"), sort_keys=True, allow_unicode=True, default_flow_style=False)
     handle, temporary = tempfile.mkstemp(dir=archive, prefix=".published-", suffix=".tmp")
-    with os.fdopen(handle, "w", encoding="utf-8", newline="\n") as stream:
-        stream.write(HEADER + body)
-    os.replace(temporary, path)
+    try:
+        with os.fdopen(handle, "w", encoding="utf-8", newline="\n") as stream:
+            stream.write(HEADER + body)
+            stream.flush()
+            os.fsync(stream.fileno())  # on disk before it takes the old file's place
+        os.replace(temporary, path)
+    except BaseException:
+        Path(temporary).unlink(missing_ok=True)
+        raise
     return path
 
 

@@ -164,3 +164,20 @@ def test_the_amend_option_needs_a_reason(archive):
     runner.invoke(main, ["publish", str(archive)])
     result = runner.invoke(main, ["publish", str(archive), "--amend", "amp:A"])
     assert result.exit_code == 2 and "--reason" in result.output
+
+
+def test_a_failed_write_of_the_ledger_keeps_the_old_file_and_leaves_no_temporary(tmp_path, monkeypatch):
+    archive = tmp_path / "archive"
+    path = write_record(archive, "amp", "A")
+    save_ledger(archive, publish(archive, [Target.parse("amp:A")], DAY)[0])
+    before = (archive / LOCK_FILE).read_bytes()
+    path.write_text(path.read_text(encoding="utf-8").replace("club's winder", "club's coil winder"), encoding="utf-8")
+
+    def disk_full(*args):
+        raise OSError(28, "No space left on device")
+
+    monkeypatch.setattr("dossier.lock.os.fsync", disk_full)
+    with pytest.raises(OSError):
+        save_ledger(archive, amend(archive, Target.parse("amp:A"), "typo in the notes", LATER))
+    assert (archive / LOCK_FILE).read_bytes() == before
+    assert sorted(p.name for p in archive.iterdir()) == ["amp", LOCK_FILE]
