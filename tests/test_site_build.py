@@ -189,3 +189,22 @@ def test_a_long_build_shows_progress_on_standard_error(tmp_path, monkeypatch):
     assert "reviewing builds" in result.stderr
     quiet = CliRunner().invoke(main, ["build", str(archive), "-o", str(tmp_path / "out"), "--pages-only", "--no-cache", "--quiet"])
     assert quiet.exit_code == 0 and "reviewing builds" not in quiet.stderr
+
+
+def test_an_output_under_a_file_is_refused_with_its_reason(tmp_path):
+    blocker = tmp_path / "notes.txt"
+    blocker.write_text("mine", encoding="utf-8")
+    result = CliRunner().invoke(main, ["build", str(DEMO), "-o", str(blocker / "site"), "--pages-only"])
+    assert result.exit_code == 2 and f"{blocker} is a file, not a folder" in result.stderr
+    assert "Traceback" not in result.output and blocker.read_text(encoding="utf-8") == "mine"
+
+
+def test_a_failed_write_is_a_message_naming_the_path(tmp_path, monkeypatch):
+    def disk_full(*args, **kwargs):
+        raise OSError(28, "No space left on device", str(tmp_path / "site"))
+
+    monkeypatch.setattr("dossier.commands.build.write_tree", disk_full)
+    result = CliRunner().invoke(main, ["build", str(DEMO), "-o", str(tmp_path / "site"), "--pages-only", "--no-cache"])
+    assert result.exit_code == 2
+    assert f"cannot write {tmp_path / 'site'}: No space left on device; nothing was replaced" in result.stderr
+    assert "Traceback" not in result.output

@@ -132,3 +132,14 @@ def test_the_preview_says_when_no_page_changed(tmp_path, monkeypatch, renderer, 
     said = capsys.readouterr().err.splitlines()
     assert said[0].startswith("built ") and said[1].startswith("no page changed; the preview stays as it was")
     assert renderer.calls == 1
+
+
+def test_the_preview_reports_a_failed_write_and_keeps_serving(tmp_path, monkeypatch, capsys):
+    from dossier.commands.serve import preview_build
+
+    def denied(source, output, **options):
+        raise OSError(13, "Permission denied", str(output))
+
+    monkeypatch.setattr("dossier.commands.build.build_site", denied)
+    assert preview_build(tmp_path / "archive", tmp_path / "preview") is False
+    assert f"cannot write {tmp_path / 'preview'}: Permission denied; the preview stays as it was" in capsys.readouterr().err

@@ -3,6 +3,7 @@
 from __future__ import annotations
 
 import threading
+from contextlib import contextmanager
 import time
 import urllib.request
 
@@ -35,30 +36,38 @@ def _wait(condition, what: str) -> None:
         time.sleep(0.05)
 
 
+@contextmanager
+def serving(archive, build, pause: float):
+    """serve() on a free port in a thread; yields the base address once the first build is up."""
+    ready, stop = [], threading.Event()
+    thread = threading.Thread(target=serve, args=(archive, "127.0.0.1", 0), kwargs={"build": build, "stop": stop, "on_ready": ready.append, "pause": pause})
+    thread.start()
+    try:
+        _wait(lambda: ready, "the server")
+        yield ready[0]
+    finally:
+        stop.set()
+        thread.join(DEADLINE)
+    assert not thread.is_alive()
+
+
 def test_serve_rebuilds_once_when_a_record_changes(tmp_path):
     archive = tmp_path / "archive"
     record = write_record(archive, "amp", "A")
-    built, ready, stop = [], [], threading.Event()
+    built = []
 
     def build(source, output):
         (output / "index.html").write_text(record.read_text(encoding="utf-8"), encoding="utf-8")
         built.append(time.monotonic())
         return True
 
-    thread = threading.Thread(target=serve, args=(archive, "127.0.0.1", 0), kwargs={"build": build, "stop": stop, "on_ready": ready.append, "pause": 0.05})
-    thread.start()
-    try:
-        _wait(lambda: ready, "the server")
-        assert "Test build amp" in _get(ready[0] + "index.html")
+    with serving(archive, build, pause=0.05) as address:
+        assert "Test build amp" in _get(address + "index.html")
         record.write_text(record.read_text(encoding="utf-8").replace("Test build amp", "Changed title"), encoding="utf-8")
         _wait(lambda: len(built) == 2, "the rebuild")
-        assert "Changed title" in _get(ready[0] + "index.html")
+        assert "Changed title" in _get(address + "index.html")
         time.sleep(0.5)
         assert len(built) == 2, "a rebuild must not trigger another"
-    finally:
-        stop.set()
-        thread.join(DEADLINE)
-    assert not thread.is_alive()
 
 
 def _get(url: str) -> str:
@@ -72,25 +81,19 @@ def test_serve_with_the_real_build_shows_the_edited_record(tmp_path):
 
     archive = tmp_path / "archive"
     record = write_record(archive, "amp", "A")
-    builds, ready, stop = [], [], threading.Event()
+    builds = []
 
     def build(source, output):
         builds.append(build_site(source, output, calcs=[TEST_CALC]))
         return True
 
-    thread = threading.Thread(target=serve, args=(archive, "127.0.0.1", 0), kwargs={"build": build, "stop": stop, "on_ready": ready.append, "pause": 0.1})
-    thread.start()
-    try:
-        _wait(lambda: ready, "the first build")
-        assert "Test build amp" in _get(ready[0] + "builds/amp/index.html")
+    with serving(archive, build, pause=0.1) as address:
+        assert "Test build amp" in _get(address + "builds/amp/index.html")
         record.write_text(record.read_text(encoding="utf-8").replace("Test build amp", "Rewound amp"), encoding="utf-8")
         _wait(lambda: len(builds) == 2, "the rebuild")
-        assert "Rewound amp" in _get(ready[0] + "builds/amp/index.html")
+        assert "Rewound amp" in _get(address + "builds/amp/index.html")
         time.sleep(1.0)
         assert len(builds) == 2
-    finally:
-        stop.set()
-        thread.join(DEADLINE)
 
 
 def test_a_port_in_use_is_a_message_not_a_traceback(tmp_path):

@@ -98,7 +98,7 @@ def run_build(archive: Path, output: Path | None, pages_only: bool, quiet: bool,
     try:
         with _progress(total, show_progress) as advance:
             built = build_site(archive, target, pages_only=pages_only, cache=user_caches(use_cache, pdfs), progress=advance, announce=_announcer(show_progress), jobs=jobs, reuse=use_cache)
-    except (InputError, OutputRefused, PluginError, RenderError) as error:
+    except (InputError, OutputRefused, PluginError, RenderError, OSError) as error:
         return _failed(error, target)
     for warning in built.warnings:
         click.echo(f"warning: {warning}", err=True)
@@ -129,8 +129,16 @@ def _failed(error: Exception, target: Path) -> int:
         click.echo(error.output, err=True)
         click.echo(f"dossier build: {error}; the previous site at {target} is untouched.", err=True)
         return EXIT_RENDER_FAILED
+    if isinstance(error, OSError):
+        click.echo(f"dossier build: {_os_problem(error, target)}; nothing was replaced.", err=True)
+        return EXIT_REFUSED
     click.echo(f"dossier build: {error}", err=True)
     return EXIT_REFUSED if isinstance(error, OutputRefused) else EXIT_BROKEN_PLUGIN
+
+
+def _os_problem(error: OSError, target: Path) -> str:
+    """'cannot write /srv/site: Permission denied': the path the system named, and its reason."""
+    return f"cannot write {error.filename or target}: {error.strerror or error}"
 
 
 class _progress:

@@ -154,6 +154,9 @@ def preview_build(source: Path, output: Path) -> bool:
     except (OutputRefused, RenderError) as error:
         click.echo(getattr(error, "output", "") or str(error), err=True)
         return False
+    except OSError as error:
+        click.echo(f"cannot write {error.filename or output}: {error.strerror or error}; the preview stays as it was", err=True)
+        return False
     if built.replaced:
         click.echo(f"built {built.pages} pages in {built.seconds:.1f} s", err=True)
     else:

@@ -34,6 +34,9 @@ def check_output(output: Path, archive: Path) -> None:
         raise OutputRefused(f"{output} is inside the archive {archive}; dossier never writes into the archive")
     if target.exists() and not target.is_dir():
         raise OutputRefused(f"{output} is a file, not a folder")
+    blocking = next((parent for parent in target.parents if parent.exists() and not parent.is_dir()), None)
+    if blocking is not None:
+        raise OutputRefused(f"{output} cannot be made: {blocking} is a file, not a folder")
     if target.is_dir() and any(target.iterdir()) and not (target / MARKER).is_file():
         raise OutputRefused(f"{output} exists and was not written by dossier; choose another output or remove it yourself")
 
