@@ -43,7 +43,7 @@ def main() -> None:
 
 def hostile_files(runs: int) -> None:
     from dossier.problems import InputError
-    from dossier.source import MAX_BYTES, read_document
+    from dossier.reading.yaml_source import MAX_BYTES, read_document
 
     laughs = [f"a0: &a0 [{', '.join(['x'] * 10)}]"] + [f"a{i}: &a{i} [" + ", ".join([f"*a{i - 1}"] * 10) + "]" for i in range(1, 10)]
     rows = "\n".join(f"k{i}: {{a: [1, 2, 3], b: 'text {i}'}}" for i in range(MAX_BYTES // 40))

@@ -14,7 +14,7 @@ import tempfile
 import time
 from pathlib import Path
 
-from dossier.archive import expand, load_revision
+from dossier.reading.archive import expand, load_revision
 from dossier.drawing import schematics
 from dossier.drawing.cache import DrawingCache
 

@@ -137,9 +137,9 @@ def full_nav(config_text: str, docs: Path) -> str:
 
 def one_size(builds: int, revisions: int, with_full_nav: bool) -> dict:
     """Run in a fresh process: every timing and the peak memory of one archive size."""
-    from dossier.site.collect import each_build, open_archive
-    from dossier.site.pages import write_tree
-    from dossier.site.render import run_mkdocs, source_epoch, write_config
+    from dossier.collect.archive import each_build, open_archive
+    from dossier.pages.tree import write_tree
+    from dossier.render.mkdocs_run import run_mkdocs, source_epoch, write_config
 
     with tempfile.TemporaryDirectory(prefix="dossier-bench-") as scratch:
         work = Path(scratch)
@@ -191,7 +191,7 @@ def rebuild_times(archive: Path, work: Path, kept_only: bool = False) -> dict:
     """Wall seconds of `dossier build` with a filled drawing cache: nothing changed (rendered again, and with
     the rendered site kept), then one record changed. kept_only: only the build that keeps the site."""
     from dossier.commands.build import build_site
-    from dossier.site.caches import Caches
+    from dossier.collect.caches import Caches
 
     caches = Caches(Caches.in_folder(work / "caches").drawings, None)  # PDFs are timed on their own, see docs
     build = lambda reuse=True: build_site(archive, work / "out", cache=caches, reuse=reuse)  # noqa: E731

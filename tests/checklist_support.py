@@ -6,11 +6,11 @@ from functools import lru_cache
 
 from conftest import DEMO
 
-from dossier.archive import RevisionFile, load_revision
+from dossier.reading.archive import RevisionFile, load_revision
 from dossier.checklist.overview import load_for_revision
 from dossier.checklist.sheet import build_checklist
 from dossier.plugins import load_calcs
-from dossier.record.load import LoadedRecord
+from dossier.reading.record import LoadedRecord
 from dossier.review import review
 
 DEMO_REVISIONS = [("sw-charger-12v", "A"), ("sw-charger-12v", "B"), ("sw-charger-12v", "C"), ("bench-psu-13v8", "A"), ("rotator-control", "A")]

@@ -8,7 +8,7 @@ from pathlib import Path
 
 import pytest
 
-from dossier.archive import RevisionFile, load_revision
+from dossier.reading.archive import RevisionFile, load_revision
 from dossier.plugins import load_calcs
 
 ROOT = Path(__file__).resolve().parents[1]

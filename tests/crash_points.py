@@ -14,7 +14,7 @@ import sys
 from pathlib import Path
 
 from dossier.commands.build import build_site
-from dossier.site import atomic
+from dossier.output import atomic
 
 KILLED = 9
 

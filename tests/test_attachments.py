@@ -6,7 +6,7 @@ import os
 
 import pytest
 
-from dossier.archive import RevisionFile, load_revision
+from dossier.reading.archive import RevisionFile, load_revision
 from dossier.problems import InputError
 from dossier.wording import problem_line
 from conftest import tried

@@ -7,7 +7,7 @@ from pathlib import Path
 import pytest
 
 from dossier.problems import InputError
-from dossier.record.load import load_record
+from dossier.reading.record import load_record
 from dossier.wording import problem_line
 from conftest import tried
 

@@ -77,7 +77,7 @@ def test_an_interrupted_build_leaves_the_previous_site_whole(archive_and_site, t
 
 def test_collecting_on_two_cores_gives_the_same_pages_as_one(tmp_path):
     from dossier.commands.build import build_site
-    from dossier.site.caches import Caches
+    from dossier.collect.caches import Caches
 
     caches = Caches.in_folder(tmp_path / "caches")
     build_site(DEMO, tmp_path / "one", pages_only=True, cache=caches, jobs=1)
@@ -86,7 +86,7 @@ def test_collecting_on_two_cores_gives_the_same_pages_as_one(tmp_path):
 
 
 def test_workers_pay_only_for_larger_archives():
-    from dossier.site.parallel import MIN_BUILDS_FOR_WORKERS, worker_count
+    from dossier.collect.parallel import MIN_BUILDS_FOR_WORKERS, worker_count
 
     assert worker_count(MIN_BUILDS_FOR_WORKERS - 1) == 1
     assert worker_count(MIN_BUILDS_FOR_WORKERS) == min(os.cpu_count() or 1, MIN_BUILDS_FOR_WORKERS)

@@ -16,9 +16,9 @@ from pathlib import Path
 import pytest
 
 from dossier.commands.build import build_site
-from dossier.site.atomic import recover_leftovers
-from dossier.site.exchange import exchange
-from dossier.site.output_lock import output_lock
+from dossier.output.atomic import recover_leftovers
+from dossier.output.exchange import exchange
+from dossier.output.lock import output_lock
 from test_site_kit import write_record
 
 HELPER = Path(__file__).with_name("crash_points.py")
@@ -107,7 +107,7 @@ def _restore(output: Path, archive: Path, old: str) -> None:
 
 
 def test_a_second_build_of_the_same_output_is_refused_while_one_runs(tmp_path):
-    from dossier.site.atomic import OutputRefused
+    from dossier.output.atomic import OutputRefused
 
     archive = tmp_path / "archive"
     write_record(archive, "amp")

@@ -11,7 +11,7 @@ from functools import lru_cache
 import pytest
 
 from conftest import DEMO, ROOT
-from dossier.archive import RevisionFile, load_revision
+from dossier.reading.archive import RevisionFile, load_revision
 from dossier.findings import Verdict
 from dossier.plugins import load_calcs
 from dossier.wording import comparison_text, margin_text

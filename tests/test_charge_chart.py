@@ -9,9 +9,9 @@ import pytest
 from charge_records import DROP, charger
 from conftest import load_demo
 
-from dossier.calcs.charge_curve import charge_curve
-from dossier.drawing.charge_chart import BOTTOM, LEFT, RIGHT, TOP, axes_for, charge_chart_svg, figures
-from dossier.drawing.chart_scale import at_most, decimals, fixed_intervals
+from dossier.calcs.charge.curve import charge_curve
+from dossier.drawing.charts.charge import BOTTOM, LEFT, RIGHT, TOP, axes_for, charge_chart_svg, figures
+from dossier.drawing.charts.scale import at_most, decimals, fixed_intervals
 from dossier.drawing.svg_writer import SvgWriter, id_safe, number
 
 SVG = "{http://www.w3.org/2000/svg}"

@@ -10,7 +10,7 @@ from conftest import load_demo
 from hypothesis import given, settings
 from hypothesis import strategies as st
 
-from dossier.calcs.charge_curve import ChargePlan, charge_curve, estimate, point_at, sample_times
+from dossier.calcs.charge.curve import ChargePlan, charge_curve, estimate, point_at, sample_times
 
 
 def delivered_ah(points) -> float:

@@ -8,7 +8,7 @@ import pytest
 from conftest import DEMO
 
 from dossier.problems import InputError
-from dossier.record.load import load_record
+from dossier.reading.record import load_record
 from dossier.units import Q_
 from dossier.wording import problem_line
 

@@ -4,7 +4,7 @@ from __future__ import annotations
 
 import pytest
 
-from dossier.calcs.charge_windows import inside, judge_window, nearer_edge, tolerance_band
+from dossier.calcs.charge.windows import inside, judge_window, nearer_edge, tolerance_band
 from dossier.citations import BU_403
 from dossier.findings import Verdict
 from dossier.standards.chemistries import REFERENCE_TEMPERATURE, chemistry

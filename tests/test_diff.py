@@ -5,11 +5,11 @@ from __future__ import annotations
 from click.testing import CliRunner
 
 from conftest import DEMO, load_demo
-from dossier.archive import RevisionFile, load_revision
+from dossier.reading.archive import RevisionFile, load_revision
 from dossier.cli import main
 from dossier.commands.diff import diff_text
 from dossier.review import review
-from dossier.site.changes import finding_changes, record_changes
+from dossier.changes import finding_changes, record_changes
 from test_site_kit import TEST_CALC, write_record
 
 

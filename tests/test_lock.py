@@ -9,7 +9,7 @@ import yaml
 from click.testing import CliRunner
 
 from dossier.cli import main
-from dossier.lock import LOCK_FILE, Target, amend, frozen_problems, load_ledger, next_letter, publish, record_digest, save_ledger
+from dossier.ledger import LOCK_FILE, Target, amend, frozen_problems, load_ledger, next_letter, publish, record_digest, save_ledger
 from dossier.problems import InputError
 from dossier.wording import problem_line
 from test_site_kit import write_record
@@ -176,7 +176,7 @@ def test_a_failed_write_of_the_ledger_keeps_the_old_file_and_leaves_no_temporary
     def disk_full(*args):
         raise OSError(28, "No space left on device")
 
-    monkeypatch.setattr("dossier.lock.os.fsync", disk_full)
+    monkeypatch.setattr("dossier.ledger.os.fsync", disk_full)
     with pytest.raises(OSError):
         save_ledger(archive, amend(archive, Target.parse("amp:A"), "typo in the notes", LATER))
     assert (archive / LOCK_FILE).read_bytes() == before

@@ -9,7 +9,7 @@ from conftest import DEMO, load_demo
 
 from dossier.calcs.magnetics import CALC, run
 from dossier.findings import Verdict
-from dossier.record.load import load_record
+from dossier.reading.record import load_record
 from dossier.wording import margin_text
 
 

@@ -6,8 +6,8 @@ import math
 
 import pytest
 
-from dossier.calcs import magnetics_math as m
-from dossier.calcs.magnetics_core import effective_from_constants, section_perimeter, toroid_constants
+from dossier.calcs.magnetics import formulas as m
+from dossier.calcs.magnetics.core import effective_from_constants, section_perimeter, toroid_constants
 from dossier.units import Q_
 
 

@@ -7,7 +7,7 @@ from pathlib import Path
 import pytest
 
 from dossier.problems import InputError
-from dossier.record.load import load_record
+from dossier.reading.record import load_record
 from dossier.wording import problem_line
 
 DEMO = Path(__file__).resolve().parents[1] / "demo" / "archive" / "sw-charger-12v" / "rev-C.yaml"

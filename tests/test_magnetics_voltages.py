@@ -7,8 +7,8 @@ import math
 import pytest
 from conftest import load_demo
 
-from dossier.calcs.magnetics_voltages import drive_of, winding_voltages
-from dossier.calcs.mains_lines import line_peaks
+from dossier.calcs.magnetics.voltages import drive_of, winding_voltages
+from dossier.calcs.shared.mains_lines import line_peaks
 
 
 def magnetic(record, ref):

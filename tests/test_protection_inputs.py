@@ -9,10 +9,10 @@ import pytest
 import yaml
 
 from dossier.calcs.protection import CALC, recommended_fuse
-from dossier.calcs.protection_input import conduction_angle, crest_factor, pulse_power_factor
+from dossier.calcs.protection.input import conduction_angle, crest_factor, pulse_power_factor
 from dossier.findings import Verdict
 from dossier.problems import InputError
-from dossier.record.load import load_record
+from dossier.reading.record import load_record
 from dossier.record.model import Record
 
 BASE = {

@@ -14,10 +14,10 @@ from click.testing import CliRunner
 from conftest import DEMO
 from dossier.cli import main
 from dossier.commands.build import build_site, default_output
-from dossier.lock import Target, publish, save_ledger
+from dossier.ledger import Target, publish, save_ledger
 from dossier.problems import InputError
-from dossier.site.atomic import MARKER, OutputRefused
-from dossier.site.render import RenderError
+from dossier.output.atomic import MARKER, OutputRefused
+from dossier.render.mkdocs_run import RenderError
 from test_site_kit import TEST_CALC, copy_demo, demo_site, drawing_cache, html_findings, write_record  # noqa: F401  (fixtures)
 
 
@@ -163,7 +163,7 @@ def test_build_command_reports_what_it_wrote(tmp_path, monkeypatch):
     archive = tmp_path / "archive"
     write_record(archive, "amp", "A")
     monkeypatch.setattr("dossier.plugins.load_calcs", lambda points=None: [TEST_CALC])
-    monkeypatch.setattr("dossier.site.collect.load_calcs", lambda: [TEST_CALC])
+    monkeypatch.setattr("dossier.collect.archive.load_calcs", lambda: [TEST_CALC])
     result = CliRunner().invoke(main, ["build", str(archive), "-o", str(tmp_path / "out"), "--pages-only", "--no-cache"])
     assert result.exit_code == 0, result.output
     assert "wrote the page tree of 1 build" in result.output
@@ -171,7 +171,7 @@ def test_build_command_reports_what_it_wrote(tmp_path, monkeypatch):
 
 
 def test_the_only_date_in_the_site_is_the_newest_record_date(site):
-    from dossier.archive import expand, load_revision
+    from dossier.reading.archive import expand, load_revision
 
     newest = max(load_revision(rev).record.date for rev in expand([DEMO]))
     midnight = datetime.datetime.combine(newest, datetime.time(), tzinfo=datetime.timezone.utc)
@@ -183,7 +183,7 @@ def test_a_long_build_shows_progress_on_standard_error(tmp_path, monkeypatch):
     archive = tmp_path / "archive"
     for number in range(20):
         write_record(archive, f"unit-{number:02d}", "A")
-    monkeypatch.setattr("dossier.site.collect.load_calcs", lambda: [TEST_CALC])
+    monkeypatch.setattr("dossier.collect.archive.load_calcs", lambda: [TEST_CALC])
     result = CliRunner().invoke(main, ["build", str(archive), "-o", str(tmp_path / "out"), "--pages-only", "--no-cache"])
     assert result.exit_code == 0, result.output
     assert "reviewing builds" in result.stderr

@@ -126,7 +126,7 @@ _ONCE: dict[str, object] = {}
 @pytest.fixture(scope="session")
 def drawing_cache(tmp_path_factory):
     """One drawing and PDF cache for every site test, so each schematic and sheet is made once per test run."""
-    from dossier.site.caches import Caches
+    from dossier.collect.caches import Caches
 
     if "cache" not in _ONCE:
         _ONCE["cache"] = Caches.in_folder(tmp_path_factory.mktemp("caches"))

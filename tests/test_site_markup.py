@@ -7,7 +7,7 @@ from html.parser import HTMLParser
 import markdown
 import pytest
 
-from dossier.site.markup import cell, fence, is_safe_link, prose, text, title_text
+from dossier.markup import cell, fence, is_safe_link, prose, text, title_text
 
 EXTENSIONS = ["admonition", "tables", "toc", "attr_list"]  # attr_list on purpose: escaping must not rely on it being off
 

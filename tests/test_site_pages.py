@@ -10,9 +10,9 @@ import pytest
 from conftest import DEMO
 from dossier.caution import MAINS_CAUTION
 from dossier.findings import Verdict, counts
-from dossier.site.collect import collect
-from dossier.site.pages import write_tree
-from dossier.site.changes import finding_changes
+from dossier.collect.archive import collect
+from dossier.pages.tree import write_tree
+from dossier.changes import finding_changes
 from dossier.wording import finding_label
 from test_site_kit import TEST_CALC, drawing_cache, write_record  # noqa: F401  (fixture)
 
@@ -204,7 +204,7 @@ def test_a_build_without_mains_has_no_caution(tmp_path):
 def test_an_amendment_after_publication_shows_on_the_changes_page(tmp_path):
     import datetime
 
-    from dossier.lock import Target, amend, publish, save_ledger
+    from dossier.ledger import Target, amend, publish, save_ledger
 
     archive = tmp_path / "archive"
     write_record(archive, "amp", "A")
@@ -243,7 +243,7 @@ def test_a_failing_drawing_is_shown_on_the_page_and_does_not_stop_the_site(tmp_p
     def broken(record, findings, cache=None):
         raise RuntimeError("no pencil")
 
-    monkeypatch.setattr("dossier.site.extras.draw", broken)
+    monkeypatch.setattr("dossier.collect.extras.draw", broken)
     archive = tmp_path / "archive"
     write_record(archive, "amp", "A")
     summary = write_tree(collect(archive, [TEST_CALC]), tmp_path / "tree")

@@ -10,8 +10,8 @@ from click.testing import CliRunner
 from conftest import DEMO
 from dossier.cli import main
 from dossier.commands.build import build_site
-from dossier.site import fingerprint
-from dossier.site.atomic import MARKER
+from dossier.output import fingerprint
+from dossier.output.atomic import MARKER
 from test_site_build import _digest
 from test_site_kit import TEST_CALC, demo_site, drawing_cache, write_record  # noqa: F401  (fixtures)
 
@@ -108,7 +108,7 @@ def test_the_marker_holds_both_fingerprints(archive, tmp_path, renderer):
 
 
 def test_the_command_says_the_site_was_kept_and_no_cache_renders_it(tmp_path, monkeypatch, renderer):
-    from dossier.site.caches import Caches
+    from dossier.collect.caches import Caches
 
     monkeypatch.setattr("dossier.commands.build.user_caches", lambda use_cache=True, pdfs=True: Caches(Caches.in_folder(tmp_path / "caches").drawings) if use_cache else Caches())
     archive = tmp_path / "archive"
@@ -123,9 +123,9 @@ def test_the_command_says_the_site_was_kept_and_no_cache_renders_it(tmp_path, mo
 
 def test_the_preview_says_when_no_page_changed(tmp_path, monkeypatch, renderer, capsys):
     from dossier.commands.serve import preview_build
-    from dossier.site.caches import Caches
+    from dossier.collect.caches import Caches
 
-    monkeypatch.setattr("dossier.site.caches.user_caches", lambda use_cache=True, pdfs=True: Caches(Caches.in_folder(tmp_path / "caches").drawings))
+    monkeypatch.setattr("dossier.collect.caches.user_caches", lambda use_cache=True, pdfs=True: Caches(Caches.in_folder(tmp_path / "caches").drawings))
     archive = tmp_path / "archive"
     write_record(archive, "amp")
     assert preview_build(archive, tmp_path / "preview") and preview_build(archive, tmp_path / "preview")

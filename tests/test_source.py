@@ -4,9 +4,9 @@ from __future__ import annotations
 
 import pytest
 
-from dossier import source
+from dossier.reading import yaml_source as source
 from dossier.problems import InputError
-from dossier.source import read_document
+from dossier.reading.yaml_source import read_document
 from conftest import tried
 
 

@@ -11,7 +11,7 @@ from conftest import DEMO, load_demo
 from dossier.calcs import stress
 from dossier.findings import Verdict
 from dossier.problems import InputError
-from dossier.record.load import load_record
+from dossier.reading.record import load_record
 from dossier.review import review
 from dossier.wording import problem_line
 

@@ -4,7 +4,8 @@ from __future__ import annotations
 
 import pytest
 
-from dossier.calcs import safety_class, stress
+from dossier.calcs import stress
+from dossier.calcs.shared import safety_class
 from dossier.findings import Verdict
 from dossier.record.model import Record
 

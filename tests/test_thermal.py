@@ -5,7 +5,7 @@ from __future__ import annotations
 import pytest
 
 from dossier.calcs import thermal
-from dossier.calcs.thermal_path import switching_loss
+from dossier.calcs.thermal.path import switching_loss
 from dossier.findings import Verdict
 from dossier.record.devices import Switching
 from dossier.record.model import Record

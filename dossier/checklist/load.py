@@ -12,14 +12,14 @@ from pathlib import Path
 
 from pydantic import ValidationError
 
-from dossier.archive import COMMISSIONING_FILE
+from dossier.reading.archive import COMMISSIONING_FILE
 from dossier.checklist.items import Item
 from dossier.checklist.commissioning import CommissioningFile
 from dossier.checklist.sheet import Checklist
 from dossier.problems import InputError, Location, Problem
-from dossier.record.load import _problem as record_problem
-from dossier.record.load import known_keys
-from dossier.source import SourceMap, read_document
+from dossier.reading.record import _problem as record_problem
+from dossier.reading.record import known_keys
+from dossier.reading.yaml_source import SourceMap, read_document
 from dossier.units import DIMENSION_NAMES, Q_, UnitProblem, dimensionality_of, fmt, parse_quantity
 
 OFFSET_UNITS = ("degC", "degF")

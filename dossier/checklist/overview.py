@@ -9,7 +9,7 @@ from dossier.checklist.load import Commissioning, commissioning_path, load_commi
 from dossier.checklist.outcome import Summary, outcomes, summarise
 from dossier.checklist.sheet import build_checklist
 from dossier.checklist.status import ShownStatus, effective_status
-from dossier.site import markup
+from dossier import markup
 
 
 @dataclass(frozen=True)

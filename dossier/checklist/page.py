@@ -9,7 +9,7 @@ import jinja2
 
 from dossier.checklist.sheet import build_checklist
 from dossier.checklist.view import SheetView, sheet_view
-from dossier.site import markup
+from dossier import markup
 from dossier.templates import templates_dir
 from dossier.units import fmt
 

@@ -16,15 +16,15 @@ from typing import Callable, Iterator
 
 import click
 
-from dossier.archive import build_dirs
+from dossier.reading.archive import build_dirs
 from dossier.problems import InputError
-from dossier.site.atomic import OutputRefused, check_output, swap_in
-from dossier.site.caches import user_caches
-from dossier.site.collect import Archive, Build, each_build, open_archive
-from dossier.site.fingerprint import marker_text, render_inputs, still_current
-from dossier.site.output_lock import building
-from dossier.site.pages import TreeSummary, write_tree
-from dossier.site.render import RenderError, run_mkdocs, source_epoch, write_config
+from dossier.output.atomic import OutputRefused, check_output, swap_in
+from dossier.collect.caches import user_caches
+from dossier.collect.archive import Archive, Build, each_build, open_archive
+from dossier.output.fingerprint import marker_text, render_inputs, still_current
+from dossier.output.lock import building
+from dossier.pages.tree import TreeSummary, write_tree
+from dossier.render.mkdocs_run import RenderError, run_mkdocs, source_epoch, write_config
 
 EXIT_BUILT, EXIT_RENDER_FAILED, EXIT_REFUSED, EXIT_BROKEN_PLUGIN = 0, 1, 2, 3
 PROGRESS_FROM = 20  # builds; smaller archives build in a few seconds and need no progress bar

@@ -6,7 +6,7 @@ import json
 from dataclasses import dataclass, field
 from pathlib import Path
 
-from dossier.archive import expand, load_revision
+from dossier.reading.archive import expand, load_revision
 from dossier.caution import MAINS_CAUTION
 from dossier.findings import Finding, Verdict
 from dossier.plugins import load_calcs

@@ -4,12 +4,12 @@ from __future__ import annotations
 
 from pathlib import Path
 
-from dossier.archive import expand, load_revision
+from dossier.reading.archive import expand, load_revision
 from dossier.caution import MAINS_CAUTION
 from dossier.plugins import load_calcs
 from dossier.problems import InputError, Location, Problem
 from dossier.review import review
-from dossier.site.changes import finding_changes, record_changes
+from dossier.changes import finding_changes, record_changes
 
 INDENT = "  "
 

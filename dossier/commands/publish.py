@@ -7,8 +7,8 @@ from pathlib import Path
 
 import click
 
-from dossier.archive import build_dirs, revision_files
-from dossier.lock import LOCK_FILE, Target, amend, frozen_problems, load_ledger, publish, save_ledger
+from dossier.reading.archive import build_dirs, revision_files
+from dossier.ledger import LOCK_FILE, Target, amend, frozen_problems, load_ledger, publish, save_ledger
 from dossier.problems import InputError
 from dossier.wording import problem_line
 

@@ -139,10 +139,10 @@ def run_serve(archive: Path, host: str, port: int) -> int:
 def preview_build(source: Path, output: Path) -> bool:
     """One build for the preview; on failure say why and keep the last good site."""
     from dossier.commands.build import build_site
-    from dossier.site.caches import user_caches
+    from dossier.collect.caches import user_caches
     from dossier.problems import InputError
-    from dossier.site.atomic import OutputRefused
-    from dossier.site.render import RenderError
+    from dossier.output.atomic import OutputRefused
+    from dossier.render.mkdocs_run import RenderError
     from dossier.wording import problem_line
 
     try:

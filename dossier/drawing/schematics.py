@@ -14,7 +14,12 @@ from __future__ import annotations
 from dataclasses import dataclass
 
 from dossier.drawing import placeholder, sheet
-from dossier.drawing import stage_converter, stage_magnetics, stage_mains, stage_output, stage_rectifier, stage_regulator
+from dossier.drawing.stages import converter as stage_converter
+from dossier.drawing.stages import magnetics as stage_magnetics
+from dossier.drawing.stages import mains as stage_mains
+from dossier.drawing.stages import output as stage_output
+from dossier.drawing.stages import rectifier as stage_rectifier
+from dossier.drawing.stages import regulator as stage_regulator
 from dossier.drawing.block_diagram import draw as draw_block_diagram
 from dossier.drawing.cache import NoCache, content_key
 from dossier.drawing.drawers import StageDrawer

@@ -4,7 +4,7 @@ from __future__ import annotations
 
 from dossier.findings import Finding, Measure, Source, counts
 from dossier.problems import Problem
-from dossier.source import dotted
+from dossier.reading.yaml_source import dotted
 
 SHAPE_VERSION = 1
 

@@ -1,0 +1,54 @@
+"""Magnetics calc: hand-wound transformers and chokes, from core geometry and windings to temperature rise."""
+
+from __future__ import annotations
+
+from dossier.calcs.magnetics.context import context_of
+from dossier.calcs.magnetics.flux import choke_findings, core_finding, core_loss_findings, flux_findings, ratio_findings
+from dossier.calcs.magnetics.inputs import input_findings
+from dossier.calcs.magnetics.windings import (
+    density_findings, fill_findings, resistance_findings, skin_findings, temperature_findings,
+)
+from dossier.plugins import Calc
+
+CODES = {
+    "MAG-CORE": "Effective area, path length, volume, window, mean turn and A_L of a core (IEC 60205 for a toroid).",
+    "MAG-RATIO": "Turns ratio of a winding to the driven one, and its peak voltage at low, nominal and high line.",
+    "MAG-FLUX": "Peak flux density (Faraday's law; a choke's from L I / N A_e) against saturation at the hot temperature.",
+    "MAG-CORE-LOSS": "Core loss by the Steinmetz equation where its parameters are given.",
+    "MAG-CURRENT-DENSITY": "Current density in a winding against the usual band for its cooling.",
+    "MAG-RESISTANCE": "DC resistance of a winding at 20 degC and hot, and its copper loss (IEC 60028 copper).",
+    "MAG-SKIN": "Wire diameter against two skin depths at the operating frequency, with a hint to use more strands.",
+    "MAG-FILL": "Window fill by insulated wire and tape against what can be wound by hand; a winding that does not fit fails.",
+    "MAG-TEMP-RISE": "Temperature rise from total loss per outside surface (empirical handbook relation).",
+    "MAG-CHOKE": "A choke's inductance, stored energy, ripple current and peak field N I / l_e against the material's limit.",
+    "MAG-INPUT": "A check that could not be made for want of a value, naming the key to add.",
+}
+
+STEPS = (
+    input_findings, lambda ctx: [core_finding(ctx)], ratio_findings, flux_findings, core_loss_findings, choke_findings,
+    density_findings, resistance_findings, skin_findings, fill_findings, temperature_findings,
+)
+
+
+def run(record):
+    findings = []
+    for index, magnetic in enumerate(record.magnetics):
+        ctx = context_of(record, index, magnetic)
+        for step in STEPS:
+            findings.extend(step(ctx))
+    return findings
+
+
+CALC = Calc(
+    name="magnetics",
+    title="Magnetics",
+    run=run,
+    summary=(
+        "Checks hand-wound transformers and chokes: core parameters (IEC 60205 for toroids), turns ratios and winding "
+        "voltages at low, nominal and high line, peak flux density against saturation, core loss (Steinmetz), current "
+        "density, resistance and copper loss (IEC 60028 copper), skin depth, window fill with enamel and tape build-up "
+        "(IEC 60317, ASTM B258), temperature rise, and a choke's inductance, energy and field."
+    ),
+    codes=CODES,
+    order=30,
+)

@@ -1,0 +1,87 @@
+"""Everything the magnetics findings need about one wound component, worked out once."""
+
+from __future__ import annotations
+
+from dataclasses import dataclass, replace
+
+from dossier.calcs.shared.finding_kit import maker
+from dossier.calcs.magnetics.core import CoreGeometry, geometry
+from dossier.calcs.magnetics.currents import winding_current
+from dossier.calcs.magnetics.fill import Fill, lay
+from dossier.calcs.magnetics.voltages import Drive, drive_of
+from dossier.citations import MCLYMAN
+from dossier.units import Q_
+from dossier.wording import measure_text
+
+DEFAULT_HOT = Q_(100, "degC")
+
+FARADAY = replace(MCLYMAN, clause="Faraday's law with waveform factor 4.0 (square) and 4.44 (sine); from memory")
+STEINMETZ = replace(MCLYMAN, clause="core loss as k f^alpha B^beta from the maker's loss curves; from memory")
+TEMPERATURE_RISE = replace(MCLYMAN, clause="temperature rise T_r = 450 psi^0.826 (psi in W/cm^2), chapter on efficiency, regulation and temperature rise; from memory")
+CHOKE = replace(MCLYMAN, clause="inductor design: L = A_L N^2, energy L I^2 / 2, field N I / l_e; from memory")
+SKIN = replace(MCLYMAN, clause="skin effect in copper, penetration depth 6.62 / sqrt(f) cm at 20 degC, taken here at the hot temperature; from memory")
+
+
+@dataclass(frozen=True)
+class Context:
+    record: object
+    index: int
+    magnetic: object
+    core: CoreGeometry
+    drive: Drive | None
+    fill: Fill | None
+    currents: tuple
+    hot: object
+    hot_basis: str
+
+    @property
+    def ref(self) -> str:
+        return self.magnetic.ref
+
+    def key(self, *path) -> tuple:
+        return ("magnetics", self.index, *path)
+
+    def winding_key(self, position: int, *path) -> tuple:
+        return self.key("windings", position, *path)
+
+    def subject(self, winding) -> str:
+        return f"{self.ref} {winding.name}"
+
+    @property
+    def frequency(self):
+        return self.drive.frequency if self.drive else None
+
+
+def context_of(record, index: int, magnetic) -> Context:
+    drive = drive_of(record, magnetic)
+    hot, hot_basis = _hot(magnetic.core.material)
+    return Context(
+        record=record,
+        index=index,
+        magnetic=magnetic,
+        core=geometry(magnetic.core),
+        drive=drive,
+        fill=lay(magnetic.core, magnetic.windings),
+        currents=tuple(winding_current(record, magnetic, w, drive) for w in magnetic.windings),
+        hot=hot,
+        hot_basis=hot_basis,
+    )
+
+
+def _hot(material):
+    if material.max_temperature is not None:
+        return material.max_temperature.to("degC"), "the material's maximum temperature"
+    return DEFAULT_HOT, "100 degC taken: the material declares no maximum temperature"
+
+
+_finding = maker("magnetics")
+
+
+def make(code: str, subject: str, title: str, verdict, **details):
+    """A magnetics finding."""
+    return _finding(code=code, subject=subject, title=title, verdict=verdict, **details)
+
+
+def listing(measures) -> str:
+    """The measures as one sentence, for findings whose numbers are the point."""
+    return "; ".join(measure_text(m) for m in measures) + "."

@@ -1,0 +1,59 @@
+"""Protection calc: what blows, and whether it blows at the right time.
+
+Mains side: input current at low line, the mains fuse (rating, speed, voltage, breaking capacity), the switch-on
+surge against the fuse's melting I^2 t, the inrush limiter, and the earth bond. Battery side of a charger: the
+battery-lead fuse and reverse polarity. The checks live in the protection_* modules beside this one.
+"""
+
+from __future__ import annotations
+
+from dossier.calcs.protection.earth import earth_findings
+from dossier.calcs.protection.fuse import FuseChoice, fuse_findings, recommended_fuse
+from dossier.calcs.protection.inrush import inrush_findings
+from dossier.calcs.protection.limiter import limiter_findings
+from dossier.calcs.protection.output import output_findings
+from dossier.plugins import Calc
+
+__all__ = ["CALC", "FuseChoice", "recommended_fuse", "run"]
+
+CHECKS = (fuse_findings, inrush_findings, limiter_findings, earth_findings, output_findings)
+
+CODES = {
+    "PROT-INPUT-CURRENT": "RMS and peak mains input current at low line, from output power, efficiency and power factor",
+    "PROT-FUSE-RATING": "mains fuse rating against the running current (75 % rule, re-rated for ambient); no fuse is a fail",
+    "PROT-FUSE-RECOMMENDED": "the smallest IEC 60127 preferred rating and the speed to fit, with the melting I^2 t it needs",
+    "PROT-FUSE-SPEED": "fast-acting fuse on a unit that draws a switch-on surge",
+    "PROT-FUSE-VOLTAGE": "fuse voltage rating against the mains voltage",
+    "PROT-FUSE-BREAKING": "breaking capacity of the mains fuse; a low-breaking (glass) fuse on the mains is marginal",
+    "PROT-INRUSH": "switch-on pulse I^2 t against the fuse's melting I^2 t with the pulse-cycle derating",
+    "PROT-INRUSH-PEAK": "peak switch-on current at high line; with no limiter, why it matters",
+    "PROT-NTC-ENERGY": "switch-on energy 1/2 C V^2 against the limiter's rated energy or maximum capacitance",
+    "PROT-NTC-DISSIPATION": "running current and dissipation of the inrush limiter",
+    "PROT-NTC-COOLDOWN": "switching on again before the NTC has cooled",
+    "PROT-EARTH-BOND": "how protective earth is bonded to a metal enclosure or earth terminal",
+    "PROT-OUTPUT-FUSE": "a charger's battery-lead fuse: present, and large enough for the charge current",
+    "PROT-OUTPUT-LEAD": "battery-lead fuse no larger than the lead can carry",
+    "PROT-OUTPUT-DISTANCE": "battery-lead fuse near the battery",
+    "PROT-REVERSE-POLARITY": "whether reversed battery leads are caught",
+}
+
+
+def run(record) -> list:
+    findings = []
+    for check in CHECKS:
+        findings.extend(check(record))
+    return findings
+
+
+CALC = Calc(
+    name="protection",
+    title="Protection",
+    run=run,
+    summary=(
+        "What blows, and whether it blows at the right time: mains input current at low line, the mains fuse's rating, "
+        "speed, voltage rating and breaking capacity, the switch-on surge against the fuse's melting I^2 t, the inrush "
+        "limiter's energy and dissipation, the earth bond, and for a charger the battery-lead fuse and reverse polarity."
+    ),
+    codes=CODES,
+    order=20,
+)

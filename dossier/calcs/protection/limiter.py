@@ -1,0 +1,137 @@
+"""The inrush limiter itself: switch-on energy, running dissipation, and restarting while it is hot."""
+
+from __future__ import annotations
+
+from dossier.calcs.protection.common import NTC_GUIDES, RC_CHARGE, add_text, finding, measure, percent
+from dossier.calcs.shared.mains_lines import high_line_peak
+from dossier.calcs.protection.inrush import charging_pulse
+from dossier.calcs.protection.input import input_current
+from dossier.findings import Verdict, common_practice, judge
+from dossier.units import Q_, fmt
+
+ENERGY_MARGIN = 0.2
+CURRENT_MARGIN = 0.2
+MARGIN_PRACTICE = common_practice("keep 20 % headroom below a limiter's rated energy and current")
+COOL_DOWN = common_practice("an NTC limiter needs tens of seconds to minutes to cool after switch-off (from memory; see the maker's data)")
+RESISTOR_POWER = common_practice("a resistor that stays in circuit is rated for at least twice its dissipation")
+
+
+def limiter_findings(record) -> list:
+    limiter = record.protection.inrush_limiter
+    if limiter is None or record.mains is None:
+        return []
+    found = [_energy_finding(record, limiter), *_dissipation_findings(record, limiter)]
+    if limiter.kind == "ntc":
+        found.append(_cool_down_finding(record, limiter))
+    return found
+
+
+def switch_on_energy(capacitance, crest_voltage):
+    """Energy the limiter must absorb charging C to the crest: 1/2 C V_pk^2."""
+    return (capacitance * crest_voltage**2 / 2).to("J")
+
+
+def _energy_finding(record, limiter):
+    capacitance = record.protection.bulk_capacitance
+    if capacitance is None:
+        return _energy_info(limiter, None, ["protection.bulk_capacitance"])
+    energy = switch_on_energy(capacitance, high_line_peak(record.mains))
+    if limiter.max_energy is not None:
+        rated = measure(f"{limiter.ref} rated energy", limiter.max_energy)
+        return _energy_against(limiter, measure("switch-on energy at high line", energy), rated, energy)
+    if limiter.max_capacitance is not None:
+        rated = measure(f"{limiter.ref} maximum capacitance", limiter.max_capacitance)
+        return _energy_against(limiter, measure("bulk capacitance", capacitance), rated, energy)
+    return _energy_info(limiter, energy, [f"protection.inrush_limiter.max_energy (or max_capacitance) for {limiter.ref}"])
+
+
+def _energy_against(limiter, value, limit, energy):
+    verdict = judge(value.quantity, limit.quantity, "<=", ENERGY_MARGIN)
+    return finding(code="PROT-NTC-ENERGY", subject=limiter.ref, title="Inrush limiter switch-on energy", verdict=verdict,
+                   values=_unique((value, measure("switch-on energy at high line", energy))), limit=limit, relation="<=",
+                   method="E = 1/2 C V_pk^2 at the crest of high line", explanation=_energy_text(limiter, verdict, energy),
+                   keys=(("protection", "inrush_limiter"), ("protection", "bulk_capacitance")), sources=(NTC_GUIDES, MARGIN_PRACTICE))
+
+
+def _unique(measures: tuple) -> tuple:
+    return tuple({m.label: m for m in measures}.values())
+
+
+def _energy_text(limiter, verdict: Verdict, energy) -> str:
+    if verdict is Verdict.FAIL:
+        return f"Charging the bulk capacitance puts {fmt(energy)} into {limiter.ref}, more than it is rated for; it can crack at switch-on."
+    if verdict is Verdict.MARGINAL:
+        return f"{limiter.ref} is within {percent(ENERGY_MARGIN)} % of its rating at every switch-on at high line."
+    return ""
+
+
+def _energy_info(limiter, energy, missing: list[str]):
+    values = (measure("switch-on energy at high line", energy),) if energy is not None else ()
+    return finding(code="PROT-NTC-ENERGY", subject=limiter.ref, title="Inrush limiter switch-on energy", verdict=Verdict.INFO,
+                   values=values, method="E = 1/2 C V_pk^2 at the crest of high line",
+                   explanation="The limiter's energy rating is not compared." + add_text(missing),
+                   keys=(("protection", "inrush_limiter"),), sources=(NTC_GUIDES,))
+
+
+def _dissipation_findings(record, limiter) -> list:
+    if limiter.kind == "relay-bypassed-resistor":
+        return []
+    running = input_current(record)
+    if running is None:
+        return [_dissipation_info(limiter, (), ["output (voltage, current, efficiency, power_factor)"])]
+    resistance = limiter.cold_resistance if limiter.kind == "resistor" else limiter.hot_resistance
+    if resistance is None:
+        return [_dissipation_info(limiter, (measure("running current at low line", running.rms),), ["protection.inrush_limiter.hot_resistance"])]
+    power = (running.rms**2 * resistance).to("W")
+    if limiter.kind == "resistor":
+        return [_resistor_power(limiter, power)]
+    return [_ntc_current(limiter, running.rms, power, running.assumed)]
+
+
+def _ntc_current(limiter, current, power, assumed):
+    values = (measure("running current at low line", current), measure("dissipation at running current", power))
+    if limiter.max_current is None:
+        return _dissipation_info(limiter, values, ["protection.inrush_limiter.max_current"])
+    verdict = Verdict.INFO if assumed else judge(current, limiter.max_current, "<=", CURRENT_MARGIN)
+    text = (f"{limiter.ref} dissipates about {fmt(power)} while running, from its residual resistance "
+            f"(the maker quotes it at full current; at lower current it runs cooler and its resistance is higher).")
+    return finding(code="PROT-NTC-DISSIPATION", subject=limiter.ref, title="Inrush limiter running current and dissipation", verdict=verdict,
+                   values=values, limit=measure(f"{limiter.ref} maximum current", limiter.max_current), relation="<=",
+                   method="P = I_rms^2 R_hot at low line", explanation=text + add_text(list(assumed)),
+                   keys=(("protection", "inrush_limiter", "max_current"),), sources=(NTC_GUIDES, MARGIN_PRACTICE))
+
+
+def _resistor_power(limiter, power):
+    text = f"{limiter.ref} stays in circuit and dissipates {fmt(power)}; rate it for at least {fmt(power * 2)}."
+    return finding(code="PROT-NTC-DISSIPATION", subject=limiter.ref, title="Inrush resistor running dissipation", verdict=Verdict.INFO,
+                   values=(measure("dissipation at running current", power),), method="P = I_rms^2 R at low line",
+                   explanation=text, keys=(("protection", "inrush_limiter"),), sources=(RESISTOR_POWER,))
+
+
+def _dissipation_info(limiter, values, missing: list[str]):
+    return finding(code="PROT-NTC-DISSIPATION", subject=limiter.ref, title="Inrush limiter running current and dissipation", verdict=Verdict.INFO,
+                   values=values, method="P = I_rms^2 R_hot at low line",
+                   explanation="The running dissipation is not checked." + add_text(missing),
+                   keys=(("protection", "inrush_limiter"),), sources=(NTC_GUIDES,))
+
+
+def _cool_down_finding(record, limiter):
+    hot = limiter.hot_resistance if limiter.hot_resistance is not None else Q_(0, "ohm")
+    pulse = charging_pulse(record, hot)
+    values = (measure("peak current on a hot restart", pulse.peak), measure("hot-restart I^2 t", pulse.i2t)) if pulse else ()
+    missing = [] if limiter.hot_resistance is not None else ["protection.inrush_limiter.hot_resistance"]
+    return finding(code="PROT-NTC-COOLDOWN", subject=limiter.ref, title="Switching on again while the limiter is hot", verdict=Verdict.INFO,
+                   values=values, method="I_pk = sqrt(2) V_high / (R_hot + R_source + ESR); I^2 t = I_pk^2 tau / 2",
+                   explanation=_cool_down_text(record, limiter, pulse) + add_text(missing),
+                   keys=(("protection", "inrush_limiter"),), sources=(COOL_DOWN, RC_CHARGE))
+
+
+def _cool_down_text(record, limiter, pulse) -> str:
+    text = (f"A warm NTC has only its residual resistance: switched off and on again before {limiter.ref} has cooled "
+            "(tens of seconds to minutes), the unit draws nearly the unlimited surge.")
+    fuse = record.protection.fuse
+    if pulse is None or fuse is None or fuse.melting_i2t is None:
+        return text
+    share = percent((pulse.i2t / fuse.melting_i2t).to(""))
+    text += f" That pulse is {share} % of {fuse.ref}'s melting I^2 t"
+    return text + (": a quick power cycle can blow the fuse. Wait before switching on again." if share >= 100 else ".")

@@ -1,0 +1,1 @@
+"""Collecting an archive: every revision read, reviewed, drawn and its checklist made, before any page is written."""

@@ -1,0 +1,1 @@
+"""One drawer per stage kind: each knows which stages it handles and draws them with schemdraw."""

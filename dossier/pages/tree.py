@@ -1,0 +1,185 @@
+"""Generation: the collected archive becomes a plain tree of Markdown pages and assets.
+
+The tree is complete on its own (MkDocs renders it, but any Markdown reader can follow it):
+every link is relative, every record text is escaped (see markup), and the same archive always
+gives the same bytes, file by file, in the same order.
+"""
+
+from __future__ import annotations
+
+import datetime
+import shutil
+from dataclasses import dataclass
+from functools import partial
+from pathlib import Path
+from typing import Iterable
+
+from dossier import wording
+from dossier.caution import MAINS_CAUTION
+from dossier.findings import Verdict
+from dossier.record.identity import STATUS_TITLES
+from dossier.pages import layout
+from dossier.collect.archive import CHECKLIST_SHEETS, Archive, Build
+from dossier.collect.extras import pdf_href
+from dossier.pages.env import Md, render
+from dossier.pages.views import IndexRow, RevisionView, change_steps, index_row, newest_first, revision_view
+from dossier.templates import templates_dir
+
+PAGE_LABELS = {"index": "Overview", "calcs": "Calculations", "schematics": "Schematics", "checklist": "Checklist"}
+TEMPLATES = {"index": "overview.md.j2", "calcs": "calcs.md.j2", "schematics": "schematics.md.j2", "checklist": "checklist.md.j2"}
+OLDER_REVISION_BOOST = 0.5
+VENDORED = ("vendor/iframe-worker/shim.js", "vendor/iframe-worker/LICENSE", "dossier.css")
+
+
+@dataclass(frozen=True)
+class StatusLink:
+    status: str
+    title: str
+    count: int
+    path: str
+
+
+class TreeWriter:
+    """Writes pages and files under one folder, counting the pages."""
+
+    def __init__(self, root: Path, archive: Archive):
+        self.root = root
+        self.pages = 0
+        self.common = {
+            "archive_title": archive.settings.title,
+            "settings": archive.settings,
+            "MAINS_CAUTION": MAINS_CAUTION,
+            "Verdict": Verdict,
+            "Md": Md,
+            "labels": PAGE_LABELS,
+            "words": wording,
+        }
+
+    def page(self, path: str, template: str, **context) -> None:
+        text = render(template, link=partial(_link, path), **self.common, **context)
+        self.text(path, text)
+        self.pages += 1
+
+    def text(self, path: str, content: str) -> None:
+        target = self._target(path)
+        target.write_text(content, encoding="utf-8", newline="\n")
+
+    def binary(self, path: str, content: bytes) -> None:
+        self._target(path).write_bytes(content)
+
+    def copy(self, source: Path, path: str) -> None:
+        shutil.copyfile(source, self._target(path))
+
+    def _target(self, path: str) -> Path:
+        target = self.root / path
+        target.parent.mkdir(parents=True, exist_ok=True)
+        return target
+
+
+def _link(here: str, target: str) -> Md:
+    return Md(layout.href(here, target))
+
+
+@dataclass
+class TreeSummary:
+    """What the front pages and the renderer need once every build's pages are written."""
+
+    pages: int
+    rows: list[IndexRow]
+    statuses: list[StatusLink]
+    newest: datetime.date | None
+    warnings: list[str]  # parts of pages that could not be made (a drawing or checklist failed)
+
+
+def write_tree(archive: Archive, root: Path, builds: Iterable[Build] | None = None) -> TreeSummary:
+    """Write the page tree under root: each build's pages as it comes, then the archive's front pages.
+
+    builds defaults to archive.builds; pass collect.each_build(...) to hold one build in memory at a time.
+    """
+    writer = TreeWriter(root, archive)
+    rows, dates, warnings = [], [], []
+    for build in archive.builds if builds is None else builds:
+        write_build(writer, archive, build)
+        rows.append(index_row(build))
+        dates.extend(revision.record.date for revision in build.revisions)
+        warnings.extend(_failures(build))
+    statuses = status_links(rows)
+    _write_front(writer, archive, newest_first(rows), statuses)
+    _write_assets(writer)
+    return TreeSummary(writer.pages, rows, statuses, max(dates, default=None), warnings)
+
+
+def _failures(build: Build) -> list[str]:
+    return [f"{build.id} rev {revision.letter}: {text}" for revision in build.revisions for text in revision.extras.failures]
+
+
+def _write_front(writer: TreeWriter, archive: Archive, rows: list[IndexRow], statuses: list[StatusLink]) -> None:
+    shared = {"statuses": statuses, "total": len(rows), "any_mains": any(row.has_mains for row in rows)}
+    writer.page(layout.INDEX, "archive.md.j2", page_title=archive.settings.title, rows=rows, current_status="", **shared)
+    for link in statuses:
+        chosen = [row for row in rows if row.status == link.status]
+        writer.page(link.path, "status.md.j2", page_title=link.title, status_title=link.title, rows=chosen, current_status=link.status, **shared)
+    writer.page(layout.ABOUT, "about.md.j2", page_title="About this site")
+
+
+def status_links(rows: list[IndexRow]) -> list[StatusLink]:
+    """The statuses that at least one build is in, in the order a build moves through them."""
+    tally = {status: 0 for status in STATUS_TITLES}
+    for row in rows:
+        tally[row.status] = tally.get(row.status, 0) + 1
+    return [StatusLink(s, STATUS_TITLES.get(s, s), n, layout.status_page(s)) for s, n in tally.items() if n]
+
+
+def write_build(writer: TreeWriter, archive: Archive, build: Build) -> None:
+    views = [revision_view(archive, build, revision) for revision in build.revisions]
+    for view in views:
+        _write_revision(writer, view)
+    current = views[-1]
+    writer.page(current.permanent, "pointer.md.j2", v=current, page_title=f"{current.record.title}, revision {current.letter}", search_exclude=True)
+    writer.page(
+        current.changes, "changes.md.j2", v=current, steps=change_steps(build), page_name="changes", crumb="changes",
+        page_title=f"Changes: {current.record.title}", show_caution=current.record.has_mains,
+    )
+    _write_attachments(writer, build, views)
+
+
+def _write_revision(writer: TreeWriter, view: RevisionView) -> None:
+    extra = {} if view.is_current else {"search_boost": OLDER_REVISION_BOOST}
+    for name, path in view.pages.items():
+        title = _page_title(view, name)
+        caution = view.record.has_mains and not (name == "checklist" and _carries_caution(view.checklist))
+        writer.page(path, TEMPLATES[name], v=view, page_name=name, crumb=f"revision {view.letter}", page_title=title, show_caution=caution, **extra)
+    for figure in (*view.schematics, *(f for section in view.calcs for f in section.figures)):
+        writer.text(figure.path, figure.svg)
+    for paper, sheet in view.revision.extras.sheets.items():
+        writer.text(f"{view.root}/{CHECKLIST_SHEETS[paper]}", sheet)
+    for paper, pdf in view.revision.extras.pdfs.items():
+        writer.binary(f"{view.root}/{pdf_href(CHECKLIST_SHEETS[paper])}", pdf)
+
+
+def _carries_caution(markdown: str | None) -> bool:
+    """The checklist page may bring the same caution itself; the page does not need it twice."""
+    return bool(markdown) and MAINS_CAUTION in markdown
+
+
+def _page_title(view: RevisionView, name: str) -> str:
+    suffix = "" if view.is_current else f" (revision {view.letter})"
+    if name == "index":
+        return f"{view.record.title}{suffix}"
+    return f"{PAGE_LABELS[name]}: {view.record.title}{suffix}"
+
+
+def _write_attachments(writer: TreeWriter, build: Build, views: list[RevisionView]) -> None:
+    written = set()
+    for view in views:
+        for attachment in (*view.photos, *view.documents):
+            if attachment.refused or attachment.path in written:
+                continue
+            writer.copy(build.folder / attachment.source, attachment.path)
+            written.add(attachment.path)
+
+
+def _write_assets(writer: TreeWriter) -> None:
+    source = templates_dir() / "site" / "assets"
+    for name in VENDORED:
+        writer.copy(source / name, f"{layout.ASSETS}/{name}")

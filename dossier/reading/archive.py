@@ -1,0 +1,90 @@
+"""An archive is a folder of builds; a build is a folder of revision files rev-A.yaml, rev-B.yaml, ..."""
+
+from __future__ import annotations
+
+import re
+from dataclasses import dataclass
+from pathlib import Path
+
+from dossier.problems import InputError, Location, Problem
+from dossier.reading.record import LoadedRecord, load_record
+
+REVISION_FILE = re.compile(r"^rev-(?P<letter>[A-Z]{1,2})\.ya?ml$")
+COMMISSIONING_FILE = re.compile(r"^commissioning-(?P<letter>[A-Z]{1,2})\.ya?ml$")
+
+
+def revision_order(letter: str) -> tuple[int, str]:
+    """A, B, ..., Z, AA, AB: shorter letters first."""
+    return (len(letter), letter)
+
+
+@dataclass(frozen=True)
+class RevisionFile:
+    build_id: str
+    letter: str
+    path: Path
+
+
+def revision_files(build_dir: Path) -> list[RevisionFile]:
+    found = []
+    for path in build_dir.iterdir():
+        match = REVISION_FILE.match(path.name)
+        if match and path.is_file():
+            found.append(RevisionFile(build_dir.name, match["letter"], path))
+    return sorted(found, key=lambda r: revision_order(r.letter))
+
+
+def build_dirs(root: Path) -> list[Path]:
+    return sorted(p for p in root.iterdir() if p.is_dir() and not p.name.startswith(".") and revision_files(p))
+
+
+def is_build_dir(path: Path) -> bool:
+    return path.is_dir() and bool(revision_files(path))
+
+
+def expand(paths: list[Path]) -> list[RevisionFile]:
+    """Record files named by the user: a file, a build folder or an archive folder."""
+    files: list[RevisionFile] = []
+    for path in paths:
+        files.extend(_expand_one(path))
+    return files
+
+
+def _expand_one(path: Path) -> list[RevisionFile]:
+    if path.is_file():
+        match = REVISION_FILE.match(path.name)
+        return [RevisionFile(path.parent.name, match["letter"] if match else "", path)]
+    if is_build_dir(path):
+        return revision_files(path)
+    if path.is_dir():
+        return [rev for build in build_dirs(path) for rev in revision_files(build)]
+    raise InputError([Problem("path_missing", Location(str(path)), expected="a record file, build folder or archive folder", found="nothing at this path")])
+
+
+def load_revision(rev: RevisionFile, shown_as: str | None = None) -> LoadedRecord:
+    """Load a record and check that it agrees with where it is kept."""
+    loaded = load_record(rev.path, shown_as)
+    problems = list(_placement_problems(rev, loaded))
+    if problems:
+        raise InputError(problems)
+    return loaded
+
+
+def _placement_problems(rev: RevisionFile, loaded: LoadedRecord):
+    record = loaded.record
+    if rev.letter and record.revision != rev.letter:
+        yield Problem("revision_mismatch", loaded.locate(("revision",)), key="revision", expected=f"'{rev.letter}', as in the file name {rev.path.name}", found=repr(record.revision))
+    if rev.letter and record.id != rev.build_id:
+        yield Problem("id_mismatch", loaded.locate(("id",)), key="id", expected=f"'{rev.build_id}', the build folder's name", found=repr(record.id))
+    for index, attachment in enumerate(record.attachments):
+        yield from _attachment_problems(rev.path.parent, index, attachment.path, loaded)
+
+
+def _attachment_problems(build_dir: Path, index: int, relative: str, loaded: LoadedRecord):
+    key = ("attachments", index, "path")
+    target = build_dir / relative
+    archive_root = build_dir.resolve().parent
+    if not target.is_file():
+        yield Problem("attachment_missing", loaded.locate(key), key=f"attachments[{index}].path", expected="a file inside the build folder", found=f"no file at {relative!r}")
+    elif not target.resolve().is_relative_to(archive_root):
+        yield Problem("unsafe_path", loaded.locate(key), key=f"attachments[{index}].path", expected="a file inside the archive", found=f"{relative!r} links outside it")

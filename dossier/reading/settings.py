@@ -1,0 +1,43 @@
+"""The archive's own settings (archive.yaml at the archive's root): who publishes it and what it is."""
+
+from __future__ import annotations
+
+from pathlib import Path
+
+from pydantic import BaseModel, ConfigDict, Field, ValidationError
+
+from dossier.problems import InputError, Location, Problem
+from dossier.reading.yaml_source import dotted, read_document
+
+SETTINGS_FILE = "archive.yaml"
+
+
+class ArchiveSettings(BaseModel):
+    model_config = ConfigDict(extra="forbid", frozen=True)
+
+    club: str = Field("", max_length=200, description="Who keeps the archive, shown on every page.")
+    title: str = Field("Build archive", min_length=1, max_length=200, description="The site's name.")
+    description: str = Field("", max_length=2000, description="One paragraph of Markdown for the archive's front page.")
+
+
+def load_settings(archive: Path) -> ArchiveSettings:
+    """The settings of an archive; an archive without archive.yaml gets the defaults."""
+    path = archive / SETTINGS_FILE
+    if not path.is_file():
+        return ArchiveSettings()
+    document = read_document(path, str(path))
+    if document.data is None:
+        return ArchiveSettings()
+    if not isinstance(document.data, dict):
+        raise InputError([Problem("not_a_mapping", Location(str(path), 1, 1), expected="a mapping (club: ..., title: ...)", found=type(document.data).__name__)])
+    try:
+        return ArchiveSettings.model_validate(document.data)
+    except ValidationError as error:
+        raise InputError([_problem(item, document) for item in error.errors()]) from None
+
+
+def _problem(item: dict, document) -> Problem:
+    path = tuple(item["loc"])
+    at_key = item["type"] == "extra_forbidden"
+    found = repr(path[-1]) if at_key else repr(item.get("input"))[:60]
+    return Problem(item["type"], document.sources.locate(path, at_key=at_key), key=dotted(path), expected=item["msg"], found=found)
