@@ -1,26 +1,15 @@
-"""Shared fixtures: the demo archive and loading its records."""
+"""Shared fixtures and the end-of-run count of bad inputs. Helpers live in tests/fixtures/."""
 
 from __future__ import annotations
 
-from collections import Counter
-from dataclasses import dataclass
 from pathlib import Path
 
 import pytest
 
-from dossier.reading.archive import RevisionFile, load_revision
 from dossier.plugins import load_calcs
-
-ROOT = Path(__file__).resolve().parents[1]
-DEMO = ROOT / "demo" / "archive"
-
-# Bad inputs tried in this run, by kind: the hostile-input tests count every case they feed to dossier,
-# and the count is printed at the end of the run.
-BAD_INPUT_TRIED: Counter = Counter()
-
-
-def tried(kind: str) -> None:
-    BAD_INPUT_TRIED[kind] += 1
+from tests.fixtures.bad_input import BAD_INPUT_TRIED
+from tests.fixtures.demo import DEMO
+from tests.fixtures.site_kit import demo_site, drawing_cache  # noqa: F401  (fixtures for every site test)
 
 
 def pytest_terminal_summary(terminalreporter):
@@ -36,26 +25,6 @@ def demo_archive() -> Path:
     return DEMO
 
 
-def load_demo(build: str, revision: str = "A"):
-    """The validated record of one demo revision."""
-    path = DEMO / build / f"rev-{revision}.yaml"
-    return load_revision(RevisionFile(build, revision, path)).record
-
-
 @pytest.fixture(scope="session")
 def calcs():
     return load_calcs()
-
-
-@dataclass
-class FakeEntryPoint:
-    """Stands in for an importlib.metadata entry point: loads its target, or raises its error."""
-
-    name: str
-    target: object = None
-    error: Exception | None = None
-
-    def load(self):
-        if self.error:
-            raise self.error
-        return self.target

@@ -4,7 +4,7 @@ from __future__ import annotations
 
 import pytest
 
-from conftest import FakeEntryPoint
+from tests.fixtures.entry_points import FakeEntryPoint
 from dossier.findings import Finding, Verdict
 from dossier.plugins import Calc, PluginError, load_calcs
 from dossier.review import review
@@ -64,7 +64,7 @@ def test_the_cli_names_a_broken_plugin_without_a_traceback(monkeypatch):
 
     from dossier import plugins
     from dossier.cli import main
-    from conftest import DEMO
+    from tests.fixtures.demo import DEMO
 
     monkeypatch.setattr(plugins, "entry_points", lambda group: [FakeEntryPoint("broken", error=ImportError("no module named x"))])
     result = CliRunner().invoke(main, ["check", str(DEMO / "sw-charger-12v" / "rev-A.yaml")])

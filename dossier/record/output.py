@@ -6,7 +6,8 @@ from pydantic import Field, ValidationInfo, field_validator, model_validator
 from pydantic_core import PydanticCustomError
 
 from dossier.record.fields import Charge, Current, Power, Ratio, Section, Temperature, Voltage, VoltagePerKelvin
-from dossier.standards.chemistries import REFERENCE_TEMPERATURE, ChemistryError, known_keys
+from dossier.standards.battery import REFERENCE_TEMPERATURE
+from dossier.standards.chemistries import ChemistryError, known_keys
 from dossier.units import Q_, fmt
 
 

@@ -10,7 +10,7 @@ from __future__ import annotations
 
 from dossier.citations import BU_403, GEL_VRLA_HANDBOOK, LINDEN_BATTERIES, TROJAN_USERS_GUIDE, YUASA_NP_MANUAL
 from dossier.findings import common_practice
-from dossier.standards.chemistries import Chemistry, CurveModel, Window
+from dossier.standards.battery import Chemistry, CurveModel, Window
 from dossier.units import Q_
 
 

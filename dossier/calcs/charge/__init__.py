@@ -13,7 +13,8 @@ from dossier.calcs.charge.temperature import compensation_finding
 from dossier.calcs.charge.windows import judge_window, tolerance_band
 from dossier.findings import Finding, Measure, Verdict, judge
 from dossier.plugins import Calc
-from dossier.standards.chemistries import Chemistry, Window, chemistry
+from dossier.standards.battery import Chemistry, Window
+from dossier.standards.chemistries import chemistry
 from dossier.units import Q_, fmt
 
 __all__ = ["CALC", "charge_curve", "run"]

@@ -22,7 +22,8 @@ from __future__ import annotations
 import math
 from dataclasses import dataclass
 
-from dossier.standards.chemistries import chemistry, kelvin_from_reference
+from dossier.standards.battery import kelvin_from_reference
+from dossier.standards.chemistries import chemistry
 
 SAMPLES = 160
 

@@ -16,7 +16,7 @@ from dataclasses import dataclass
 
 from dossier.calcs.charge.windows import nearer_edge
 from dossier.findings import Finding, Measure, Verdict, common_practice
-from dossier.standards.chemistries import REFERENCE_TEMPERATURE
+from dossier.standards.battery import REFERENCE_TEMPERATURE
 from dossier.units import Q_, fmt
 
 DRIFT_ALLOWANCE_K = 5.0

@@ -5,7 +5,7 @@ from __future__ import annotations
 from dataclasses import dataclass
 
 from dossier.findings import Measure, Verdict
-from dossier.standards.chemistries import Window
+from dossier.standards.battery import Window
 
 DIGITS = 9  # window edges are products like 2.35 x 6; compare past their rounding noise
 

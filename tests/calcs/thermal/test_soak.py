@@ -1,0 +1,102 @@
+"""Soak-test readings against the estimate, and the demo builds' thermal story."""
+
+from __future__ import annotations
+
+import pytest
+
+from tests.fixtures.demo import load_demo
+from dossier.calcs import thermal
+from dossier.findings import Verdict
+from dossier.record.model import Record
+
+BASE = {"id": "unit", "title": "Test unit", "revision": "A", "date": "2026-01-01", "authors": ["Tester"], "status": "design"}
+
+
+def unit(reading: dict, touchable=True) -> Record:
+    # Q1: 20 W, R_jc 1.5, pad 0.5, on a 1.0 K/W sink; highest ambient 30 degC.
+    return Record.model_validate({
+        **BASE,
+        "environment": {"max_ambient": "30 degC"},
+        "devices": {
+            "semiconductors": [{"ref": "Q1", "kind": "bjt", "loss": "20 W", "max_junction": "150 degC", "rth_jc": "1.5 K/W", "heatsink": "HS1", "pad": "0.5 K/W"}],
+            "heatsinks": [{"ref": "HS1", "rth_sa": "1.0 K/W", "touchable": touchable}],
+            "soak": [{"duration": "2 h", "ambient": "20 degC", **reading}],
+        },
+    })
+
+
+def soak(record, subject):
+    found = [f for f in thermal.run(record) if f.code == "THERM-SOAK" and f.subject == subject]
+    assert len(found) == 1
+    return found[0]
+
+
+def degc(quantity) -> float:
+    return float(quantity.to("degC").magnitude)
+
+
+def test_case_reading_compared_with_the_case_estimate():
+    # Estimated case at 20 degC: 20 + 20 W x (1.0 + 0.5) K/W = 50 degC; a reading of 52 degC is within 20 % of the
+    # rise (common practice, from memory).
+    finding = soak(unit({"ref": "Q1", "temperature": "52 degC"}), "Q1")
+    assert degc(finding.values[1].quantity) == pytest.approx(50)
+    assert degc(finding.limit.quantity) == pytest.approx(20 + 30 * 1.2)
+    assert finding.verdict is Verdict.PASS
+
+
+def test_a_reading_hotter_than_the_estimate_is_marginal():
+    finding = soak(unit({"ref": "Q1", "temperature": "60 degC"}), "Q1")
+    assert finding.verdict is Verdict.MARGINAL and "hotter than estimated" in finding.explanation
+
+
+def test_a_reading_that_puts_the_junction_over_its_maximum_fails():
+    # Carried to 30 degC (a rise keeps its size as ambient changes): 125 + 10 = 135 degC case, plus
+    # 20 W x 1.5 K/W = 165 degC junction, over 150 degC.
+    finding = soak(unit({"ref": "Q1", "temperature": "125 degC"}), "Q1")
+    assert finding.verdict is Verdict.FAIL
+    projected = {m.label: degc(m.quantity) for m in finding.extra}
+    assert projected["junction from the reading at the highest ambient"] == pytest.approx(165)
+
+
+def test_a_heatsink_reading_is_carried_to_the_touch_limit():
+    # Sink estimate at 20 degC: 20 + 20 W x 1.0 K/W = 40; reading 55 is hot, and 65 at 30 degC ambient is over 60.
+    finding = soak(unit({"ref": "HS1", "temperature": "55 degC"}), "HS1")
+    assert degc(finding.values[1].quantity) == pytest.approx(40)
+    assert finding.verdict is Verdict.FAIL
+
+
+def test_a_short_run_is_flagged():
+    finding = soak(unit({"ref": "Q1", "temperature": "52 degC", "duration": "20 min"}), "Q1")
+    assert "may not have reached steady temperature" in finding.explanation
+
+
+# --- the demo builds ------------------------------------------------------------------------------
+
+def test_bench_supply_soak_agrees_with_the_estimate():
+    # Q1: 8 V x 3 A = 24 W; case at 21 degC: 21 + 24 x (1.2 + 0.5) = 61.8 degC; measured 63 degC.
+    finding = soak(load_demo("bench-psu-13v8"), "Q1")
+    assert degc(finding.values[1].quantity) == pytest.approx(61.8)
+    assert finding.verdict is Verdict.PASS
+
+
+def test_charger_rev_b_rectifier_sink_ran_hotter_than_estimated():
+    # HS2 carries D5's 0.55 V x 6 A = 3.3 W: at the 24 degC of the run, 24 + 3.3 x 3.0 K/W = 33.9 degC; a 20 % allowance
+    # on the 9.9 K rise (common practice, from memory) gives 35.88 degC, and 47 degC was measured.
+    finding = soak(load_demo("sw-charger-12v", "B"), "HS2")
+    assert degc(finding.values[1].quantity) == pytest.approx(33.9)
+    assert degc(finding.limit.quantity) == pytest.approx(35.88)
+    assert finding.verdict is Verdict.MARGINAL
+
+
+def test_charger_switches_have_pads_on_the_earthed_sink():
+    findings = thermal.run(load_demo("sw-charger-12v", "C"))
+    pads = {f.subject: f.verdict for f in findings if f.code == "THERM-PAD"}
+    assert pads == {"Q1": Verdict.PASS, "Q2": Verdict.PASS}  # D5's tab is on the isolated side: no pad finding
+
+
+def test_charger_rectifier_junction_on_the_touchable_sink():
+    # D5: 0.55 V x 6 A = 3.3 W through 2.0 + 0.3 + 3.0 K/W from 35 degC = 52.5 degC (T_j = T_a + P sum R).
+    findings = thermal.run(load_demo("sw-charger-12v", "C"))
+    d5 = next(f for f in findings if f.code == "THERM-JUNCTION" and f.subject == "D5")
+    assert degc(d5.value.quantity) == pytest.approx(35 + 3.3 * 5.3)
+    assert d5.verdict is Verdict.PASS

@@ -1,0 +1,252 @@
+"""The generated Markdown tree of the demo archive: what each page says (no MkDocs here)."""
+
+from __future__ import annotations
+
+import hashlib
+import re
+
+import pytest
+
+from tests.fixtures.demo import DEMO
+from dossier.caution import MAINS_CAUTION
+from dossier.findings import Verdict, counts
+from dossier.collect.archive import collect
+from dossier.pages.tree import write_tree
+from dossier.changes import finding_changes
+from dossier.wording import finding_label
+from tests.fixtures.site_kit import TEST_CALC, drawing_cache, write_record  # noqa: F401  (fixture)
+
+
+@pytest.fixture(scope="module")
+def demo(drawing_cache):
+    return collect(DEMO, cache=drawing_cache)
+
+
+@pytest.fixture(scope="module")
+def tree(demo, tmp_path_factory):
+    root = tmp_path_factory.mktemp("tree")
+    write_tree(demo, root)
+    return root
+
+
+def page(tree, path: str) -> str:
+    return (tree / path).read_text(encoding="utf-8")
+
+
+def table_row(text: str, first_cell: str) -> list[str]:
+    line = next(line for line in text.splitlines() if line.startswith(f"| {first_cell}"))
+    return [cell.strip() for cell in line.strip("|").split("|")]
+
+
+def test_index_lists_every_build_with_revision_status_date_and_counts(demo, tree):
+    index = page(tree, "index.md")
+    for build in demo.builds:
+        record = build.current.record
+        row = table_row(index, f"[{record.title}]")
+        tally = counts(build.current.findings)
+        assert row[0] == f"[{record.title}](builds/{build.id}/index.md)"
+        assert row[1:] == [build.current.letter, _status_title(build), record.date.isoformat(), str(tally[Verdict.PASS]), str(tally[Verdict.MARGINAL]), str(tally[Verdict.FAIL])]
+
+
+def _status_title(build) -> str:
+    """The record's status, or, after a passed commissioning, the status it advances to."""
+    from dossier.record.identity import STATUS_TITLES
+
+    state = build.current.extras.commissioning
+    return state.status.title if state is not None else STATUS_TITLES[build.current.record.status]
+
+
+def test_a_passed_commissioning_advances_the_status_shown(tree):
+    # demo: sw-charger-12v rev C is 'in-enclosure' and its commissioning-C.yaml passed on 2026-05-12
+    row = table_row(page(tree, "index.md"), "[12 V lead-acid charger")
+    assert row[2] == "In its enclosure, commissioned 2026-05-12"
+
+
+def test_index_is_newest_first_and_carries_the_caution(tree):
+    index = page(tree, "index.md")
+    dates = re.findall(r"\| (\d{4}-\d\d-\d\d) \|", index)
+    assert dates == sorted(dates, reverse=True) and len(dates) == 3
+    assert MAINS_CAUTION in index
+
+
+def test_status_pages_filter_the_index(demo, tree):
+    for build in demo.builds:
+        status = build.current.record.status
+        listed = page(tree, f"status/{status}.md")
+        assert f"(../builds/{build.id}/index.md)" in listed
+        others = [b for b in demo.builds if b.current.record.status != status]
+        assert all(f"builds/{other.id}/" not in listed for other in others)
+    assert "[Design (1)](status/design.md)" in page(tree, "index.md")
+
+
+def test_overview_has_what_mains_hazards_and_caution(tree):
+    overview = page(tree, "builds/sw-charger-12v/index.md")
+    assert overview.startswith('---\ntitle: "12 V lead-acid charger, self-oscillating half-bridge"\n---')
+    assert "# 12 V lead-acid charger, self-oscillating half-bridge" in overview
+    assert "**Revision C** (current)" in overview
+    assert "- **Nominal voltage:** 230 V" in overview and "- **Frequency:** 50 Hz" in overview
+    hazards = overview.split("## Hazards")[1].split("## Verdicts")[0]
+    assert "Mains voltage, 230 V at 50 Hz" in hazards and "Stored charge: 235 µF" in hazards
+    assert MAINS_CAUTION in overview
+
+
+def test_overview_lists_failing_findings_first_with_links_into_the_calcs_page(demo, tree):
+    build = next(b for b in demo.builds if b.id == "sw-charger-12v")
+    findings = build.revisions[0].findings
+    failing = [f for f in findings if f.verdict is Verdict.FAIL]
+    marginal = [f for f in findings if f.verdict is Verdict.MARGINAL]
+    assert failing, "revision A of the demo charger is meant to fail"
+    overview = page(tree, "builds/sw-charger-12v/rev-A/index.md")
+    verdict_rows = [line for line in overview.split("## Verdicts")[1].split("| Calc |")[0].splitlines() if line.startswith("| **")]
+    assert len(verdict_rows) == len(failing) + len(marginal)
+    assert all("**fail**" in row for row in verdict_rows[: len(failing)])
+    assert all("**marginal**" in row for row in verdict_rows[len(failing) :])
+    assert all("](calcs.md#" in row for row in verdict_rows)
+
+
+def test_calcs_page_has_a_section_per_calc_with_values_limits_formulas_and_sources(demo, tree):
+    calcs_page = page(tree, "builds/sw-charger-12v/calcs.md")
+    for calc in demo.calcs:
+        assert f"\n## {calc.title}\n" in calcs_page
+    finding = next(f for f in next(b for b in demo.builds if b.id == "sw-charger-12v").current.findings if f.limit is not None and f.sources and f.method)
+    section = calcs_page.split(f"### {finding_label(finding)}")[1].split("\n### ")[0]
+    assert f"**{finding.verdict.value}**" in section
+    assert "- Limit: " in section and "- Formula: " in section and "- Sources: " in section
+    assert "- From the record: " in section and "sw-charger-12v/rev-C.yaml, line " in section
+
+
+def test_earlier_revisions_are_frozen_at_their_own_address_with_a_notice(tree):
+    for letter in "AB":
+        for name in ("index", "calcs"):
+            text = page(tree, f"builds/sw-charger-12v/rev-{letter}/{name}.md")
+            assert '!!! warning "A newer revision exists"' in text
+            assert "The current revision is [revision C](../index.md)" in text
+    assert "A newer revision exists" not in page(tree, "builds/sw-charger-12v/index.md")
+
+
+def test_the_current_revision_also_has_its_permanent_address(tree):
+    pointer = page(tree, "builds/sw-charger-12v/rev-C/index.md")
+    assert "Revision C is the current revision" in pointer and "(../index.md)" in pointer
+    assert "search:\n  exclude: true" in pointer
+
+
+def test_every_build_page_links_its_revisions_and_pages(tree):
+    head = page(tree, "builds/sw-charger-12v/rev-B/calcs.md")
+    assert "Revisions: [A](../rev-A/index.md) · **B** · [C](../index.md) (current)" in head
+    assert "[Overview](index.md) · **Calculations** · [Schematics](schematics.md)" in head
+
+
+def test_changes_page_lists_values_and_findings_revision_by_revision(demo, tree):
+    changes = page(tree, "builds/sw-charger-12v/changes.md")
+    assert changes.index("## Revision C") < changes.index("## Revision B") < changes.index("## Revision A")
+    step_b = changes.split("## Revision B")[1].split("## Revision A")[0]
+    assert "| barriers\\[primary to output\\].creepage | 3.2 mm | 6.4 mm |" in step_b
+    assert "| protection.fuse.rating | 1 A | 2 A |" in step_b
+    build = next(b for b in demo.builds if b.id == "sw-charger-12v")
+    clearance = [c for c in finding_changes(build.revisions[0].findings, build.revisions[1].findings) if c.before and c.after and c.before.code == "ISO-CLEARANCE"]
+    assert clearance and f"| {clearance[0].label} | fail," in step_b
+    assert "the first revision" in changes.split("## Revision A")[1]
+
+
+def test_schematics_page_shows_the_drawn_figures(tree):
+    schematics = page(tree, "builds/sw-charger-12v/schematics.md")
+    figures = re.findall(r"!\[[^\]]*\]\((figures/[a-z0-9-]+\.svg)\)", schematics)
+    assert figures and all((tree / "builds/sw-charger-12v" / f).read_text(encoding="utf-8").lstrip().startswith(("<svg", "<?xml")) for f in figures)
+
+
+def test_checklist_page_per_revision_when_the_checklist_module_is_present(tree):
+    pytest.importorskip("dossier.checklist.page")
+    for path in ("builds/sw-charger-12v/checklist.md", "builds/sw-charger-12v/rev-A/checklist.md"):
+        assert "checklist" in page(tree, path).lower()
+    assert "[Checklist](checklist.md)" in page(tree, "builds/sw-charger-12v/index.md")
+
+
+def test_generation_is_byte_identical_for_unchanged_inputs(demo, tree, tmp_path):
+    write_tree(demo, tmp_path)
+    assert tree_digest(tmp_path) == tree_digest(tree)
+
+
+def tree_digest(root) -> dict:
+    return {str(p.relative_to(root)): hashlib.sha256(p.read_bytes()).hexdigest() for p in sorted(root.rglob("*")) if p.is_file()}
+
+
+def test_attachments_photos_shown_datasheets_linked(tmp_path):
+    archive = tmp_path / "archive"
+    (archive / "amp").mkdir(parents=True)
+    (archive / "amp" / "board.svg").write_text("<svg xmlns='http://www.w3.org/2000/svg'><rect width='4' height='4'/></svg>", encoding="utf-8")
+    (archive / "amp" / "sheet.pdf").write_bytes(b"%PDF-1.4 invented\n")
+    (archive / "amp" / "trap.svg").write_text("<svg xmlns='http://www.w3.org/2000/svg'><script>alert(1)</script></svg>", encoding="utf-8")
+    attachments = [
+        {"path": "board.svg", "kind": "photo", "caption": "The board, top side"},
+        {"path": "sheet.pdf", "kind": "datasheet", "caption": "Regulator datasheet"},
+        {"path": "trap.svg", "kind": "photo", "caption": "Trap"},
+    ]
+    write_record(archive, "amp", "A", attachments=attachments)
+    root = tmp_path / "tree"
+    write_tree(collect(archive, [TEST_CALC]), root)
+    overview = page(root, "builds/amp/index.md")
+    assert "![The board, top side](files/board.svg)" in overview
+    assert "- [Regulator datasheet](files/sheet.pdf) (datasheet)" in overview
+    assert "Trap: not published" in overview
+    assert (root / "builds/amp/files/sheet.pdf").read_bytes() == b"%PDF-1.4 invented\n"
+    assert not (root / "builds/amp/files/trap.svg").exists()
+
+
+def test_a_build_without_mains_has_no_caution(tmp_path):
+    archive = tmp_path / "archive"
+    write_record(archive, "bench-meter", "A", mains=None, stages=[], barriers=[])
+    root = tmp_path / "tree"
+    write_tree(collect(archive, [TEST_CALC]), root)
+    overview = page(root, "builds/bench-meter/index.md")
+    assert MAINS_CAUTION not in overview and "This build has no mains connection." in overview
+
+
+def test_an_amendment_after_publication_shows_on_the_changes_page(tmp_path):
+    import datetime
+
+    from dossier.ledger import Target, amend, publish, save_ledger
+
+    archive = tmp_path / "archive"
+    write_record(archive, "amp", "A")
+    write_record(archive, "amp", "B", notes="Rewound.")
+    save_ledger(archive, publish(archive, [], datetime.date(2026, 2, 1))[0])
+    path = archive / "amp" / "rev-A.yaml"
+    path.write_text(path.read_text(encoding="utf-8").replace("club's winder", "club's coil winder"), encoding="utf-8")
+    save_ledger(archive, amend(archive, Target.parse("amp:A"), "typo in the notes", datetime.date(2026, 2, 9)))
+    root = tmp_path / "tree"
+    write_tree(collect(archive, [TEST_CALC]), root)
+    step_a = page(root, "builds/amp/changes.md").split("## Revision A")[1]
+    assert "### Edited after publication" in step_a and "- 2026-02-09: typo in the notes (content hash sha256 " in step_a
+    assert "Published on 2026-02-01" in page(root, "builds/amp/rev-A/index.md")
+
+
+def test_archive_settings_errors_are_located(tmp_path):
+    from dossier.problems import InputError
+
+    archive = tmp_path / "archive"
+    write_record(archive, "amp", "A")
+    (archive / "archive.yaml").write_text("club: Test club\ntitel: Misspelt\n", encoding="utf-8")
+    with pytest.raises(InputError) as refused:
+        collect(archive, [TEST_CALC])
+    problem = refused.value.problems[0]
+    assert (problem.code, problem.key, problem.location.line, problem.location.column) == ("extra_forbidden", "titel", 2, 1)
+
+
+def test_an_empty_archive_gives_an_index_with_no_builds(tmp_path):
+    (tmp_path / "archive").mkdir()
+    root = tmp_path / "tree"
+    write_tree(collect(tmp_path / "archive", [TEST_CALC]), root)
+    assert "No builds." in page(root, "index.md")
+
+
+def test_a_failing_drawing_is_shown_on_the_page_and_does_not_stop_the_site(tmp_path, monkeypatch):
+    def broken(record, findings, cache=None):
+        raise RuntimeError("no pencil")
+
+    monkeypatch.setattr("dossier.collect.extras.draw", broken)
+    archive = tmp_path / "archive"
+    write_record(archive, "amp", "A")
+    summary = write_tree(collect(archive, [TEST_CALC]), tmp_path / "tree")
+    assert summary.warnings == ["amp rev A: the schematics could not be made: RuntimeError: no pencil"]
+    overview = page(tmp_path / "tree", "builds/amp/index.md")
+    assert '!!! bug "Parts of this page could not be made"' in overview and "RuntimeError: no pencil" in overview

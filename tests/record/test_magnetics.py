@@ -1,0 +1,80 @@
+"""Bad or missing magnetics values in a record give located problems, each with file, line, column and key."""
+
+from __future__ import annotations
+
+from pathlib import Path
+
+import pytest
+
+from dossier.problems import InputError
+from dossier.reading.record import load_record
+from dossier.wording import problem_line
+
+DEMO = Path(__file__).resolve().parents[2] / "demo" / "archive" / "sw-charger-12v" / "rev-C.yaml"
+
+CASES = {
+    "inner-not-inside-outer": (
+        "inner_diameter: 23 mm", "inner_diameter: 40 mm",
+        "magnetics[0].core.inner_diameter: value out of range; expected less than the outer diameter (36 mm), found 40 mm",
+    ),
+    "excitation-names-no-winding": (
+        "winding: upper base", "winding: upper bass",
+        "magnetics[1].excitation: unknown winding; expected the name of one of the windings "
+        "(current feedback, upper base, lower base), found 'upper bass'",
+    ),
+    "winding-named-twice": (
+        "{name: lower base,", "{name: upper base,",
+        "magnetics[1].windings: duplicate name; expected a different name for each winding, found 'upper base' given twice",
+    ),
+    "duty-over-100-percent": (
+        "duty: 10 %", "duty: 120 %",
+        "magnetics[2].excitation.duty: value out of range; expected more than 0 % and at most 100 %, found 120 %",
+    ),
+    "toroid-without-height": (
+        "      height: 15 mm\n", "",
+        "magnetics[0].core: incomplete core; expected height for a toroid core, found not given",
+    ),
+    "negative-wire": (
+        "turns: 60, wire: 0.5 mm", "turns: 60, wire: -0.5 mm",
+        "magnetics[0].windings[0].wire: value out of range; expected more than zero, found -0.5 mm",
+    ),
+    "field-limit-in-amperes": (
+        "max_field: 4000 A/m", "max_field: 4000 A",
+        "magnetics[2].core.material.max_field: wrong kind of unit; expected field strength (e.g. 4000 A/m), found 4000.0 A (current)",
+    ),
+    "unknown-core-family": (
+        "family: iron-powder", "family: powdered iron",
+        "magnetics[2].core.material.family: not one of the allowed values; expected 'ferrite', 'iron-powder' or "
+        "'silicon-steel', found 'powdered iron'",
+    ),
+    "zero-frequency": (
+        "frequency: 40 kHz\n    core", "frequency: 0 kHz\n    core",
+        "magnetics[0].frequency: value out of range; expected more than zero, found 0 kHz",
+    ),
+}
+
+
+def problems_of(tmp_path, old, new):
+    text = DEMO.read_text(encoding="utf-8")
+    assert text.count(old) >= 1, old
+    path = tmp_path / "rev-C.yaml"
+    path.write_text(text.replace(old, new, 1), encoding="utf-8")
+    with pytest.raises(InputError) as raised:
+        load_record(path, shown_as="CASE")
+    return raised.value.problems
+
+
+@pytest.mark.parametrize("case", sorted(CASES))
+def test_bad_magnetics_value_is_located(tmp_path, case):
+    old, new, expected = CASES[case]
+    problems = problems_of(tmp_path, old, new)
+    assert len(problems) == 1
+    line = problem_line(problems[0])
+    assert line.startswith("CASE:") and line.split(":")[1].isdigit() and line.split(":")[2].isdigit()
+    assert line.split(": ", 1)[1] == expected
+
+
+def test_the_location_points_at_the_bad_line(tmp_path):
+    problems = problems_of(tmp_path, "inner_diameter: 23 mm", "inner_diameter: 40 mm")
+    lines = DEMO.read_text(encoding="utf-8").splitlines()
+    assert "inner_diameter" in lines[problems[0].location.line - 1]

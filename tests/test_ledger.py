@@ -1,0 +1,183 @@
+"""Published revisions are frozen: hashes recorded, edits refused with a way forward, typo fixes recorded."""
+
+from __future__ import annotations
+
+import datetime
+
+import pytest
+import yaml
+from click.testing import CliRunner
+
+from dossier.cli import main
+from dossier.ledger import LOCK_FILE, Target, amend, frozen_problems, load_ledger, next_letter, publish, record_digest, save_ledger
+from dossier.problems import InputError
+from dossier.wording import problem_line
+from tests.fixtures.site_kit import write_record
+
+DAY = datetime.date(2026, 3, 1)
+LATER = datetime.date(2026, 4, 2)
+
+
+@pytest.fixture
+def archive(tmp_path):
+    root = tmp_path / "archive"
+    write_record(root, "amp", "A")
+    write_record(root, "amp", "B")
+    write_record(root, "psu", "A")
+    return root
+
+
+def published(root, targets=()):
+    ledger, chosen = publish(root, [Target.parse(t) for t in targets], DAY)
+    save_ledger(root, ledger)
+    return chosen
+
+
+def test_publish_records_every_unpublished_revision(archive):
+    chosen = published(archive)
+    assert [(rev.build_id, rev.letter) for rev in chosen] == [("amp", "A"), ("amp", "B"), ("psu", "A")]
+    ledger = load_ledger(archive)
+    assert ledger.entry("amp", "B").sha256 == record_digest(archive / "amp" / "rev-B.yaml")
+    assert ledger.entry("amp", "B").published == DAY
+
+
+def test_publishing_again_adds_only_new_revisions(archive):
+    published(archive)
+    write_record(archive, "amp", "C")
+    assert [(rev.build_id, rev.letter) for rev in published(archive)] == [("amp", "C")]
+
+
+def test_publish_can_name_one_build_or_revision(archive):
+    assert [(r.build_id, r.letter) for r in published(archive, ["amp:A"])] == [("amp", "A")]
+    assert [(r.build_id, r.letter) for r in published(archive, ["psu"])] == [("psu", "A")]
+
+
+def test_an_unknown_target_is_refused(archive):
+    with pytest.raises(InputError) as refused:
+        publish(archive, [Target.parse("nope:A")], DAY)
+    assert refused.value.problems[0].code == "unknown_revision"
+
+
+def test_an_invalid_record_is_not_published(archive):
+    (archive / "psu" / "rev-A.yaml").write_text("id: psu\ntitle: x\n", encoding="utf-8")
+    with pytest.raises(InputError):
+        publish(archive, [], DAY)
+    assert not (archive / LOCK_FILE).exists()
+
+
+def test_editing_a_published_revision_is_refused_and_says_to_add_a_revision(archive):
+    published(archive)
+    path = archive / "amp" / "rev-A.yaml"
+    path.write_text(path.read_text(encoding="utf-8").replace("2.5 mm", "4 mm"), encoding="utf-8")
+    problems = frozen_problems(archive, load_ledger(archive))
+    assert [p.code for p in problems] == ["published_changed"]
+    line = problem_line(problems[0])
+    assert "rev-A.yaml" in line and "new revision, rev-C.yaml" in line and "--amend amp:A" in line
+
+
+def test_line_endings_alone_are_not_an_edit(archive):
+    published(archive)
+    path = archive / "amp" / "rev-A.yaml"
+    path.write_bytes(path.read_bytes().replace(b"\n", b"\r\n"))
+    assert frozen_problems(archive, load_ledger(archive)) == []
+
+
+def test_a_deleted_published_revision_is_reported(archive):
+    published(archive)
+    (archive / "amp" / "rev-B.yaml").unlink()
+    assert [p.code for p in frozen_problems(archive, load_ledger(archive))] == ["published_missing"]
+
+
+def test_a_changed_attachment_of_a_published_revision_is_reported(archive):
+    (archive / "amp" / "photo.svg").write_text("<svg xmlns='http://www.w3.org/2000/svg'/>", encoding="utf-8")
+    write_record(archive, "amp", "A", attachments=[{"path": "photo.svg", "kind": "photo", "caption": "The board"}])
+    published(archive)
+    (archive / "amp" / "photo.svg").write_text("<svg xmlns='http://www.w3.org/2000/svg'><rect/></svg>", encoding="utf-8")
+    assert [p.code for p in frozen_problems(archive, load_ledger(archive))] == ["published_file_changed"]
+
+
+def test_publish_is_refused_while_a_published_revision_is_edited(archive):
+    published(archive, ["amp:A"])
+    path = archive / "amp" / "rev-A.yaml"
+    path.write_text(path.read_text(encoding="utf-8") + "\n# edited\n", encoding="utf-8")
+    with pytest.raises(InputError):
+        publish(archive, [], DAY)
+
+
+def test_an_amendment_is_recorded_with_reason_dates_and_both_hashes(archive):
+    published(archive)
+    path = archive / "amp" / "rev-A.yaml"
+    before = record_digest(path)
+    path.write_text(path.read_text(encoding="utf-8").replace("club's winder", "club's coil winder"), encoding="utf-8")
+    save_ledger(archive, amend(archive, Target.parse("amp:A"), "typo in the notes", LATER))
+    entry = load_ledger(archive).entry("amp", "A")
+    assert entry.published == DAY
+    assert entry.sha256 == record_digest(path)
+    assert [(a.date, a.reason, a.before, a.after) for a in entry.amendments] == [(LATER, "typo in the notes", before, record_digest(path))]
+    assert frozen_problems(archive, load_ledger(archive)) == []
+
+
+def test_amending_an_unchanged_or_unpublished_revision_is_refused(archive):
+    published(archive, ["amp:A"])
+    with pytest.raises(InputError) as unchanged:
+        amend(archive, Target.parse("amp:A"), "nothing", LATER)
+    assert unchanged.value.problems[0].code == "nothing_to_amend"
+    with pytest.raises(InputError) as unpublished:
+        amend(archive, Target.parse("amp:B"), "typo", LATER)
+    assert unpublished.value.problems[0].code == "not_published"
+
+
+def test_the_lock_file_is_readable_yaml_with_a_header(archive):
+    published(archive)
+    text = (archive / LOCK_FILE).read_text(encoding="utf-8")
+    assert text.startswith("# Published revisions")
+    assert set(yaml.safe_load(text)["builds"]) == {"amp", "psu"}
+
+
+def test_a_broken_lock_file_is_a_located_error(archive):
+    (archive / LOCK_FILE).write_text("format: 1\nbuilds:\n  amp:\n    A:\n      published: 2026-01-01\n      sha256: nothex\n", encoding="utf-8")
+    with pytest.raises(InputError) as broken:
+        load_ledger(archive)
+    problem = broken.value.problems[0]
+    assert problem.location.line == 6 and problem.key == "builds.amp.A.sha256"
+
+
+@pytest.mark.parametrize("letter,following", [("A", "B"), ("Y", "Z"), ("Z", "AA"), ("AZ", "BA"), ("ZZ", "AAA")])
+def test_next_letter(letter, following):
+    assert next_letter(letter) == following
+
+
+def test_the_publish_command_freezes_and_checks(archive):
+    runner = CliRunner()
+    first = runner.invoke(main, ["publish", str(archive)])
+    assert first.exit_code == 0 and "published amp rev B" in first.output
+    assert runner.invoke(main, ["publish", str(archive), "--check"]).exit_code == 0
+    path = archive / "psu" / "rev-A.yaml"
+    path.write_text(path.read_text(encoding="utf-8").replace("T1A", "T2A"), encoding="utf-8")
+    checked = runner.invoke(main, ["publish", str(archive), "--check"])
+    assert checked.exit_code == 1
+    assert "psu/rev-A.yaml" in checked.stderr and "has changed since" in checked.stderr
+
+
+def test_the_amend_option_needs_a_reason(archive):
+    runner = CliRunner()
+    runner.invoke(main, ["publish", str(archive)])
+    result = runner.invoke(main, ["publish", str(archive), "--amend", "amp:A"])
+    assert result.exit_code == 2 and "--reason" in result.output
+
+
+def test_a_failed_write_of_the_ledger_keeps_the_old_file_and_leaves_no_temporary(tmp_path, monkeypatch):
+    archive = tmp_path / "archive"
+    path = write_record(archive, "amp", "A")
+    save_ledger(archive, publish(archive, [Target.parse("amp:A")], DAY)[0])
+    before = (archive / LOCK_FILE).read_bytes()
+    path.write_text(path.read_text(encoding="utf-8").replace("club's winder", "club's coil winder"), encoding="utf-8")
+
+    def disk_full(*args):
+        raise OSError(28, "No space left on device")
+
+    monkeypatch.setattr("dossier.ledger.os.fsync", disk_full)
+    with pytest.raises(OSError):
+        save_ledger(archive, amend(archive, Target.parse("amp:A"), "typo in the notes", LATER))
+    assert (archive / LOCK_FILE).read_bytes() == before
+    assert sorted(p.name for p in archive.iterdir()) == ["amp", LOCK_FILE]
