@@ -7,7 +7,10 @@ from dataclasses import dataclass, field
 
 
 class Verdict(str, enum.Enum):
+    """In order of severity. NOT_ASSESSED: the record does not give what the check needs."""
+
     FAIL = "fail"
+    NOT_ASSESSED = "not-assessed"
     MARGINAL = "marginal"
     PASS = "pass"
     INFO = "info"
@@ -63,6 +66,12 @@ class Finding:
     keys: tuple[tuple, ...] = ()
     sources: tuple[Source, ...] = ()
     extra: tuple[Measure, ...] = field(default=())
+    mains: bool = False  # concerns a mains barrier or the mains protection: not assessed blocks power-up
+
+    @property
+    def blocks_power_up(self) -> bool:
+        """A fail blocks power-up; so does a check on a mains barrier or the mains protection that was not made."""
+        return self.verdict is Verdict.FAIL or (self.verdict is Verdict.NOT_ASSESSED and self.mains)
 
     @property
     def value(self) -> Measure | None:

@@ -162,9 +162,20 @@ def _value_change(old: Finding, new: Finding) -> str:
     return f"{before or 'no value'} -> {after or 'no value'}" if before != after else ""
 
 
+# A mark beside each verdict word, so a verdict reads without colour (and the colour only repeats it).
+VERDICT_MARKS = {Verdict.FAIL: "\u2717", Verdict.NOT_ASSESSED: "?", Verdict.MARGINAL: "!", Verdict.PASS: "\u2713", Verdict.INFO: "i"}
+
+
+def verdict_word(verdict: Verdict) -> str:
+    """The verdict as a person reads it: 'not assessed', 'fail', ..."""
+    return verdict.value.replace("-", " ")
+
+
 def verdict_summary_text(tally: dict) -> str:
-    """'2 fail, 1 marginal, 12 pass' from counts by verdict."""
-    shown = [f"{tally.get(verdict, 0)} {verdict.value}" for verdict in (Verdict.FAIL, Verdict.MARGINAL, Verdict.PASS)]
+    """'2 fail, 1 marginal, 12 pass' from counts by verdict; 'not assessed' only when there are any."""
+    shown = [f"{tally.get(verdict, 0)} {verdict_word(verdict)}" for verdict in (Verdict.FAIL, Verdict.MARGINAL, Verdict.PASS)]
+    if tally.get(Verdict.NOT_ASSESSED):
+        shown.insert(1, f"{tally[Verdict.NOT_ASSESSED]} not assessed")
     return ", ".join(shown)
 
 

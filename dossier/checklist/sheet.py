@@ -42,7 +42,7 @@ def build_checklist(record, findings: list[Finding]) -> Checklist:
         revision=record.revision,
         title=record.title,
         caution=POWER_UP_CAUTION,
-        blockers=tuple(f for f in findings if f.verdict is Verdict.FAIL),
+        blockers=tuple(f for f in findings if f.blocks_power_up),
         items=tuple(_ordered(all_items(record, findings))),
     )
 

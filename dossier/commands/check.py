@@ -53,7 +53,7 @@ def _check_one(rev, calcs, outcome: Outcome, verbose: bool) -> None:
         outcome.json.append(json_report.invalid_json(str(rev.path), error.problems))
         return
     findings = review(loaded.record, calcs)
-    outcome.failed |= any(f.verdict is Verdict.FAIL for f in findings)
+    outcome.failed |= any(f.blocks_power_up for f in findings)
     title = f"{rev.path}  ({loaded.record.id} rev {loaded.record.revision}: {loaded.record.title})"
     outcome.blocks.extend(text_report.record_block(title, findings, loaded.locate, verbose))
     outcome.json.append(json_report.record_json(str(rev.path), findings, loaded.locate))
@@ -82,4 +82,4 @@ def render(outcome: Outcome, as_json: bool) -> str:
 
 
 def has_failures(findings: list[Finding]) -> bool:
-    return any(f.verdict is Verdict.FAIL for f in findings)
+    return any(f.blocks_power_up for f in findings)

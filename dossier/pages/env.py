@@ -14,7 +14,8 @@ import jinja2
 
 from dossier import markup
 from dossier.templates import templates_dir
-from dossier.wording import quantity_text
+from dossier.findings import Verdict
+from dossier.wording import VERDICT_MARKS, quantity_text, verdict_word
 
 
 class Md(str):
@@ -35,6 +36,13 @@ def _finalize(value):
     if isinstance(value, Md):
         return value
     return markup.text(value)
+
+
+def _verdict(value) -> Md:
+    """A verdict as a coloured badge holding a mark and the word, e.g. '✗ fail'."""
+    verdict = Verdict(value)
+    return Md(f'<span class="dossier-verdict dossier-verdict-{verdict.value}">'
+              f'<span aria-hidden="true">{VERDICT_MARKS[verdict]}</span> {verdict_word(verdict)}</span>')
 
 
 def _quantity(value) -> Md:
@@ -60,6 +68,7 @@ def environment() -> jinja2.Environment:
         yaml=_safe(markup.yaml_string),
         fence=_safe(markup.fence),
         quantity=_quantity,
+        verdict=_verdict,
     )
     env.globals["Md"] = Md
     return env

@@ -138,7 +138,7 @@ def revision_view(archive: Archive, build: Build, revision: Revision) -> Revisio
     is_current = revision is build.current
     root = layout.revision_root(build.id, revision.letter, is_current)
     sections = _calc_sections(archive, revision, root)
-    failing = [view for section in sections for view in section.findings if view.finding.verdict in (Verdict.FAIL, Verdict.MARGINAL)]
+    failing = [view for section in sections for view in section.findings if view.finding.verdict in (Verdict.FAIL, Verdict.NOT_ASSESSED, Verdict.MARGINAL)]
     photos, documents = _attachments(build, revision)
     return RevisionView(
         build_id=build.id,

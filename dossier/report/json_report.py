@@ -31,11 +31,14 @@ def finding_json(finding: Finding, locate) -> dict:
         "verdict": finding.verdict.value,
         "values": [measure_json(m) for m in finding.values],
         "limit": measure_json(finding.limit),
+        "extra": [measure_json(m) for m in finding.extra],
         "relation": finding.relation if finding.limit else None,
         "method": finding.method,
         "explanation": finding.explanation,
         "keys": [{"key": dotted(k), "at": str(locate(k))} for k in finding.keys],
         "sources": [source_json(s) for s in finding.sources],
+        "mains": finding.mains,
+        "blocks_power_up": finding.blocks_power_up,
     }
 
 

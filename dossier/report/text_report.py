@@ -3,9 +3,9 @@
 from __future__ import annotations
 
 from dossier.findings import Finding, Verdict, counts
-from dossier.wording import comparison_text, margin_text, problem_line, sources_text
+from dossier.wording import comparison_text, margin_text, problem_line, sources_text, verdict_word
 
-MARKS = {Verdict.FAIL: "FAIL", Verdict.MARGINAL: "MARG", Verdict.PASS: "ok  ", Verdict.INFO: "info"}
+MARKS = {Verdict.FAIL: "FAIL", Verdict.NOT_ASSESSED: "OPEN", Verdict.MARGINAL: "MARG", Verdict.PASS: "ok  ", Verdict.INFO: "info"}
 
 
 def finding_lines(finding: Finding, locate) -> list[str]:
@@ -15,7 +15,7 @@ def finding_lines(finding: Finding, locate) -> list[str]:
     if comparison:
         margin = margin_text(finding)
         lines.append(f"        {comparison}" + (f"; {margin}" if margin else ""))
-    if finding.explanation and finding.verdict in (Verdict.FAIL, Verdict.MARGINAL, Verdict.INFO):
+    if finding.explanation and finding.verdict is not Verdict.PASS:
         lines.append(f"        {finding.explanation}")
     if finding.keys and finding.verdict is not Verdict.PASS:
         lines.append(f"        at {locate(finding.keys[0])}")
@@ -35,7 +35,7 @@ def record_block(title: str, findings: list[Finding], locate, verbose: bool) -> 
 
 def summary_text(findings: list[Finding]) -> str:
     tally = counts(findings)
-    return ", ".join(f"{n} {verdict.value}" for verdict, n in tally.items())
+    return ", ".join(f"{n} {verdict_word(verdict)}" for verdict, n in tally.items())
 
 
 def problem_block(problems) -> list[str]:

@@ -69,9 +69,10 @@ def test_json_output_has_the_documented_shape():
     assert body["shape"] == 1 and body["exit_code"] == result.exit_code
     (record,) = body["records"]
     assert set(record) == {"file", "valid", "counts", "findings"}
-    assert set(record["counts"]) == {"fail", "marginal", "pass", "info"}
+    assert set(record["counts"]) == {"fail", "not-assessed", "marginal", "pass", "info"}
     for finding in record["findings"]:
-        assert {"code", "calc", "subject", "title", "verdict", "values", "limit", "relation", "method", "explanation", "keys", "sources"} == set(finding)
+        assert {"code", "calc", "subject", "title", "verdict", "values", "limit", "extra", "relation", "method", "explanation",
+                "keys", "sources", "mains", "blocks_power_up"} == set(finding)
 
 
 def test_schema_is_json_schema_with_units_described():

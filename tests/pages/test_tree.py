@@ -45,7 +45,7 @@ def test_index_lists_every_build_with_revision_status_date_and_counts(demo, tree
         row = table_row(index, f"[{record.title}]")
         tally = counts(build.current.findings)
         assert row[0] == f"[{record.title}](builds/{build.id}/index.md)"
-        assert row[1:] == [build.current.letter, _status_title(build), record.date.isoformat(), str(tally[Verdict.PASS]), str(tally[Verdict.MARGINAL]), str(tally[Verdict.FAIL])]
+        assert row[1:] == [build.current.letter, _status_title(build), record.date.isoformat(), *(str(tally[v]) for v in (Verdict.FAIL, Verdict.NOT_ASSESSED, Verdict.MARGINAL, Verdict.PASS))]
 
 
 def _status_title(build) -> str:
@@ -93,14 +93,12 @@ def test_overview_has_what_mains_hazards_and_caution(tree):
 def test_overview_lists_failing_findings_first_with_links_into_the_calcs_page(demo, tree):
     build = next(b for b in demo.builds if b.id == "sw-charger-12v")
     findings = build.revisions[0].findings
-    failing = [f for f in findings if f.verdict is Verdict.FAIL]
-    marginal = [f for f in findings if f.verdict is Verdict.MARGINAL]
-    assert failing, "revision A of the demo charger is meant to fail"
+    shown = [Verdict.FAIL, Verdict.NOT_ASSESSED, Verdict.MARGINAL]
+    expected = [v.value for v in shown for f in findings if f.verdict is v]
+    assert Verdict.FAIL.value in expected, "revision A of the demo charger is meant to fail"
     overview = page(tree, "builds/sw-charger-12v/rev-A/index.md")
-    verdict_rows = [line for line in overview.split("## Verdicts")[1].split("| Calc |")[0].splitlines() if line.startswith("| **")]
-    assert len(verdict_rows) == len(failing) + len(marginal)
-    assert all("**fail**" in row for row in verdict_rows[: len(failing)])
-    assert all("**marginal**" in row for row in verdict_rows[len(failing) :])
+    verdict_rows = [line for line in overview.split("## Verdicts")[1].split("| Calc |")[0].splitlines() if 'class="dossier-verdict ' in line]
+    assert [row.split("dossier-verdict-")[1].split('"')[0] for row in verdict_rows] == expected
     assert all("](calcs.md#" in row for row in verdict_rows)
 
 
@@ -110,7 +108,7 @@ def test_calcs_page_has_a_section_per_calc_with_values_limits_formulas_and_sourc
         assert f"\n## {calc.title}\n" in calcs_page
     finding = next(f for f in next(b for b in demo.builds if b.id == "sw-charger-12v").current.findings if f.limit is not None and f.sources and f.method)
     section = calcs_page.split(f"### {finding_label(finding)}")[1].split("\n### ")[0]
-    assert f"**{finding.verdict.value}**" in section
+    assert f'class="dossier-verdict dossier-verdict-{finding.verdict.value}"' in section
     assert "- Limit: " in section and "- Formula: " in section and "- Sources: " in section
     assert "- From the record: " in section and "sw-charger-12v/rev-C.yaml, line " in section
 

@@ -334,12 +334,12 @@ def verdict(site: Site, declared, required) -> Verdict:
 
 def not_assessed(site: Site, code: str, what: str, reason: str, keys: tuple, source) -> Finding:
     why = f"{reason}; check this barrier against IEC 60664-1 directly"
-    return not_assessed_finding(NAME, code, site.barrier.name, f"{what} not assessed", why, keys, (source,))
+    return not_assessed_finding(NAME, code, site.barrier.name, f"{what} not assessed", why, keys, (source,), mains=True)
 
 
 def no_voltage_finding(site: Site) -> Finding:
     return finding(code="ISO-NO-VOLTAGE", subject=site.barrier.name, title="Barrier not assessed: no working voltage",
-                   verdict=Verdict.INFO, keys=(site.key("working_voltage"), ("mains",)), sources=(INPUTS_SOURCE,),
+                   verdict=Verdict.NOT_ASSESSED, mains=True, keys=(site.key("working_voltage"), ("mains",)), sources=(INPUTS_SOURCE,),
                    explanation=("The record has no mains section and the barrier declares no working_voltage. Add a mains section "
                                 "(nominal, frequency, overvoltage_category) or give working_voltage on this barrier."))
 

@@ -12,10 +12,11 @@ def maker(calc: str):
     return partial(Finding, calc=calc)
 
 
-def not_assessed(calc: str, code: str, subject: str, title: str, why: str, keys: tuple, sources: tuple = ()) -> Finding:
-    """An 'info' finding for a check that could not be made, saying why (and so what to add)."""
-    return Finding(code=code, calc=calc, subject=subject, title=title, verdict=Verdict.INFO,
-                   explanation=f"Not assessed: {why}.", keys=keys, sources=sources)
+def not_assessed(calc: str, code: str, subject: str, title: str, why: str, keys: tuple, sources: tuple = (),
+                 mains: bool = False) -> Finding:
+    """A check that could not be made, saying why (and so what to add); on the mains it blocks power-up."""
+    return Finding(code=code, calc=calc, subject=subject, title=title, verdict=Verdict.NOT_ASSESSED,
+                   explanation=f"Not assessed: {why}.", keys=keys, sources=sources, mains=mains)
 
 
 def banded(value, wanted, bound, relation: str) -> Verdict:

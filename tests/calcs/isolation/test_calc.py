@@ -179,7 +179,7 @@ def test_reinforced_clearance_names_the_edition():
 def test_no_mains_and_no_working_voltage_says_what_to_add():
     findings = CALC.run(record_with({"grade": "basic", "material_group": "I", "creepage": "2 mm", "clearance": "2 mm"}, mains=False))
     assert [f.code for f in findings] == ["ISO-NO-VOLTAGE"]
-    assert findings[0].verdict is Verdict.INFO
+    assert findings[0].verdict is Verdict.NOT_ASSESSED
     assert "mains" in findings[0].explanation and "working_voltage" in findings[0].explanation
     assert findings[0].subject == "case barrier"
 
@@ -220,7 +220,7 @@ def test_declared_group_that_contradicts_the_cti_is_pointed_out():
 def test_beyond_the_tables_is_not_assessed_rather_than_guessed():
     findings = by_code(CALC.run(record_with({"grade": "basic", "material_group": "I", "creepage": "5 mm", "clearance": "3 mm"},
                                             environment={"altitude": "9000 m"})))
-    assert findings["ISO-CLEARANCE"].verdict is Verdict.INFO
+    assert findings["ISO-CLEARANCE"].verdict is Verdict.NOT_ASSESSED
     assert "not assessed" in findings["ISO-CLEARANCE"].title
     assert "Table A.2" in findings["ISO-CLEARANCE"].explanation
     # creepage is still judged, without a clearance floor: IEC 60664-1:2020 Table F.5 PD2 group I 1.25 mm
@@ -230,7 +230,7 @@ def test_beyond_the_tables_is_not_assessed_rather_than_guessed():
 def test_a_working_voltage_above_the_table_is_not_assessed():
     barrier = {"grade": "basic", "material_group": "I", "working_voltage": "1200 V", "creepage": "5 mm", "clearance": "3 mm"}
     findings = by_code(CALC.run(record_with(barrier)))
-    assert findings["ISO-CREEPAGE"].verdict is Verdict.INFO
+    assert findings["ISO-CREEPAGE"].verdict is Verdict.NOT_ASSESSED
     assert "Table F.5" in findings["ISO-CREEPAGE"].explanation
 
 

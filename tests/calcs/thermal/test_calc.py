@@ -107,7 +107,7 @@ def test_free_air_device_uses_junction_to_air():
 
 def test_a_device_without_data_is_not_assessed():
     finding = by(thermal.run(unit([device("BR1", kind="bridge", forward_voltage="1 V", current="1 A")])), "THERM-JUNCTION", "BR1")
-    assert finding.verdict is Verdict.INFO and "rth_ja" in finding.explanation
+    assert finding.verdict is Verdict.NOT_ASSESSED and "rth_ja" in finding.explanation
 
 
 # --- live tabs and pads --------------------------------------------------------------------------
