@@ -46,7 +46,24 @@ def prose(value, heading_floor: int = 3) -> str:
     escaped = _INLINE_TARGET.sub(_neutralise_inline, escaped)
     escaped = _REFERENCE_DEFINITION.sub(_neutralise_definition, escaped)
     escaped = escaped.replace("![", "\\![")
-    return _demote_headings(escaped, heading_floor).strip()
+    return _separate_lists(_demote_headings(escaped, heading_floor)).strip()
+
+
+_LIST_ITEM = re.compile(r"^\s{0,3}(?:[-*+]|\d{1,9}[.)])\s+\S")
+
+
+def _separate_lists(text: str) -> str:
+    """A blank line before a list that follows a line of text, as people write lists in notes and changes;
+    Markdown would otherwise run the list into the paragraph above it."""
+    lines = text.split("\n")
+    out: list[str] = []
+    for line in lines:
+        starts_list = bool(_LIST_ITEM.match(line))
+        after_text = bool(out) and out[-1].strip() != "" and not _LIST_ITEM.match(out[-1]) and not out[-1].startswith((" ", "\t"))
+        if starts_list and after_text:
+            out.append("")
+        out.append(line)
+    return "\n".join(out)
 
 
 def title_text(value) -> str:

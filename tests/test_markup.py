@@ -121,3 +121,18 @@ def test_fence_is_longer_than_any_backtick_run_inside():
 @pytest.mark.parametrize("target,safe", [("https://example.org", True), ("http://x.example/a", True), ("mailto:a@b.example", True), ("javascript:x", False), ("data:text/html,x", False), ("//x.example", False), ("page.md", False), ("", False)])
 def test_only_web_and_mail_links_are_kept(target, safe):
     assert is_safe_link(target) is safe
+
+
+def test_a_list_written_straight_under_a_line_renders_as_a_list():
+    html = markdown.markdown(prose("Bench run of rev B:\n- the winding ran hot\n- the diode saw spikes"))
+    assert "<p>Bench run of rev B:</p>" in html
+    assert "<li>the winding ran hot</li>" in html and "<li>the diode saw spikes</li>" in html
+
+
+def test_a_numbered_list_under_a_line_and_a_list_already_apart_are_both_lists():
+    assert "<ol>" in markdown.markdown(prose("Steps:\n1. unplug\n2. wait"))
+    assert prose("Steps:\n\n- unplug") == "Steps:\n\n- unplug"
+
+
+def test_a_hyphen_inside_a_sentence_starts_no_list():
+    assert prose("Rated 2 - 3 A\nat 25 degC") == "Rated 2 - 3 A\nat 25 degC"

@@ -147,7 +147,7 @@ def _write_revision(writer: TreeWriter, view: RevisionView) -> None:
     extra = {} if view.is_current else {"search_boost": OLDER_REVISION_BOOST}
     for name, path in view.pages.items():
         title = _page_title(view, name)
-        caution = view.record.has_mains and not (name == "checklist" and _carries_caution(view.checklist))
+        caution = view.record.has_mains and not (name == "checklist" and view.checklist)
         writer.page(path, TEMPLATES[name], v=view, page_name=name, crumb=f"revision {view.letter}", page_title=title, show_caution=caution, **extra)
     for figure in (*view.schematics, *(f for section in view.calcs for f in section.figures)):
         writer.text(figure.path, figure.svg)
@@ -155,11 +155,6 @@ def _write_revision(writer: TreeWriter, view: RevisionView) -> None:
         writer.text(f"{view.root}/{CHECKLIST_SHEETS[paper]}", sheet)
     for paper, pdf in view.revision.extras.pdfs.items():
         writer.binary(f"{view.root}/{pdf_href(CHECKLIST_SHEETS[paper])}", pdf)
-
-
-def _carries_caution(markdown: str | None) -> bool:
-    """The checklist page may bring the same caution itself; the page does not need it twice."""
-    return bool(markdown) and MAINS_CAUTION in markdown
 
 
 def _page_title(view: RevisionView, name: str) -> str:

@@ -2,7 +2,6 @@
 
 from __future__ import annotations
 
-import hashlib
 import re
 
 import pytest
@@ -14,7 +13,7 @@ from dossier.collect.archive import collect
 from dossier.pages.tree import write_tree
 from dossier.changes import finding_changes
 from dossier.wording import finding_label
-from tests.fixtures.site_kit import TEST_CALC, drawing_cache, write_record  # noqa: F401  (fixture)
+from tests.fixtures.site_kit import TEST_CALC, tree_digest, write_record
 
 
 @pytest.fixture(scope="module")
@@ -164,10 +163,6 @@ def test_generation_is_byte_identical_for_unchanged_inputs(demo, tree, tmp_path)
     assert tree_digest(tmp_path) == tree_digest(tree)
 
 
-def tree_digest(root) -> dict:
-    return {str(p.relative_to(root)): hashlib.sha256(p.read_bytes()).hexdigest() for p in sorted(root.rglob("*")) if p.is_file()}
-
-
 def test_attachments_photos_shown_datasheets_linked(tmp_path):
     archive = tmp_path / "archive"
     (archive / "amp").mkdir(parents=True)
@@ -248,3 +243,12 @@ def test_a_failing_drawing_is_shown_on_the_page_and_does_not_stop_the_site(tmp_p
     assert summary.warnings == ["amp rev A: the schematics could not be made: RuntimeError: no pencil"]
     overview = page(tmp_path / "tree", "builds/amp/index.md")
     assert '!!! bug "Parts of this page could not be made"' in overview and "RuntimeError: no pencil" in overview
+
+
+def test_the_checklist_page_shows_one_caution_and_keeps_the_print_links_apart(tree):
+    checklist = page(tree, "builds/sw-charger-12v/checklist.md")
+    cautions = checklist.count('!!! danger "Caution"') + checklist.count('<p class="admonition-title">Caution</p>')
+    assert cautions == 1
+    line = next(line for line in checklist.splitlines() if line.startswith("Printable sheet:"))
+    after = checklist.split(line, 1)[1]
+    assert after.startswith("\n\n"), "the next paragraph must not run on from the print links"
