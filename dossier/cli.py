@@ -67,9 +67,13 @@ def schema(output: Path | None) -> None:
 
 @main.command()
 @click.argument("build_id")
-@click.option("--archive", type=click.Path(path_type=Path, file_okay=False), default=Path("."), show_default=True, help="The archive folder.")
+@click.option("--archive", type=click.Path(path_type=Path, file_okay=False), default=Path("."), show_default=True, help="The archive folder; started (with archive.yaml) if it does not exist yet.")
 def new(build_id: str, archive: Path) -> None:
-    """Start a new build: writes BUILD_ID/rev-A.yaml, a commented record to fill in."""
+    """Start a new build: writes BUILD_ID/rev-A.yaml, a commented record to fill in.
+
+    Also writes record.schema.json beside the builds (kept current on every run), which the record's
+    first line names, so an editor with a YAML language server checks the record as it is typed.
+    """
     from dossier.commands.new import NewBuildRefused, scaffold
 
     try:

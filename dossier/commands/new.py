@@ -1,4 +1,4 @@
-"""`dossier new`: a commented record to start a build from."""
+"""`dossier new`: a commented record to start a build from, in an archive started on the way if need be."""
 
 from __future__ import annotations
 
@@ -6,8 +6,12 @@ import datetime
 import re
 from pathlib import Path
 
+from dossier.reading.settings import SETTINGS_FILE
 from dossier.record.identity import BUILD_ID_PATTERN
 from dossier.templates import template_text
+
+# The JSON Schema an editor reads to check a record as it is typed; `dossier new` keeps it current.
+SCHEMA_FILE = "record.schema.json"
 
 
 class NewBuildRefused(Exception):
@@ -17,13 +21,36 @@ class NewBuildRefused(Exception):
 def scaffold(archive: Path, build_id: str, today: datetime.date | None = None) -> Path:
     if not re.match(BUILD_ID_PATTERN, build_id):
         raise NewBuildRefused(f"build id {build_id!r}: use lower-case letters, digits and hyphens, starting with a letter or digit")
-    if not archive.is_dir():
-        raise NewBuildRefused(f"archive folder {archive} does not exist")
+    _start_archive_if_new(archive)
     folder = archive / build_id
-    if folder.exists():
+    if folder.exists() or folder.is_symlink():
         raise NewBuildRefused(f"{folder} already exists; add a revision there instead of starting a new build")
+    refresh_schema(archive)
     folder.mkdir()
     path = folder / "rev-A.yaml"
-    text = template_text("new-record.yaml").replace("{{ id }}", build_id)
+    text = template_text("new-record.yaml").replace("{{ id }}", build_id).replace("{{ schema }}", f"../{SCHEMA_FILE}")
     path.write_text(text.replace("{{ date }}", (today or datetime.date.today()).isoformat()), encoding="utf-8")
+    return path
+
+
+def _start_archive_if_new(archive: Path) -> None:
+    """A folder that does not exist yet becomes an archive with a commented archive.yaml; an existing one is left as it is."""
+    if archive.is_dir():
+        return
+    if archive.exists() or archive.is_symlink():
+        raise NewBuildRefused(f"{archive} is not a folder")
+    archive.mkdir(parents=True)
+    (archive / SETTINGS_FILE).write_text(template_text("new-archive.yaml"), encoding="utf-8")
+
+
+def refresh_schema(archive: Path) -> Path:
+    """Write the record schema beside the builds, so the records' first line points at a schema this dossier knows."""
+    from dossier.commands.schema import schema_text
+
+    path = archive / SCHEMA_FILE
+    if path.is_symlink() or (path.exists() and not path.is_file()):
+        raise NewBuildRefused(f"{path} is not a plain file; dossier keeps the editor schema there")
+    text = schema_text()
+    if not path.exists() or path.read_text(encoding="utf-8") != text:
+        path.write_text(text, encoding="utf-8")
     return path

@@ -98,3 +98,35 @@ def test_new_never_overwrites(tmp_path):
     assert result.exit_code == 2
     assert "already exists" in result.output
     assert path.read_text(encoding="utf-8") == "mine"
+
+
+def test_new_starts_an_archive_in_one_command(tmp_path):
+    archive = tmp_path / "club" / "archive"
+    result = run("new", "bench-amp", "--archive", archive)
+    assert result.exit_code == 0, result.output
+    assert (archive / "archive.yaml").is_file()
+    assert run("check", archive).exit_code in (0, 1)
+    assert run("build", archive, "--pages-only", "-o", tmp_path / "pages").exit_code == 0
+
+
+def test_new_points_the_record_at_a_schema_the_archive_has(tmp_path):
+    run("new", "bench-amp", "--archive", tmp_path)
+    first = (tmp_path / "bench-amp" / "rev-A.yaml").read_text(encoding="utf-8").splitlines()[0]
+    assert first == "# yaml-language-server: $schema=../record.schema.json"
+    schema = json.loads((tmp_path / "record.schema.json").read_text(encoding="utf-8"))
+    assert schema == json.loads(run("schema").output)
+
+
+def test_new_refreshes_a_stale_schema_but_leaves_archive_settings_alone(tmp_path):
+    (tmp_path / "archive.yaml").write_text("club: mine\n", encoding="utf-8")
+    (tmp_path / "record.schema.json").write_text("{}", encoding="utf-8")
+    run("new", "bench-amp", "--archive", tmp_path)
+    assert (tmp_path / "archive.yaml").read_text(encoding="utf-8") == "club: mine\n"
+    assert json.loads((tmp_path / "record.schema.json").read_text(encoding="utf-8")) == json.loads(run("schema").output)
+
+
+def test_new_refuses_an_archive_path_that_is_a_file(tmp_path):
+    (tmp_path / "taken").write_text("mine", encoding="utf-8")
+    result = run("new", "bench-amp", "--archive", tmp_path / "taken")
+    assert result.exit_code == 2 and "is a file" in result.output
+    assert (tmp_path / "taken").read_text(encoding="utf-8") == "mine"
