@@ -134,14 +134,16 @@ def diff(old: Path, new: Path) -> None:
 @click.option("--amend", "amend_target", metavar="BUILD:REV", help="Accept an edit of a published revision (typo fixes only); recorded and shown on the site.")
 @click.option("--reason", help="With --amend: what the edit fixed.")
 @click.option("--check", "check_only", is_flag=True, help="Only check that published revisions are unchanged (exit 1 if one changed).")
-def publish(archive: Path, targets: tuple[str, ...], amend_target: str | None, reason: str | None, check_only: bool) -> None:
+@click.option("--even-if-blocked", is_flag=True, help="Publish revisions whose findings block power-up too (they are refused without it).")
+def publish(archive: Path, targets: tuple[str, ...], amend_target: str | None, reason: str | None, check_only: bool, even_if_blocked: bool) -> None:
     """Freeze revisions: record the content hash of every unpublished revision (or of TARGETS: BUILD or BUILD:REV).
 
     A published revision cannot be edited any more: `dossier build` refuses until the edit is undone
-    or put into a new revision.
+    or put into a new revision. A revision whose findings block power-up is published only with
+    --even-if-blocked, so freezing a failing revision is always a choice.
     """
     import datetime
 
     from dossier.commands.publish import run_publish
 
-    sys.exit(run_publish(archive, list(targets), amend_target, reason, check_only, datetime.date.today()))
+    sys.exit(run_publish(archive, list(targets), amend_target, reason, check_only, datetime.date.today(), even_if_blocked))

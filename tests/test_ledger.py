@@ -149,7 +149,7 @@ def test_next_letter(letter, following):
 
 def test_the_publish_command_freezes_and_checks(archive):
     runner = CliRunner()
-    first = runner.invoke(main, ["publish", str(archive)])
+    first = runner.invoke(main, ["publish", str(archive), "--even-if-blocked"])
     assert first.exit_code == 0 and "published amp rev B" in first.output
     assert runner.invoke(main, ["publish", str(archive), "--check"]).exit_code == 0
     path = archive / "psu" / "rev-A.yaml"
@@ -161,7 +161,7 @@ def test_the_publish_command_freezes_and_checks(archive):
 
 def test_the_amend_option_needs_a_reason(archive):
     runner = CliRunner()
-    runner.invoke(main, ["publish", str(archive)])
+    runner.invoke(main, ["publish", str(archive), "--even-if-blocked"])
     result = runner.invoke(main, ["publish", str(archive), "--amend", "amp:A"])
     assert result.exit_code == 2 and "--reason" in result.output
 
@@ -181,3 +181,25 @@ def test_a_failed_write_of_the_ledger_keeps_the_old_file_and_leaves_no_temporary
         save_ledger(archive, amend(archive, Target.parse("amp:A"), "typo in the notes", LATER))
     assert (archive / LOCK_FILE).read_bytes() == before
     assert sorted(p.name for p in archive.iterdir()) == ["amp", LOCK_FILE]
+
+
+def test_publishing_a_revision_that_blocks_power_up_is_refused_without_a_word_for_it(archive):
+    # the test record's 2.5 mm reinforced clearance fails (IEC 60664-1:2020 Table F.2 asks 3.0 mm at 230 V, OVC II)
+    result = CliRunner().invoke(main, ["publish", str(archive)])
+    assert result.exit_code == 2
+    line = next(line for line in result.stderr.splitlines() if line.startswith("amp rev A: "))
+    assert "block power-up" in line and "ISO-CLEARANCE (primary to output)" in line
+    assert "--even-if-blocked" in result.stderr
+    assert not (archive / LOCK_FILE).exists()
+
+
+def test_a_revision_that_blocks_nothing_is_published_without_the_flag(tmp_path, monkeypatch):
+    from dossier.calcs.isolation import CALC
+
+    monkeypatch.setattr("dossier.plugins.load_calcs", lambda: [CALC])  # only the check this record is written to pass
+    root = tmp_path / "archive"
+    write_record(root, "amp", "A", barriers=[{"name": "primary to output", "between": ["mains", "output"], "grade": "reinforced",
+                                              "material_group": "II", "creepage": "6 mm", "clearance": "4 mm"}])
+    result = CliRunner().invoke(main, ["publish", str(root)])
+    assert result.exit_code == 0, result.output
+    assert load_ledger(root).entry("amp", "A") is not None

@@ -15,13 +15,14 @@ from dossier.wording import problem_line
 EXIT_DONE, EXIT_CHANGED, EXIT_REFUSED = 0, 1, 2
 
 
-def run_publish(archive: Path, targets: list[str], amend_target: str | None, reason: str | None, check_only: bool, today: datetime.date) -> int:
+def run_publish(archive: Path, targets: list[str], amend_target: str | None, reason: str | None, check_only: bool, today: datetime.date,
+                even_if_blocked: bool = False) -> int:
     try:
         if check_only:
             return _check(archive)
         if amend_target is not None:
             return _amend(archive, Target.parse(amend_target), reason or "", today)
-        return _publish(archive, [Target.parse(t) for t in targets], today)
+        return _publish(archive, [Target.parse(t) for t in targets], today, even_if_blocked)
     except InputError as error:
         for problem in error.problems:
             click.echo(problem_line(problem), err=True)
@@ -29,16 +30,39 @@ def run_publish(archive: Path, targets: list[str], amend_target: str | None, rea
         return EXIT_REFUSED
 
 
-def _publish(archive: Path, targets: list[Target], today: datetime.date) -> int:
+def _publish(archive: Path, targets: list[Target], today: datetime.date, even_if_blocked: bool) -> int:
     ledger, published = publish(archive, targets, today)
     if not published:
         click.echo("nothing new to publish: every revision named is published already")
         return EXIT_DONE
+    blocked = _blocked(published)
+    for rev, findings in blocked:
+        click.echo(f"{rev.build_id} rev {rev.letter}: {len(findings)} finding(s) block power-up: "
+                   + ", ".join(f"{f.code} ({f.subject})" for f in findings), err=True)
+    if blocked and not even_if_blocked:
+        click.echo("dossier publish: nothing published. Publishing freezes a revision as it is; to freeze these with their "
+                   "failing findings (e.g. to keep a failed design on record), run again with --even-if-blocked.", err=True)
+        return EXIT_REFUSED
     path = save_ledger(archive, ledger)
     for rev in published:
         click.echo(f"published {rev.build_id} rev {rev.letter}")
     click.echo(f"recorded in {path}; these revisions are now frozen")
     return EXIT_DONE
+
+
+def _blocked(revisions) -> list[tuple]:
+    """Each revision to be published whose findings block power-up, with those findings."""
+    from dossier.plugins import load_calcs
+    from dossier.reading.archive import load_revision
+    from dossier.review import review
+
+    calcs = load_calcs()
+    found = []
+    for rev in revisions:
+        blocking = [f for f in review(load_revision(rev).record, calcs) if f.blocks_power_up]
+        if blocking:
+            found.append((rev, blocking))
+    return found
 
 
 def _amend(archive: Path, target: Target, reason: str, today: datetime.date) -> int:
