@@ -147,3 +147,27 @@ def publish(archive: Path, targets: tuple[str, ...], amend_target: str | None, r
     from dossier.commands.publish import run_publish
 
     sys.exit(run_publish(archive, list(targets), amend_target, reason, check_only, datetime.date.today(), even_if_blocked))
+
+
+@main.command("sign-off")
+@click.argument("record", type=click.Path(path_type=Path, exists=True, dir_okay=False))
+@click.option("--reviewer", required=True, help="Who reviews the revision.")
+def sign_off(record: Path, reviewer: str) -> None:
+    """Start a sign-off of RECORD (BUILD/rev-X.yaml): writes signoff-X.yaml beside it, never over another file.
+
+    The file lists every finding that needs a decision and binds the review to the record and its
+    attachments as they are now; fill in the decisions and the clearance, then `dossier check` it.
+    """
+    import datetime
+
+    from dossier.commands.signoff import SignoffRefused, start_signoff
+    from dossier.problems import InputError
+    from dossier.wording import problem_line
+
+    try:
+        path = start_signoff(record, reviewer, datetime.date.today())
+    except InputError as error:
+        raise Refused("\n".join(problem_line(p) for p in error.problems)) from None
+    except SignoffRefused as refused:
+        raise Refused(str(refused)) from None
+    click.echo(f"wrote {path}")

@@ -196,3 +196,49 @@ def limit_text(finding: Finding) -> str:
 NO_FAILING_TEXT = "No check fails and none is marginal."
 NOTHING_TO_CHECK_TEXT = "Nothing in this record for this calc to check."
 NO_FINDING_CHANGED_TEXT = "No finding changed verdict or value."
+
+
+# The sign-off state of a revision, as a person reads it (dossier.signoff.state.ReviewState values).
+REVIEW_STATE_WORDS = {
+    "not-reviewed": "not reviewed",
+    "stale": "stale: every sign-off predates the record or an attachment as it is now",
+    "changes-requested": "reviewed, changes requested",
+    "cleared-for-enclosure": "cleared for the enclosure",
+    "cleared-for-power-up": "cleared for first power-up",
+}
+REVIEW_STATE_SHORT = {
+    "not-reviewed": "not reviewed",
+    "stale": "stale",
+    "changes-requested": "changes requested",
+    "cleared-for-enclosure": "cleared for enclosure",
+    "cleared-for-power-up": "cleared for power-up",
+}
+
+
+def signoff_line(state) -> str:
+    """'cleared for first power-up by A. Reviewer on 2026-05-10 (signoff-C.yaml)', or the state alone."""
+    words = REVIEW_STATE_WORDS[state.state.value]
+    if state.deciding is None:
+        return words
+    entry = state.deciding.entry
+    return f"{words}, by {entry.reviewer} on {entry.date.isoformat()} ({state.deciding.signoff.path.name})"
+
+CLEARANCE_WORDS = {"not-cleared": "not cleared", "enclosure": "cleared for the enclosure", "first-power-up": "cleared for first power-up"}
+
+
+def decision_text(decision) -> str:
+    """'ISO-CREEPAGE (primary to output): accepted: reason; responsibility: name' or '...: to fix: what'."""
+    head = f"{decision.code} ({decision.subject})"
+    if decision.decision.value == "fix":
+        return f"{head}: to fix" + (f": {decision.reason}" if decision.reason else "")
+    who = f"; responsibility: {decision.responsible}" if decision.responsible else ""
+    return f"{head}: accepted: {decision.reason}{who}"
+
+
+def accepted_text(decision, state) -> str:
+    """Beside an accepted finding: who accepted it, why, and who answers for it; '' when not accepted."""
+    if decision is None:
+        return ""
+    entry = state.deciding.entry
+    who = f" Responsibility taken by {decision.responsible}." if decision.responsible else ""
+    return f"Accepted by {entry.reviewer} on {entry.date.isoformat()}: {decision.reason}.{who}"

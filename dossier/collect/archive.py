@@ -17,6 +17,8 @@ from dossier.plugins import Calc, load_calcs
 from dossier.problems import InputError, Location, Problem
 from dossier.reading.record import LoadedRecord
 from dossier.review import review
+from dossier.signoff.revision import revision_signoffs
+from dossier.signoff.state import SignoffState
 from dossier.collect.caches import Caches
 from dossier.collect.extras import Extras, revision_extras
 from dossier.collect.parallel import collect_in_workers, worker_count
@@ -32,6 +34,7 @@ class Revision:
     findings: list[Finding]
     extras: Extras
     publication: Publication | None
+    signoff: SignoffState
 
     @property
     def record(self):
@@ -126,6 +129,7 @@ def _collect_build(archive: Archive, folder: Path, cache, problems: list[Problem
 def _collect_revision(archive: Archive, rev: RevisionFile, cache) -> Revision:
     loaded = load_revision(rev, shown_as=f"{rev.build_id}/{rev.path.name}")
     findings = review(loaded.record, archive.calcs)
+    signoff = revision_signoffs(loaded, findings)
     caches = cache or Caches()
     extras = revision_extras(loaded, findings, caches.drawings, CHECKLIST_SHEETS, caches.pdfs)
-    return Revision(rev, loaded, findings, extras, archive.ledger.entry(rev.build_id, rev.letter))
+    return Revision(rev, loaded, findings, extras, archive.ledger.entry(rev.build_id, rev.letter), signoff)

@@ -58,6 +58,22 @@ def _check_one(rev, calcs, outcome: Outcome, verbose: bool) -> None:
     outcome.blocks.extend(text_report.record_block(title, findings, loaded.locate, verbose))
     outcome.json.append(json_report.record_json(str(rev.path), findings, loaded.locate))
     _check_commissioning(loaded, findings, outcome)
+    _check_signoffs(loaded, findings, outcome)
+
+
+def _check_signoffs(loaded, findings, outcome: Outcome) -> None:
+    """Sign-off files beside the record are validated like the record, and judged against its findings."""
+    from dossier.signoff.revision import revision_signoffs
+    from dossier.wording import signoff_line
+
+    try:
+        state = revision_signoffs(loaded, findings)
+    except InputError as error:
+        outcome.invalid = True
+        outcome.blocks.extend(text_report.problem_block(error.problems))
+        return
+    outcome.json[-1]["signoff"] = json_report.signoff_json(state)
+    outcome.blocks.append("  sign-off: " + signoff_line(state))
 
 
 def _check_commissioning(loaded, findings, outcome: Outcome) -> None:

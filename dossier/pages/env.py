@@ -15,7 +15,7 @@ import jinja2
 from dossier import markup
 from dossier.templates import templates_dir
 from dossier.findings import Verdict
-from dossier.wording import VERDICT_MARKS, quantity_text, verdict_word
+from dossier.wording import REVIEW_STATE_SHORT, VERDICT_MARKS, quantity_text, verdict_word
 
 
 class Md(str):
@@ -45,6 +45,11 @@ def _verdict(value) -> Md:
               f'<span aria-hidden="true">{VERDICT_MARKS[verdict]}</span> {verdict_word(verdict)}</span>')
 
 
+def _review_state(value) -> Md:
+    """A sign-off state as a badge, e.g. 'cleared for power-up'."""
+    return Md(f'<span class="dossier-signoff dossier-signoff-{markup.text(value)}">{REVIEW_STATE_SHORT[value]}</span>')
+
+
 def _quantity(value) -> Md:
     return Md(markup.text(quantity_text(value)) if value is not None else "")
 
@@ -69,6 +74,7 @@ def environment() -> jinja2.Environment:
         fence=_safe(markup.fence),
         quantity=_quantity,
         verdict=_verdict,
+        review_state=_review_state,
     )
     env.globals["Md"] = Md
     return env

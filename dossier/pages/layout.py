@@ -48,6 +48,10 @@ def status_page(status: str) -> str:
     return f"status/{status}.md"
 
 
+def signoff_page(state: str) -> str:
+    return f"signoff/{state}.md"
+
+
 def attachment_path(build_id: str, relative: str) -> str:
     return f"{build_root(build_id)}/files/{relative}"
 

@@ -23,6 +23,7 @@ from dossier.collect.archive import CHECKLIST_SHEETS, Archive, Build
 from dossier.collect.extras import pdf_href
 from dossier.pages.env import Md, render
 from dossier.pages.views import IndexRow, RevisionView, change_steps, index_row, newest_first, revision_view
+from dossier.signoff.state import ReviewState
 from dossier.templates import templates_dir
 
 PAGE_LABELS = {"index": "Overview", "calcs": "Calculations", "schematics": "Schematics", "checklist": "Checklist"}
@@ -33,10 +34,16 @@ VENDORED = ("vendor/iframe-worker/shim.js", "vendor/iframe-worker/LICENSE", "dos
 
 @dataclass(frozen=True)
 class StatusLink:
+    """A front page listing the builds in one status, or in one sign-off state (group 'signoff')."""
+
     status: str
     title: str
     count: int
     path: str
+    group: str = "status"
+
+    def holds(self, row: IndexRow) -> bool:
+        return (row.status if self.group == "status" else row.signoff) == self.status
 
 
 class TreeWriter:
@@ -103,7 +110,7 @@ def write_tree(archive: Archive, root: Path, builds: Iterable[Build] | None = No
         rows.append(index_row(build))
         dates.extend(revision.record.date for revision in build.revisions)
         warnings.extend(_failures(build))
-    statuses = status_links(rows)
+    statuses = status_links(rows) + signoff_links(rows)
     _write_front(writer, archive, newest_first(rows), statuses)
     _write_assets(writer)
     return TreeSummary(writer.pages, rows, statuses, max(dates, default=None), warnings)
@@ -117,8 +124,8 @@ def _write_front(writer: TreeWriter, archive: Archive, rows: list[IndexRow], sta
     shared = {"statuses": statuses, "total": len(rows), "any_mains": any(row.has_mains for row in rows)}
     writer.page(layout.INDEX, "archive.md.j2", page_title=archive.settings.title, rows=rows, current_status="", **shared)
     for link in statuses:
-        chosen = [row for row in rows if row.status == link.status]
-        writer.page(link.path, "status.md.j2", page_title=link.title, status_title=link.title, rows=chosen, current_status=link.status, **shared)
+        chosen = [row for row in rows if link.holds(row)]
+        writer.page(link.path, "status.md.j2", page_title=link.title, status_title=link.title, rows=chosen, current_status=link.path, **shared)
     writer.page(layout.ABOUT, "about.md.j2", page_title="About this site")
 
 
@@ -128,6 +135,14 @@ def status_links(rows: list[IndexRow]) -> list[StatusLink]:
     for row in rows:
         tally[row.status] = tally.get(row.status, 0) + 1
     return [StatusLink(s, STATUS_TITLES.get(s, s), n, layout.status_page(s)) for s, n in tally.items() if n]
+
+
+def signoff_links(rows: list[IndexRow]) -> list[StatusLink]:
+    """The sign-off states that at least one build's current revision is in, from not reviewed to cleared."""
+    tally = {state.value: 0 for state in ReviewState}
+    for row in rows:
+        tally[row.signoff] += 1
+    return [StatusLink(s, f"Sign-off: {wording.REVIEW_STATE_SHORT[s]}", n, layout.signoff_page(s), "signoff") for s, n in tally.items() if n]
 
 
 def write_build(writer: TreeWriter, archive: Archive, build: Build) -> None:

@@ -21,6 +21,7 @@ from dossier.collect.extras import is_active_svg
 from dossier.pages.hazards import hazards
 from dossier.reading.yaml_source import dotted
 from dossier.wording import (
+    CLEARANCE_WORDS, accepted_text, decision_text, signoff_line,
     comparison_text, finding_label, finding_state_text, margin_text, measure_text, source_text, verdict_counts_text,
 )
 
@@ -40,6 +41,33 @@ class FindingView:
     places: list[str]
     sources: list[str]
     anchor: str = ""
+    accepted: str = ""  # the sign-off's acceptance of this finding, in words, or ''
+
+
+@dataclass(frozen=True)
+class SignoffRow:
+    reviewer: str
+    qualification: str
+    date: str
+    clearance: str
+    file: str
+    stale: bool
+    decisions: list[str]
+    notes: str
+
+
+@dataclass(frozen=True)
+class SignoffView:
+    state: str
+    line: str
+    rows: list[SignoffRow]
+
+
+def signoff_view(state) -> SignoffView:
+    rows = [SignoffRow(j.entry.reviewer, j.entry.qualification, j.entry.date.isoformat(), CLEARANCE_WORDS[j.entry.clearance.value],
+                       j.signoff.path.name, j.stale, [decision_text(d) for d in j.entry.decisions if d.decision], j.entry.notes)
+            for j in sorted(state.signoffs, key=lambda j: (j.entry.date, j.signoff.path.name), reverse=True)]
+    return SignoffView(state.state.value, signoff_line(state), rows)
 
 
 @dataclass
@@ -92,6 +120,7 @@ class RevisionView:
     changes: str
     revisions: list[RevisionLink]
     hazards: list[str]
+    signoff: SignoffView
     tally: dict
     summary: str
     failing: list[FindingView]
@@ -132,6 +161,7 @@ class IndexRow:
     date: str
     tally: dict
     has_mains: bool
+    signoff: str  # the sign-off state of the current revision (dossier.signoff.state.ReviewState value)
 
 
 def revision_view(archive: Archive, build: Build, revision: Revision) -> RevisionView:
@@ -153,6 +183,7 @@ def revision_view(archive: Archive, build: Build, revision: Revision) -> Revisio
         changes=layout.changes_page(build.id),
         revisions=revision_links(build),
         hazards=hazards(revision.record),
+        signoff=signoff_view(revision.signoff),
         tally=counts(revision.findings),
         summary=verdict_counts_text(counts(revision.findings)),
         failing=sorted(failing, key=lambda view: view.finding.verdict.rank),
@@ -195,6 +226,7 @@ def index_row(build: Build) -> IndexRow:
         date=record.date.isoformat(),
         tally=counts(build.current.findings),
         has_mains=record.has_mains,
+        signoff=build.current.signoff.state.value,
     )
 
 
@@ -244,6 +276,7 @@ def _finding_view(finding: Finding, revision: Revision, calcs_page: str, anchors
         places=[_place(revision, key) for key in finding.keys],
         sources=[source_text(source) for source in finding.sources],
         anchor=f"{calcs_page}#{unique(slugify(label, '-'), anchors)}",
+        accepted=accepted_text(revision.signoff.accepted(finding), revision.signoff),
     )
 
 

@@ -57,5 +57,12 @@ def record_json(file: str, findings: list[Finding], locate) -> dict:
     }
 
 
+def signoff_json(state) -> dict:
+    """The revision's sign-off state and each sign-off file with whether it is stale."""
+    files = [{"file": str(j.signoff.path), "reviewer": j.entry.reviewer, "date": j.entry.date.isoformat(),
+              "clearance": j.entry.clearance.value, "stale": j.stale} for j in state.signoffs]
+    return {"state": state.state.value, "signoffs": files}
+
+
 def invalid_json(file: str, problems: list[Problem]) -> dict:
     return {"file": file, "valid": False, "problems": [problem_json(p) for p in problems]}

@@ -44,7 +44,9 @@ def test_index_lists_every_build_with_revision_status_date_and_counts(demo, tree
         row = table_row(index, f"[{record.title}]")
         tally = counts(build.current.findings)
         assert row[0] == f"[{record.title}](builds/{build.id}/index.md)"
-        assert row[1:] == [build.current.letter, _status_title(build), record.date.isoformat(), *(str(tally[v]) for v in (Verdict.FAIL, Verdict.NOT_ASSESSED, Verdict.MARGINAL, Verdict.PASS))]
+        signoff = f'<span class="dossier-signoff dossier-signoff-{build.current.signoff.state.value}">'
+        assert row[1:3] == [build.current.letter, _status_title(build)] and row[3].startswith(signoff)
+        assert row[4:] == [record.date.isoformat(), *(str(tally[v]) for v in (Verdict.FAIL, Verdict.NOT_ASSESSED, Verdict.MARGINAL, Verdict.PASS))]
 
 
 def _status_title(build) -> str:

@@ -1,0 +1,89 @@
+"""Finding and loading a revision's sign-off files, every problem located by file, line, column and key."""
+
+from __future__ import annotations
+
+import dataclasses
+import difflib
+import re
+from dataclasses import dataclass
+from pathlib import Path
+
+from pydantic import ValidationError
+
+from dossier.problems import InputError, Location, Problem
+from dossier.reading.record import _problem as record_problem
+from dossier.reading.record import known_keys
+from dossier.reading.yaml_source import SourceMap, read_document
+from dossier.signoff.model import SignoffFile
+
+SIGNOFF_FILE = re.compile(r"^signoff-(?P<letter>[A-Z]{1,2})(?:-(?P<tag>[a-z0-9][a-z0-9-]{0,40}))?\.ya?ml$")
+
+
+@dataclass(frozen=True)
+class LoadedSignoff:
+    entry: SignoffFile
+    sources: SourceMap
+    path: Path
+
+    def locate(self, key_path) -> Location:
+        return self.sources.locate(tuple(key_path))
+
+
+def signoff_paths(build_dir: Path, revision: str) -> list[Path]:
+    """The sign-off files of one revision in its build folder, in name order."""
+    found = []
+    for path in sorted(build_dir.iterdir()):
+        match = SIGNOFF_FILE.match(path.name)
+        if match and match["letter"] == revision:
+            found.append(path)
+    return found
+
+
+def load_signoffs(build_dir: Path, build_id: str, revision: str) -> list[LoadedSignoff]:
+    """Every sign-off of one revision; all problems in all of them are raised together."""
+    loaded, problems = [], []
+    for path in signoff_paths(build_dir, revision):
+        try:
+            loaded.append(load_signoff(path, build_id, revision))
+        except InputError as error:
+            problems.extend(error.problems)
+    if problems:
+        raise InputError(problems)
+    return loaded
+
+
+def load_signoff(path: Path, build_id: str, revision: str) -> LoadedSignoff:
+    if not path.is_file() or path.is_symlink():
+        raise InputError([Problem("not_a_file", Location(str(path)), expected="a plain sign-off file", found="a link, folder or device")])
+    document = read_document(path, str(path))
+    if not isinstance(document.data, dict):
+        found = "an empty file" if document.data is None else type(document.data).__name__
+        raise InputError([Problem("not_a_mapping", Location(document.sources.file, 1, 1), expected="a mapping of keys (build: ..., revision: ...)", found=found)])
+    entry = _validated(document.data, document.sources)
+    problems = list(_placement_problems(entry, build_id, revision, document.sources))
+    if problems:
+        raise InputError(problems)
+    return LoadedSignoff(entry, document.sources, path)
+
+
+def _validated(data: dict, sources: SourceMap) -> SignoffFile:
+    try:
+        return SignoffFile.model_validate(data)
+    except ValidationError as error:
+        raise InputError([_problem(item, sources) for item in error.errors()]) from None
+
+
+def _problem(item: dict, sources: SourceMap) -> Problem:
+    problem = record_problem(item, sources)
+    path = tuple(item["loc"])
+    if item["type"] != "extra_forbidden":
+        return problem
+    close = difflib.get_close_matches(str(path[-1]), known_keys(SignoffFile, path[:-1]), n=1, cutoff=0.6)
+    return dataclasses.replace(problem, hint=f"did you mean '{close[0]}'?" if close else "")
+
+
+def _placement_problems(entry: SignoffFile, build_id: str, revision: str, sources: SourceMap):
+    if entry.build != build_id:
+        yield Problem("build_mismatch", sources.locate(("build",)), key="build", expected=f"'{build_id}', the build this file sits with", found=repr(entry.build))
+    if entry.revision != revision:
+        yield Problem("revision_mismatch", sources.locate(("revision",)), key="revision", expected=f"'{revision}', the revision its file name names", found=repr(entry.revision))
