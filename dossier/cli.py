@@ -54,11 +54,12 @@ def check(paths: tuple[Path, ...], output_format: str, verbose: bool) -> None:
 
 @main.command()
 @click.option("-o", "--output", type=click.Path(path_type=Path), help="Write to this file instead of standard output.")
-def schema(output: Path | None) -> None:
-    """Print the record's JSON Schema."""
+@click.option("--of", "kind", type=click.Choice(["record", "signoff"]), default="record", show_default=True, help="Which file's schema: a record or a sign-off.")
+def schema(output: Path | None, kind: str) -> None:
+    """Print the JSON Schema of a record (or of a sign-off file)."""
     from dossier.commands.schema import schema_text
 
-    text = schema_text()
+    text = schema_text(kind)
     if output is None:
         click.echo(text, nl=False)
     else:

@@ -3,6 +3,7 @@
 from __future__ import annotations
 
 import datetime
+import json
 
 import pytest
 import yaml
@@ -17,6 +18,7 @@ from dossier.signoff.revision import revision_signoffs
 from dossier.signoff.state import ReviewState
 from dossier.wording import problem_line
 from tests.fixtures.bad_input import tried
+from tests.fixtures.demo import ROOT
 from tests.fixtures.site_kit import write_record
 
 
@@ -177,3 +179,10 @@ def test_a_linked_sign_off_file_is_refused(record, tmp_path):
     elsewhere.write_text("build: amp\n", encoding="utf-8")
     (record.parent / "signoff-A.yaml").symlink_to(elsewhere)
     assert run("check", record).exit_code == 2
+
+
+def test_the_sign_off_schema_describes_the_file(tmp_path):
+    body = json.loads(run("schema", "--of", "signoff").output)
+    assert body["$schema"].endswith("2020-12/schema")
+    assert set(body["required"]) >= {"build", "revision", "reviewer", "date", "reviewed_content", "clearance"}
+    assert json.loads((ROOT / "docs" / "signoff.schema.json").read_text(encoding="utf-8")) == body, "regenerate docs/signoff.schema.json"
