@@ -187,7 +187,8 @@ def _oversize_finding(record, fuse):
 def declared_wiring(wiring) -> dict:
     if wiring is None:
         return {}
-    return {name: value for name, value in wiring.model_dump().items() if value is not None}
+    named = {name: getattr(wiring, name) for name in type(wiring).model_fields}
+    return {name: value for name, value in named.items() if value is not None}
 
 
 def _oversize_running(record, fuse, least, wiring_declared: bool):
