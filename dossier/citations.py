@@ -120,6 +120,7 @@ IEC_60335_1 = Source(
 ABYC_E11 = Source(
     title="ABYC E-11, AC and DC Electrical Systems on Boats",
     publisher="American Boat and Yacht Council",
+    edition="edition not confirmed (from memory)",
     clause="overcurrent protection within 7 in (178 mm) of the battery connection (from memory)",
 )
 EN_50106 = Source(
@@ -127,11 +128,4 @@ EN_50106 = Source(
     publisher="CENELEC",
     edition="2008",
     clause="Annex A.1, earth continuity test: at least 10 A from a source of no more than 12 V; at most 0.1 ohm plus the supply cord's resistance, or 0.2 ohm with the cord",
-)
-IEC_60335_1_EARTH = Source(
-    title="IEC 60335-1, Household and similar electrical appliances - Safety - Part 1: General requirements",
-    publisher="International Electrotechnical Commission",
-    edition="edition 5.0, 2010",
-    clause="27.5, resistance of the earthing connection: 1.5 times the rated current or 25 A, whichever is higher, from a source of no more "
-           "than 12 V; at most 0.1 ohm, the supply cord excluded (from memory)",
 )

@@ -6,10 +6,15 @@ import dataclasses
 import math
 
 from dossier.checklist.items import Item, Origin, Phase, at_least, at_most
-from dossier.citations import DIN_EN_50678, EN_50106, IEC_60335_1_EARTH, IET_INSERVICE_COP
+from dossier.citations import DIN_EN_50678, EN_50106, IEC_60335_1, IET_INSERVICE_COP
 from dossier.findings import common_practice
 from dossier.units import Q_, fmt
 
+IEC_60335_1_EARTH = dataclasses.replace(
+    IEC_60335_1, edition="edition 5.0, 2010",
+    clause="27.5, resistance of the earthing connection: 1.5 times the rated current or 25 A, whichever is higher, from a source of no more "
+           "than 12 V; at most 0.1 ohm, the supply cord excluded (from memory)",
+)
 IN_SERVICE_EARTH = dataclasses.replace(
     IET_INSERVICE_COP, edition="5th edition, 2020 (from memory)",
     clause="protective-conductor continuity: at most 0.1 ohm plus the resistance of the cord's protective conductor",

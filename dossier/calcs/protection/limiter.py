@@ -150,7 +150,7 @@ def _cool_down_finding(record, limiter):
     fuse = record.protection.fuse
     melting = fuse_melting(fuse, pulse.time_constant) if pulse is not None and fuse is not None else None
     share = percent((pulse.i2t / melting.i2t).to("")) if melting is not None else None
-    values = (measure("peak current on a hot restart", pulse.peak), measure("hot-restart I^2 t", pulse.i2t)) if pulse else ()
+    values = (measure("hot-restart I^2 t", pulse.i2t), measure("peak current on a hot restart", pulse.peak)) if pulse else ()
     if melting is not None:
         values += (measure("fuse melting I^2 t at the pulse's duration", melting.i2t), measure("share of the melting I^2 t", Q_(share, "percent")))
     verdict = Verdict.MARGINAL if share is not None and share >= 100 else Verdict.INFO

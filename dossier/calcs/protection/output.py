@@ -88,8 +88,8 @@ def _dc_rating(record, fuse):
     voltage = battery_voltage(record.output)
     current, assumed = prospective_current(record, fuse)
     voltage_ok, breaking_ok = fuse.dc_voltage_rating >= voltage, fuse.breaking_capacity >= current
-    values = (measure("DC voltage rating", fuse.dc_voltage_rating), measure("battery's highest voltage", voltage),
-              measure("breaking capacity", fuse.breaking_capacity), measure("battery short-circuit current", current))
+    values = (measure("breaking capacity", fuse.breaking_capacity), measure("DC voltage rating", fuse.dc_voltage_rating),
+              measure("battery's highest voltage", voltage))
     return finding(code="PROT-OUTPUT-FUSE-DC", subject=fuse.ref, title=title, verdict=Verdict.PASS if voltage_ok and breaking_ok else Verdict.FAIL,
                    values=values, limit=measure("battery short-circuit current", current),
                    method="V_DC rating >= battery's highest voltage; breaking capacity >= battery short-circuit current",

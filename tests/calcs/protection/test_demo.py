@@ -97,7 +97,7 @@ def test_rev_b_ntc_energy_and_cool_down_caveat():
     # figure (halved for a sub-10 ms pulse, from memory): the fuse melts, so marginal, never info.
     assert cool.verdict is Verdict.MARGINAL
     assert "cooled" in cool.explanation
-    assert cool.value.quantity.to("A").magnitude == pytest.approx(253 * math.sqrt(2) / (0.4 + 0.5 + 0.3), rel=1e-6)
+    assert cool.values[1].quantity.to("A").magnitude == pytest.approx(253 * math.sqrt(2) / (0.4 + 0.5 + 0.3), rel=1e-6)
 
 
 def test_rev_b_ntc_dissipation_from_hot_resistance():
