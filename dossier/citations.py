@@ -112,3 +112,20 @@ MCLYMAN = Source(
     publisher="CRC Press",
     kind="handbook",
 )
+IEC_60335_1 = Source(
+    title="IEC 60335-1, Household and similar electrical appliances - Safety - Part 1: General requirements",
+    publisher="International Electrotechnical Commission",
+    edition="edition 5.0, 2010, with amendments 1 (2013) and 2 (2016)",
+)
+ABYC_E11 = Source(
+    title="ABYC E-11, AC and DC Electrical Systems on Boats",
+    publisher="American Boat and Yacht Council",
+    edition="edition not confirmed (from memory)",
+    clause="overcurrent protection within 7 in (178 mm) of the battery connection (from memory)",
+)
+EN_50106 = Source(
+    title="EN 50106, Safety of household and similar electrical appliances - Particular rules for routine tests referring to appliances under the scope of EN 60335-1",
+    publisher="CENELEC",
+    edition="2008",
+    clause="Annex A.1, earth continuity test: at least 10 A from a source of no more than 12 V; at most 0.1 ohm plus the supply cord's resistance, or 0.2 ohm with the cord",
+)

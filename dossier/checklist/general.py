@@ -2,15 +2,28 @@
 
 from __future__ import annotations
 
+import dataclasses
 import math
 
 from dossier.checklist.items import Item, Origin, Phase, at_least, at_most
-from dossier.citations import DIN_EN_50678, IET_INSERVICE_COP
+from dossier.citations import DIN_EN_50678, EN_50106, IEC_60335_1, IET_INSERVICE_COP
 from dossier.findings import common_practice
 from dossier.units import Q_, fmt
 
+IEC_60335_1_EARTH = dataclasses.replace(
+    IEC_60335_1, edition="edition 5.0, 2010",
+    clause="27.5, resistance of the earthing connection: 1.5 times the rated current or 25 A, whichever is higher, from a source of no more "
+           "than 12 V; at most 0.1 ohm, the supply cord excluded (from memory)",
+)
+IN_SERVICE_EARTH = dataclasses.replace(
+    IET_INSERVICE_COP, edition="5th edition, 2020 (from memory)",
+    clause="protective-conductor continuity: at most 0.1 ohm plus the resistance of the cord's protective conductor",
+)
 INSULATION_TEST_VOLTAGE = Q_(500, "V")
 EARTH_LIMIT = Q_(0.1, "ohm")
+# EN 50106:2008 Annex A.1 (routine test): at least 10 A from no more than 12 V. A multimeter's milliamperes cannot prove a bond.
+EARTH_TEST_CURRENT = Q_(10, "A")
+EARTH_TEST_VOLTAGE = Q_(12, "V")
 # Minimum insulation resistance at 500 V DC, DIN EN 50678:2021 (earlier DIN VDE 0701-0702:2008).
 INSULATION_MINIMUM = {"I": Q_(1.0, "megaohm"), "II": Q_(2.0, "megaohm")}
 LAMP_WATTS = (25, 40, 60, 75, 100, 150, 200)
@@ -48,6 +61,8 @@ def earth_continuity(record) -> list[Item]:
         origin=Origin.GENERAL,
         title="Protective-earth continuity",
         steps=(
+            f"Use an earth-bond tester that drives at least {fmt(EARTH_TEST_CURRENT)} from no more than {fmt(EARTH_TEST_VOLTAGE)}: "
+            "a multimeter's few milliamperes read low through a single strand or a loose screw and cannot prove a bond. "
             "Null the test leads, or note their resistance and subtract it. Measure from the earth pin of the "
             f"mains inlet to every touchable metal part: {_metal_parts(record)}. Enter the highest reading. "
             "With a cord fitted for good, measure from the plug's earth pin and add the resistance of the "
@@ -55,7 +70,8 @@ def earth_continuity(record) -> list[Item]:
         ),
         unit="ohm",
         expected=at_most(EARTH_LIMIT),
-        sources=(IET_INSERVICE_COP,),
+        sources=(IN_SERVICE_EARTH, EN_50106, IEC_60335_1_EARTH),
+        note=f"Test current at least {fmt(EARTH_TEST_CURRENT)} (EN 50106:2008 Annex A.1); limit {fmt(EARTH_LIMIT)} plus the cord's earth conductor.",
     )]
 
 
@@ -64,7 +80,7 @@ def _metal_parts(record) -> str:
     parts += [f"heatsink {sink.ref}" for sink in record.devices.heatsinks if sink.earthed]
     bonding = record.protection.earth.bonding if record.protection.earth else ""
     text = ", ".join(parts) if parts else "each exposed metal part"
-    return f"{text} (earth bonding: {bonding})" if bonding else text
+    return f"{text} (the record describes the bond as: {bonding}; this test is what verifies it)" if bonding else text
 
 
 def insulation_to_metal(record) -> Item:

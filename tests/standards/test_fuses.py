@@ -17,11 +17,37 @@ def _integral_of_square(current, end: float, steps: int = 200_000) -> float:
 
 
 def test_preferred_series_matches_iec_60127_annex_a():
-    # IEC 60127-1, Miniature fuses - Part 1, Annex A: preferred rated currents 315 mA ... 10 A.
+    # IEC 60127-1 (ed. 2.0, 2006), Miniature fuses - Part 1, Annex A: preferred rated currents 315 mA ... 10 A.
     annex_a = [0.315, 0.4, 0.5, 0.63, 0.8, 1, 1.25, 1.6, 2, 2.5, 3.15, 4, 5, 6.3, 8, 10]
     series = [q.to("A").magnitude for q in fuses.preferred_ratings()]
     assert [value for value in series if value >= 0.315] == pytest.approx(annex_a)
     assert series == sorted(series)
+
+
+def test_ratings_below_315_ma_are_the_r10_steps_of_iec_60127_1_annex_a():
+    # IEC 60127-1 (ed. 2.0, 2006), Annex A, preferred rated currents below 315 mA: 32, 40, 50, 63, 80, 100, 125, 160,
+    # 200, 250 mA (from memory), the R10 preferred-number steps of ISO 3 (1.00, 1.25, 1.60, 2.00, 2.50, 3.15, 4.00,
+    # 5.00, 6.30, 8.00) moved by decades; each step is about 10^(1/10) = 1.259 times the one before.
+    below = [0.032, 0.04, 0.05, 0.063, 0.08, 0.1, 0.125, 0.16, 0.2, 0.25]
+    series = [q.to("A").magnitude for q in fuses.preferred_ratings()]
+    assert [value for value in series if value < 0.315] == pytest.approx(below)
+    steps = [b / a for a, b in zip(series, series[1:])]
+    assert all(step == pytest.approx(10 ** 0.1, rel=0.03) for step in steps)
+
+
+def test_melting_curve_read_on_log_log_axes():
+    # Two points of a maker's I^2 t-t curve, (1 ms, 1 A^2 s) and (100 ms, 4 A^2 s): a straight line on log-log axes
+    # passes (10 ms, 2 A^2 s), the geometric middle; outside the points the nearest end is held.
+    points = [(Q_(100, "ms"), Q_(4, "A**2*s")), (Q_(1, "ms"), Q_(1, "A**2*s"))]
+    assert fuses.melting_i2t_at(points, Q_(10, "ms")).to("A**2*s").magnitude == pytest.approx(2.0)
+    assert fuses.melting_i2t_at(points, Q_(0.1, "ms")).to("A**2*s").magnitude == pytest.approx(1.0)
+    assert fuses.melting_i2t_at(points, Q_(1, "s")).to("A**2*s").magnitude == pytest.approx(4.0)
+
+
+def test_single_figure_share_for_short_pulses():
+    # A single melting I^2 t is measured at about 10 x I_n (tens of ms for a time-lag fuse); halved below 10 ms (from memory).
+    assert fuses.single_figure_share(Q_(1, "ms")) == pytest.approx(0.5)
+    assert fuses.single_figure_share(Q_(20, "ms")) == pytest.approx(1.0)
 
 
 @pytest.mark.parametrize("needed, expected", [

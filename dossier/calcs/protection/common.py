@@ -5,34 +5,56 @@ from __future__ import annotations
 import dataclasses
 
 from dossier.calcs.shared.finding_kit import maker
+from dossier.units import Q_
 from dossier.citations import EDN_FUSE_CHECKLIST, FUSEOLOGY, IEC_60050_131, IEC_60127_1
-from dossier.findings import Measure, Verdict, common_practice
+from dossier.findings import Measure, Source, Verdict, common_practice
 
 CALC_NAME = "protection"
 
 finding = maker(CALC_NAME)
 
-FUSEOLOGY_RUNNING = dataclasses.replace(FUSEOLOGY, clause="selection factors: 75 % of rating at 25 degC, temperature re-rating")
-FUSEOLOGY_VOLTAGE = dataclasses.replace(FUSEOLOGY, clause="selection factors: voltage rating at least the circuit voltage")
-FUSEOLOGY_WAVESHAPES = dataclasses.replace(FUSEOLOGY, clause="chart: I^2 t of pulse waveshapes")
-FUSEOLOGY_PULSE_CYCLES = dataclasses.replace(FUSEOLOGY, clause="chart: pulse-cycle withstand capability")
-IEC_60127_SERIES = dataclasses.replace(IEC_60127_1, clause="Annex A, preferred rated currents")
-POWER_FACTOR = IEC_60050_131
+FUSEOLOGY_DATED = dataclasses.replace(FUSEOLOGY, edition="undated edition on the maker's site (charts and selection factors as cited)")
+FUSEOLOGY_RUNNING = dataclasses.replace(FUSEOLOGY_DATED, clause="selection factors: 75 % of rating at 25 degC, temperature re-rating")
+FUSEOLOGY_VOLTAGE = dataclasses.replace(FUSEOLOGY_DATED, clause="selection factors: voltage rating at least the circuit voltage")
+FUSEOLOGY_WAVESHAPES = dataclasses.replace(FUSEOLOGY_DATED, clause="chart: I^2 t of pulse waveshapes")
+FUSEOLOGY_PULSE_CYCLES = dataclasses.replace(FUSEOLOGY_DATED, clause="chart: pulse-cycle withstand capability")
+IEC_60127_SERIES = dataclasses.replace(
+    IEC_60127_1, edition="edition 2.0, 2006, with amendments 1 (2011) and 2 (2015) (edition from memory)",
+    clause="Annex A, preferred rated currents (315 mA to 10 A confirmed; 32 to 250 mA the same R10 steps, from memory)",
+)
+POWER_FACTOR = dataclasses.replace(IEC_60050_131, edition="edition 2.0, 2002 (from memory)", clause="131-11-46, power factor: active power divided by apparent power (entry number from memory)")
 RERATING_LINE = common_practice("fuse ambient re-rating as a straight line, 100 % at 25 degC less 0.5 % per kelvin (from memory)")
 RUNNING_SOURCES = (FUSEOLOGY_RUNNING, EDN_FUSE_CHECKLIST, RERATING_LINE)
 HALF_SINE_PULSES = common_practice(
     "capacitor-input current as half-sine pulses centred on the voltage crest; the pulse width is the one that gives the power factor"
 )
-TYPICAL_POWER_FACTORS = common_practice(
-    "typical power factor by input: capacitor-input rectifier 0.6, transformer feeding a capacitor-input rectifier 0.7, no bulk capacitor 0.95 (from memory)"
+CAPACITOR_INPUT_POWER_FACTOR = Source(
+    title="Input current / power factor explained", publisher="Wellforces (power-supply maker), technical resources",
+    clause="power factor of a typical switch-mode supply without PFC: 0.4 to 0.6", kind="application-note",
 )
-TYPICAL_EFFICIENCY = common_practice("typical efficiency of a small mains unit, 75 %, when none is declared (from memory)")
+OTHER_POWER_FACTORS = common_practice(
+    "power factor of a mains transformer feeding a capacitor-input rectifier 0.55 to 0.8; of an input with no bulk capacitor 0.7 to 1 (from memory)"
+)
+PLAUSIBLE_EFFICIENCY = common_practice("efficiency of a small mains unit between 60 % (small linear supply) and 90 % (switch-mode) (from memory)")
+INTERNAL_RISE = common_practice("air inside a closed enclosure about 20 K above the room at full load, when not declared (from memory)")
 NTC_GUIDES = common_practice("NTC inrush-limiter makers' selection guides: energy 1/2 C V_peak^2 against the rated energy; residual resistance at running current")
 RC_CHARGE = common_practice("charging a capacitor through a resistance: i = (V / R) e^(-t / RC) (circuit theory)")
 
 
+DEFAULT_INTERNAL_RISE = Q_(20, "K")
+
+
 def measure(label: str, quantity) -> Measure:
     return Measure(label, quantity)
+
+
+def internal_ambient(record):
+    """(air temperature inside the enclosure, assumed?): declared, or the room's highest plus 20 K."""
+    declared = record.protection.internal_ambient
+    if declared is not None:
+        return declared, False
+    room = record.environment.max_ambient.to("degC")
+    return Q_(room.magnitude + DEFAULT_INTERNAL_RISE.magnitude, "degC"), True
 
 
 def lowered(verdict: Verdict, missing: list[str]) -> Verdict:

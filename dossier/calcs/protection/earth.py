@@ -1,16 +1,22 @@
-"""Protective earth: touchable metal and an earth terminal must have a declared bond."""
+"""Protective earth: touchable metal and an earth terminal must have a declared bond, and a described bond is a claim to verify."""
 
 from __future__ import annotations
 
 import dataclasses
+import re
 
-from dossier.calcs.protection.common import add_text, finding, measure
+from dossier.calcs.protection import words
+from dossier.calcs.protection.common import finding, measure
 from dossier.citations import IEC_61140
 from dossier.findings import Verdict, common_practice
 
-CLASS_I = dataclasses.replace(IEC_61140, clause="class I equipment: accessible conductive parts connected to the protective conductor")
+CLASS_I = dataclasses.replace(IEC_61140, edition="edition 4.0, 2016 (from memory)",
+                              clause="7.3, class I equipment: accessible conductive parts connected to the protective conductor (clause number from memory)")
 CLASS_II_METAL = common_practice("a class II unit in a metal case says how the case is kept from live parts (double or reinforced insulation)")
+CLAIM_TO_VERIFY = common_practice("a bond described in words is verified by a continuity test at the standard's test current, not by reading the description")
 KEYS = (("protection", "earth", "bonding"),)
+# Words that say there is no bond: 'none', 'no', 'n/a', 'not bonded', 'unbonded', 'floating', '-'.
+NO_BOND = re.compile(r"^\s*(none|no|nil|n/?a|-+|not bonded|unbonded|floating|no bond|not earthed|unearthed)\s*\.?\s*$", re.IGNORECASE)
 
 
 def earth_findings(record) -> list:
@@ -19,13 +25,19 @@ def earth_findings(record) -> list:
     earth = record.protection.earth
     if earth is None:
         return [_terminal_unbonded() if has_earth_terminal(record) else _undeclared()]
-    if earth.bonding.strip():
-        return [_declared(earth)]
+    bonded = declares_bond(earth.bonding)
+    if bonded:
+        return [_claimed(earth)]
     if earth.protective_class == "I":
-        return [_class_i_missing(earth)]
+        return [_class_i_unbonded(earth)]
     if earth.enclosure == "metal":
         return [_class_ii_metal(earth)]
     return []
+
+
+def declares_bond(bonding: str) -> bool:
+    """Text that describes a bond; blank text or a word for 'none' does not."""
+    return bool(bonding.strip()) and not NO_BOND.match(bonding)
 
 
 def has_earth_terminal(record) -> bool:
@@ -37,40 +49,34 @@ def has_earth_terminal(record) -> bool:
 
 
 def _terminal_unbonded():
-    text = ("The mains inlet has a protective-earth terminal, but the record does not say what it is bonded to. "
-            "An earth pin that goes nowhere protects nothing.")
     return finding(code="PROT-EARTH-BOND", subject="earth", title="Earth terminal with no declared bond", verdict=Verdict.FAIL,
-                   explanation=text + add_text(["protection.earth (protective_class, enclosure, bonding)"]),
+                   explanation=words.EARTH_TERMINAL_UNBONDED + words.add_text(["protection.earth (protective_class, enclosure, bonding)"]),
                    keys=(("protection",),), sources=(CLASS_I,))
 
 
 def _undeclared():
-    text = "The record does not say whether the unit is class I or class II, nor how touchable metal is earthed."
     return finding(code="PROT-EARTH-BOND", subject="earth", title="Earthing not declared", verdict=Verdict.INFO,
-                   explanation=text + add_text(["protection.earth (protective_class, enclosure, bonding)"]),
+                   explanation=words.EARTH_NOT_DECLARED + words.add_text(["protection.earth (protective_class, enclosure, bonding)"]),
                    keys=(("protection",),), sources=(CLASS_I,))
 
 
-def _declared(earth):
-    return finding(code="PROT-EARTH-BOND", subject="earth", title="Earth bonding declared", verdict=Verdict.PASS,
-                   values=(measure("bonding", earth.bonding.strip()),),
-                   explanation="Check the bond's continuity before power-up.", keys=KEYS, sources=(CLASS_I,))
+def _claimed(earth):
+    """A bond in words is information to verify on the checklist, never a pass."""
+    return finding(code="PROT-EARTH-BOND", subject="earth", title="Earth bond described: verify it", verdict=Verdict.INFO,
+                   values=(measure("bonding", earth.bonding.strip()), measure("protective class", earth.protective_class),
+                           measure("enclosure", earth.enclosure)),
+                   explanation=words.bond_claimed_text(earth.bonding.strip()), keys=KEYS, sources=(CLASS_I, CLAIM_TO_VERIFY))
 
 
-def _class_i_missing(earth):
+def _class_i_unbonded(earth):
     where = "the metal enclosure" if earth.enclosure == "metal" else "touchable metal parts"
-    text = (f"The unit is class I but the record does not say how protective earth is bonded to {where}. "
-            "If that bond is missing or loose, a fault from the mains to the case leaves the case live and nothing trips: "
-            "whoever touches it takes the fault current. Say how the earth lead is fixed (stud, star washer, locknut, crimped "
-            "ring terminal) and have it checked by a qualified person.")
-    return finding(code="PROT-EARTH-BOND", subject="earth", title="Earth bond not declared", verdict=Verdict.FAIL,
-                   values=(measure("enclosure", earth.enclosure),), explanation=text + add_text(["protection.earth.bonding"]),
+    return finding(code="PROT-EARTH-BOND", subject="earth", title="No earth bond", verdict=Verdict.FAIL,
+                   values=(measure("enclosure", earth.enclosure), measure("bonding", earth.bonding.strip())),
+                   explanation=words.class_i_unbonded_text(where, bool(earth.bonding.strip())) + words.add_text(["protection.earth.bonding"]),
                    keys=KEYS, sources=(CLASS_I,))
 
 
 def _class_ii_metal(earth):
-    text = ("The unit is class II in a metal enclosure, and the record does not say how the case is kept from live parts. "
-            "State the double or reinforced insulation that does it, or bond the case to earth and declare class I.")
     return finding(code="PROT-EARTH-BOND", subject="earth", title="Metal case of a class II unit", verdict=Verdict.MARGINAL,
-                   values=(measure("enclosure", earth.enclosure),), explanation=text + add_text(["protection.earth.bonding"]),
+                   values=(measure("enclosure", earth.enclosure),), explanation=words.CLASS_II_METAL + words.add_text(["protection.earth.bonding"]),
                    keys=KEYS, sources=(CLASS_II_METAL,))

@@ -4,12 +4,13 @@ from __future__ import annotations
 
 from dataclasses import dataclass
 
+from dossier.calcs.protection import words
 from dossier.calcs.protection.common import (
-    FUSEOLOGY_VOLTAGE, HALF_SINE_PULSES, IEC_60127_SERIES, POWER_FACTOR, RUNNING_SOURCES, TYPICAL_EFFICIENCY,
-    TYPICAL_POWER_FACTORS, add_text, finding, lowered, measure, percent,
+    CAPACITOR_INPUT_POWER_FACTOR, FUSEOLOGY_VOLTAGE, HALF_SINE_PULSES, IEC_60127_SERIES, INTERNAL_RISE, OTHER_POWER_FACTORS,
+    PLAUSIBLE_EFFICIENCY, POWER_FACTOR, RUNNING_SOURCES, finding, internal_ambient, measure, percent,
 )
-from dossier.calcs.protection.inrush import minimum_melting_i2t
-from dossier.calcs.protection.input import TOPOLOGY_WORDS, has_inrush, input_current
+from dossier.calcs.protection.inrush import minimum_melting_i2t, pulse_fits
+from dossier.calcs.protection.input import LEAST, TOPOLOGY_WORDS, has_inrush, input_current
 from dossier.findings import Verdict, common_practice, judge
 from dossier.standards.fuses import (
     HIGH_BREAKING_CAPACITY_A, ambient_factor, ambient_in_range, marking, minimum_rating, next_preferred,
@@ -22,6 +23,14 @@ BREAKING_PRACTICE = common_practice(
     "low-breaking glass types (35 A or ten times the rating) can shatter on a hard short (figures from memory)"
 )
 OUTPUT_KEYS = (("output",),)
+OVERSIZE_MULTIPLE = 3.0
+OVERSIZE_WIRING = common_practice(
+    "the mains fuse protects the inlet, cord, switch and wiring behind it, so it is rated no higher than the smallest of them (from memory)"
+)
+OVERSIZE_RUNNING = common_practice(
+    "a mains fuse no more than about 3 times the smallest rating that carries the running current, so an overload inside the unit "
+    "still blows it (from memory)"
+)
 
 
 @dataclass(frozen=True)
@@ -44,10 +53,11 @@ class FuseChoice:
 
 
 def fuse_ambient(record):
+    """(air temperature at the fuse, assumed?): the fuse's own, else the enclosure's inside air."""
     fuse = record.protection.fuse
     if fuse is not None and fuse.ambient is not None:
-        return fuse.ambient
-    return record.environment.max_ambient
+        return fuse.ambient, False
+    return internal_ambient(record)
 
 
 def recommended_fuse(record) -> FuseChoice | None:
@@ -55,22 +65,20 @@ def recommended_fuse(record) -> FuseChoice | None:
     running = input_current(record)
     if running is None:
         return None
-    ambient = fuse_ambient(record)
+    ambient, _ = fuse_ambient(record)
     minimum = minimum_rating(running.rms, ambient)
     speed = "time-lag" if has_inrush(record) else "fast-acting"
     needed_i2t = minimum_melting_i2t(record)
-    fits = _declared_fits(record, minimum, speed, needed_i2t)
+    fits = _declared_fits(record, minimum, speed)
     return FuseChoice(next_preferred(minimum), speed, minimum, ambient, needed_i2t, fits)
 
 
-def _declared_fits(record, minimum, speed: str, needed_i2t) -> bool:
+def _declared_fits(record, minimum, speed: str) -> bool:
     """Whether the declared fuse also does the job: rating, speed, voltage and (where known) switch-on pulse."""
     fuse = record.protection.fuse
     if fuse is None or fuse.rating < minimum or fuse.speed != speed or fuse.voltage_rating < record.mains.nominal:
         return False
-    if needed_i2t is None:
-        return True
-    return fuse.melting_i2t is not None and fuse.melting_i2t >= needed_i2t
+    return pulse_fits(record) is not False
 
 
 def fuse_findings(record) -> list:
@@ -87,7 +95,7 @@ def _input_current_finding(record):
     running = input_current(record)
     if running is None:
         return finding(code="PROT-INPUT-CURRENT", subject="mains input", title="Mains input current not computed", verdict=Verdict.INFO,
-                       explanation="The input current comes from the output power." + add_text(["output (voltage, current, efficiency, power_factor)"]),
+                       explanation=words.INPUT_NOT_COMPUTED + words.add_text(["output (voltage, current, efficiency, power_factor)"]),
                        keys=OUTPUT_KEYS, sources=(POWER_FACTOR,))
     values = (
         measure("RMS input current at low line", running.rms),
@@ -96,25 +104,21 @@ def _input_current_finding(record):
         measure("low line", running.low_line),
         measure("power factor", Q_(running.power_factor)),
         measure("efficiency", Q_(running.efficiency * 100, "percent")),
+        measure("crest factor", Q_((running.peak / running.rms).to("").magnitude)),
     )
     return finding(code="PROT-INPUT-CURRENT", subject="mains input", title="Mains input current at low line", verdict=Verdict.INFO,
                    values=values, method="I_rms = P_out / (efficiency x power factor x V_low); I_pk = I_rms sqrt(2 pi / conduction angle)",
-                   explanation=_input_text(running), keys=OUTPUT_KEYS, sources=_input_sources(running))
-
-
-def _input_text(running) -> str:
-    text = f"Input: {TOPOLOGY_WORDS[running.topology]}; at low line the unit draws {fmt(running.input_power)}."
-    if running.assumed:
-        text += " Typical values were used for what is not declared." + add_text(list(running.assumed))
-    return text
+                   explanation=words.input_text(TOPOLOGY_WORDS[running.topology], running.input_power)
+                   + words.assumed_text(running.assumed, words.MORE_CURRENT),
+                   keys=OUTPUT_KEYS, sources=_input_sources(running))
 
 
 def _input_sources(running) -> tuple:
     sources = [POWER_FACTOR, HALF_SINE_PULSES]
     if any("power_factor" in key for key in running.assumed):
-        sources.append(TYPICAL_POWER_FACTORS)
+        sources += [CAPACITOR_INPUT_POWER_FACTOR, OTHER_POWER_FACTORS]
     if any("efficiency" in key for key in running.assumed):
-        sources.append(TYPICAL_EFFICIENCY)
+        sources.append(PLAUSIBLE_EFFICIENCY)
     return tuple(sources)
 
 
@@ -123,116 +127,139 @@ def _rating_findings(record) -> list:
     choice = recommended_fuse(record)
     if fuse is None:
         return [_no_fuse(choice)] + ([_recommendation_finding(record, choice)] if choice else [])
+    oversize = _oversize_finding(record, fuse)
     if choice is None:
         return [finding(code="PROT-FUSE-RATING", subject=fuse.ref, title="Mains fuse rating not checked", verdict=Verdict.INFO,
-                        values=(measure("declared rating", fuse.rating),), explanation="The running current is unknown." + add_text(["output (voltage, current)"]),
-                        keys=(("protection", "fuse", "rating"),), sources=RUNNING_SOURCES)]
-    return [_rating_finding(record, fuse, choice), _recommendation_finding(record, choice)]
+                        values=(measure("declared rating", fuse.rating),), explanation=words.RUNNING_UNKNOWN + words.add_text(["output (voltage, current)"]),
+                        keys=(("protection", "fuse", "rating"),), sources=RUNNING_SOURCES), oversize]
+    return [_rating_finding(record, fuse, choice), oversize, _recommendation_finding(record, choice)]
 
 
 def _no_fuse(choice):
-    fit = f" Fit a {choice.marking} fuse in the line conductor." if choice and choice.rating is not None else ""
-    text = ("No mains fuse is declared. Without one, a short inside the unit is cleared only by the building's breaker, "
-            "which is sized for the wiring, not for this unit: parts can burn before it trips." + fit)
+    fit = choice.marking if choice and choice.rating is not None else None
     return finding(code="PROT-FUSE-RATING", subject="mains input", title="No mains fuse", verdict=Verdict.FAIL,
-                   explanation=text + add_text(["protection.fuse"]), keys=(("protection",),), sources=RUNNING_SOURCES)
+                   explanation=words.no_fuse_text(fit) + words.add_text(["protection.fuse"]), keys=(("protection",),), sources=RUNNING_SOURCES)
 
 
 def _rating_finding(record, fuse, choice: FuseChoice):
+    """Judged at the plausible reading that gives the most current when the record is silent: never lowered to info."""
     running = input_current(record)
-    verdict = lowered(judge(fuse.rating, choice.minimum, ">="), list(running.assumed))
-    return finding(code="PROT-FUSE-RATING", subject=fuse.ref, title="Mains fuse rating against the running current", verdict=verdict,
-                   values=_rating_values(fuse, running, choice),
-                   limit=measure(f"running current / (75 % x {percent(ambient_factor(choice.ambient))} % re-rating at {fmt(choice.ambient)})", choice.minimum),
+    _, ambient_assumed = fuse_ambient(record)
+    explanation = (words.rating_text(fuse.ref, percent((running.rms / fuse.rating).to("")), ambient_in_range(choice.ambient))
+                   + words.assumed_text(running.assumed, words.MORE_CURRENT) + words.fuse_ambient_text(choice.ambient, ambient_assumed))
+    return finding(code="PROT-FUSE-RATING", subject=fuse.ref, title="Mains fuse rating against the running current",
+                   verdict=judge(fuse.rating, choice.minimum, ">="), values=_rating_values(fuse, running, choice),
+                   limit=measure(words.rating_limit_label(percent(ambient_factor(choice.ambient)), choice.ambient), choice.minimum),
                    method="I_rating >= I_rms / (0.75 x re-rating(ambient)); re-rating = 1 - 0.005/K (T - 25 degC)",
-                   explanation=_rating_text(fuse, running, choice) + add_text(list(running.assumed)),
-                   keys=(("protection", "fuse", "rating"),), sources=RUNNING_SOURCES)
+                   explanation=explanation, keys=(("protection", "fuse", "rating"), ("output", "power_factor")),
+                   sources=RUNNING_SOURCES + _ambient_sources(ambient_assumed))
+
+
+def _ambient_sources(assumed: bool) -> tuple:
+    return (INTERNAL_RISE,) if assumed else ()
 
 
 def _rating_values(fuse, running, choice: FuseChoice) -> tuple:
-    values = (measure("declared rating", fuse.rating.to("A")), measure("running current at low line", running.rms))
+    values = (measure("declared rating", fuse.rating.to("A")), measure("running current at low line", running.rms),
+              measure("power factor", Q_(running.power_factor)), measure("efficiency", Q_(running.efficiency * 100, "percent")),
+              measure("air at the fuse", choice.ambient), measure("ambient re-rating", Q_(ambient_factor(choice.ambient))))
     return values + ((measure("recommended rating", choice.rating),) if choice.rating is not None else ())
 
 
-def _rating_text(fuse, running, choice: FuseChoice) -> str:
-    load = percent((running.rms / fuse.rating).to(""))
-    text = f"{fuse.ref} runs at {load} % of its rating at low line."
-    if load > 75:
-        text += " Above 75 % a fuse runs hot, ages and opens in normal use."
-    if not ambient_in_range(choice.ambient):
-        text += " The ambient is beyond the re-rating line's range (100 degC): use the maker's curve."
-    return text
+def _oversize_finding(record, fuse):
+    """The fuse is no larger than what it protects: the declared wiring, else a multiple of the least plausible running current."""
+    wiring = declared_wiring(record.protection.wiring)
+    least = input_current(record, LEAST)
+    if least is None and not wiring:
+        return finding(code="PROT-FUSE-OVERSIZE", subject=fuse.ref, title="Mains fuse not too large: not assessed", verdict=Verdict.INFO,
+                       values=(measure("declared rating", fuse.rating.to("A")),), explanation=words.OVERSIZE_NOT_ASSESSED,
+                       keys=(("protection", "fuse", "rating"),), sources=(OVERSIZE_WIRING,))
+    if wiring:
+        part, rated = min(wiring.items(), key=lambda item: item[1])
+        if fuse.rating > rated:
+            return _oversize(fuse, Verdict.FAIL, measure(f"{part} rating", rated), words.oversize_wiring_text(fuse.ref, part),
+                             (("protection", "wiring", part),), (OVERSIZE_WIRING,))
+    if least is None:
+        return _oversize(fuse, Verdict.PASS, measure(f"{part} rating", rated), "", (("protection", "wiring", part),), (OVERSIZE_WIRING,))
+    return _oversize_running(record, fuse, least, bool(wiring))
+
+
+def declared_wiring(wiring) -> dict:
+    if wiring is None:
+        return {}
+    named = {name: getattr(wiring, name) for name in type(wiring).model_fields}
+    return {name: value for name, value in named.items() if value is not None}
+
+
+def _oversize_running(record, fuse, least, wiring_declared: bool):
+    ambient, _ = fuse_ambient(record)
+    bound = (OVERSIZE_MULTIPLE * minimum_rating(least.rms, ambient)).to("A")
+    too_big = fuse.rating > bound
+    verdict = (Verdict.MARGINAL if wiring_declared else Verdict.FAIL) if too_big else Verdict.PASS
+    text = words.oversize_running_text(fuse.ref, OVERSIZE_MULTIPLE, wiring_declared) if too_big else ""
+    text += words.assumed_text(least.assumed, words.LESS_CURRENT)
+    values = (measure("least plausible running current at low line", least.rms),)
+    return _oversize(fuse, verdict, measure(f"{OVERSIZE_MULTIPLE:g} x the smallest rating that carries it", bound), text,
+                     (("protection", "wiring"), ("output",)), (OVERSIZE_RUNNING, OVERSIZE_WIRING) + RUNNING_SOURCES, values)
+
+
+def _oversize(fuse, verdict, limit, text: str, keys: tuple, sources: tuple, values: tuple = ()):
+    return finding(code="PROT-FUSE-OVERSIZE", subject=fuse.ref, title="Mains fuse not larger than what it protects", verdict=verdict,
+                   values=(measure("declared rating", fuse.rating.to("A")),) + values, limit=limit, relation="<=",
+                   method="I_rating <= smallest declared rating of inlet, cord, switch, internal wiring; "
+                          "I_rating <= 3 x I_rms,least / (0.75 x re-rating(ambient))",
+                   explanation=text.strip(), keys=(("protection", "fuse", "rating"),) + keys, sources=sources)
 
 
 def _recommendation_finding(record, choice: FuseChoice):
     if choice.rating is None:
         return finding(code="PROT-FUSE-RECOMMENDED", subject="mains fuse", title="No miniature fuse rating is large enough", verdict=Verdict.INFO,
                        values=(measure("smallest rating for the running current", choice.minimum),),
-                       explanation="The running current needs more than 10 A, the top of the IEC 60127 series: use a larger fuse type.",
-                       sources=(IEC_60127_SERIES,) + RUNNING_SOURCES)
-    values = (measure("recommended rating", choice.rating), measure("marking", choice.marking), measure("speed", choice.speed))
+                       explanation=words.NO_MINIATURE_RATING, sources=(IEC_60127_SERIES,) + RUNNING_SOURCES)
+    values = (measure("recommended rating", choice.rating), measure("marking", choice.marking), measure("speed", choice.speed),
+              measure("smallest rating for the running current", choice.minimum))
     if choice.minimum_melting_i2t is not None:
         values += (measure("melting I^2 t at least", choice.minimum_melting_i2t),)
     return finding(code="PROT-FUSE-RECOMMENDED", subject="mains fuse", title=f"Fit {choice.marking}", verdict=Verdict.INFO, values=values,
                    method="smallest IEC 60127 preferred rating >= I_rms / (0.75 x re-rating); melting I^2 t >= pulse I^2 t / pulse-cycle share",
-                   explanation=_recommendation_text(choice, record.protection.inrush_limiter is None) + _declared_text(record, choice),
+                   explanation=words.recommendation_text(choice.rating, choice.speed, choice.minimum_melting_i2t, record.protection.inrush_limiter is None)
+                   + _declared_text(record, choice),
                    keys=(("protection", "fuse"),),
                    sources=(IEC_60127_SERIES,) + RUNNING_SOURCES + (TIME_LAG_PRACTICE,))
-
-
-def _recommendation_text(choice: FuseChoice, unlimited: bool) -> str:
-    text = f"The smallest preferred rating that carries the running current is {fmt(choice.rating)} ({choice.speed})."
-    if choice.minimum_melting_i2t is not None:
-        text += f" Choose a type whose melting I^2 t is at least {fmt(choice.minimum_melting_i2t)}, so the switch-on surge does not wear it out"
-        text += " (or fit an inrush limiter, which shrinks the surge)." if unlimited else "."
-    return text
 
 
 def _declared_text(record, choice: FuseChoice) -> str:
     fuse = record.protection.fuse
     if fuse is None:
         return ""
-    declared = marking(fuse.rating, fuse.speed)
-    if choice.declared_fits:
-        return f" The declared {fuse.ref} ({declared}) also passes these checks."
-    return f" The declared {fuse.ref} ({declared}) does not pass all of them: see the other findings for {fuse.ref}."
+    return words.declared_fits_text(fuse.ref, marking(fuse.rating, fuse.speed), choice.declared_fits)
 
 
 def _speed_finding(record, fuse):
     wanted = "time-lag" if has_inrush(record) else fuse.speed
     verdict = Verdict.MARGINAL if fuse.speed != wanted else Verdict.PASS
-    text = (f"{fuse.ref} is fast-acting, but the unit draws a surge at every switch-on; a time-lag fuse carries the surge "
-            "and still opens on a lasting fault." if verdict is Verdict.MARGINAL else f"{fuse.ref} is {fuse.speed}.")
     return finding(code="PROT-FUSE-SPEED", subject=fuse.ref, title="Mains fuse speed", verdict=verdict,
-                   values=(measure("declared speed", fuse.speed),), explanation=text,
+                   values=(measure("declared speed", fuse.speed),), explanation=words.speed_text(fuse.ref, fuse.speed, verdict is Verdict.MARGINAL),
                    keys=(("protection", "fuse", "speed"),), sources=(TIME_LAG_PRACTICE,))
 
 
 def _voltage_finding(record, fuse):
     verdict = judge(fuse.voltage_rating, record.mains.nominal, ">=")
-    text = "A fuse rated below the circuit voltage may not quench the arc when it opens."
     return finding(code="PROT-FUSE-VOLTAGE", subject=fuse.ref, title="Mains fuse voltage rating", verdict=verdict,
                    values=(measure("fuse voltage rating", fuse.voltage_rating),), limit=measure("nominal mains voltage", record.mains.nominal),
-                   method="V_rating >= V_mains (nominal RMS)", explanation=text if verdict is Verdict.FAIL else "",
+                   method="V_rating >= V_mains (nominal RMS)", explanation=words.FUSE_VOLTAGE_LOW if verdict is Verdict.FAIL else "",
                    keys=(("protection", "fuse", "voltage_rating"),), sources=(FUSEOLOGY_VOLTAGE,))
 
 
 def _breaking_finding(fuse):
     if fuse.breaking_capacity is None:
         return finding(code="PROT-FUSE-BREAKING", subject=fuse.ref, title="Mains fuse breaking capacity", verdict=Verdict.INFO,
-                       explanation="The breaking capacity is marked on the fuse (H for high, L for low) and given in its data." + add_text(["protection.fuse.breaking_capacity"]),
+                       explanation=words.BREAKING_UNKNOWN + words.add_text(["protection.fuse.breaking_capacity"]),
                        keys=(("protection", "fuse"),), sources=(BREAKING_PRACTICE,))
     high = Q_(HIGH_BREAKING_CAPACITY_A, "A").to("kA")
     verdict = Verdict.PASS if fuse.breaking_capacity >= high else Verdict.MARGINAL
     return finding(code="PROT-FUSE-BREAKING", subject=fuse.ref, title="Mains fuse breaking capacity", verdict=verdict,
                    values=(measure("breaking capacity", fuse.breaking_capacity.to("kA")),), limit=measure("high breaking capacity", high),
-                   method="breaking capacity >= 1500 A on a mains primary", explanation=_breaking_text(fuse, verdict),
+                   method="breaking capacity >= 1500 A on a mains primary",
+                   explanation="" if verdict is Verdict.PASS else words.breaking_text(fuse.ref, fuse.body == "glass"),
                    keys=(("protection", "fuse", "breaking_capacity"),), sources=(BREAKING_PRACTICE,))
-
-
-def _breaking_text(fuse, verdict: Verdict) -> str:
-    if verdict is Verdict.PASS:
-        return ""
-    body = "glass " if fuse.body == "glass" else ""
-    return (f"{fuse.ref} is a low-breaking {body}fuse. A short across the mains can drive more current than it can interrupt; "
-            "it may arc or shatter instead of clearing. Common practice on a mains primary is a ceramic, sand-filled, high-breaking type.")

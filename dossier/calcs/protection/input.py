@@ -10,9 +10,13 @@ CAPACITOR_INPUT = "capacitor-input"
 TRANSFORMER_CAPACITOR_INPUT = "transformer-capacitor-input"
 NO_BULK_CAPACITOR = "no-bulk-capacitor"
 
-# Common practice, from memory (see protection_common.TYPICAL_POWER_FACTORS).
-TYPICAL_POWER_FACTOR = {CAPACITOR_INPUT: 0.6, TRANSFORMER_CAPACITOR_INPUT: 0.7, NO_BULK_CAPACITOR: 0.95}
-TYPICAL_EFFICIENCY = 0.75
+MOST = "most"
+LEAST = "least"
+# Plausible power factor by input when none is declared, (lowest, highest); sources in common.PLAUSIBLE_POWER_FACTORS.
+# A check takes the end that makes its own verdict harsher: the lowest for "is the fuse big enough", the highest
+# for "is the fuse too big".
+PLAUSIBLE_POWER_FACTOR = {CAPACITOR_INPUT: (0.4, 0.6), TRANSFORMER_CAPACITOR_INPUT: (0.55, 0.8), NO_BULK_CAPACITOR: (0.7, 1.0)}
+PLAUSIBLE_EFFICIENCY = (0.6, 0.9)
 TOPOLOGY_WORDS = {
     CAPACITOR_INPUT: "capacitor-input rectifier on the mains",
     TRANSFORMER_CAPACITOR_INPUT: "mains transformer feeding a capacitor-input rectifier",
@@ -67,26 +71,31 @@ def output_power(output):
     return (output.voltage * output.current).to("W")
 
 
-def input_current(record) -> InputCurrent | None:
-    """Running current at low line; None without mains or a declared output."""
+def input_current(record, reading: str = MOST) -> InputCurrent | None:
+    """Running current at low line; None without mains or a declared output.
+
+    What the record leaves out is taken at the plausible end that gives the MOST current (for sizing a fuse
+    or a limiter) or the LEAST (for judging whether a fuse is too big).
+    """
     if record.mains is None or record.output is None:
         return None
     topology = input_topology(record)
-    pf, efficiency, assumed = _factors(record.output, topology)
+    pf, efficiency, assumed = _factors(record.output, topology, reading)
     input_power = output_power(record.output) / efficiency
     rms = (input_power / (record.mains.low * pf)).to("A")
     return InputCurrent(rms, rms * crest_factor(pf), input_power.to("W"), record.mains.low.to("V"), pf, efficiency, topology, assumed)
 
 
-def _factors(output, topology: str) -> tuple[float, float, tuple[str, ...]]:
+def _factors(output, topology: str, reading: str) -> tuple[float, float, tuple[str, ...]]:
+    end = 0 if reading == MOST else 1
     assumed: list[str] = []
-    pf = _ratio(output.power_factor, "output.power_factor", TYPICAL_POWER_FACTOR[topology], assumed)
-    efficiency = _ratio(output.efficiency, "output.efficiency", TYPICAL_EFFICIENCY, assumed)
+    pf = _ratio(output.power_factor, "output.power_factor", PLAUSIBLE_POWER_FACTOR[topology][end], assumed)
+    efficiency = _ratio(output.efficiency, "output.efficiency", PLAUSIBLE_EFFICIENCY[end], assumed)
     return pf, efficiency, tuple(assumed)
 
 
 def _ratio(quantity, key: str, typical: float, assumed: list[str]) -> float:
-    """The declared ratio, or the typical one with a note of what to add or correct."""
+    """The declared ratio, or the plausible one with a note of what to add or correct."""
     if quantity is None:
         assumed.append(key)
         return typical

@@ -2,9 +2,11 @@
 
 from __future__ import annotations
 
+from dossier.calcs.protection import words
 from dossier.calcs.protection.common import NTC_GUIDES, RC_CHARGE, add_text, finding, measure, percent
 from dossier.calcs.shared.mains_lines import high_line_peak
-from dossier.calcs.protection.inrush import charging_pulse
+from dossier.calcs.protection.inrush import MELTING_CURVE, charging_pulse, fuse_melting
+from dossier.findings import Source
 from dossier.calcs.protection.input import input_current
 from dossier.findings import Verdict, common_practice, judge
 from dossier.units import Q_, fmt
@@ -14,6 +16,10 @@ CURRENT_MARGIN = 0.2
 MARGIN_PRACTICE = common_practice("keep 20 % headroom below a limiter's rated energy and current")
 COOL_DOWN = common_practice("an NTC limiter needs tens of seconds to minutes to cool after switch-off (from memory; see the maker's data)")
 RESISTOR_POWER = common_practice("a resistor that stays in circuit is rated for at least twice its dissipation")
+CAPACITANCE_SCALING = Source(
+    title="The size of the NTC thermistor with filter capacitor", publisher="Shenzhen Linxiang Electronic (NTC maker), application note",
+    clause="the capacitance an NTC allows varies inversely as the square of the rated voltage (E = 1/2 C V^2)", kind="application-note",
+)
 
 
 def limiter_findings(record) -> list:
@@ -40,8 +46,7 @@ def _energy_finding(record, limiter):
         rated = measure(f"{limiter.ref} rated energy", limiter.max_energy)
         return _energy_against(limiter, measure("switch-on energy at high line", energy), rated, energy)
     if limiter.max_capacitance is not None:
-        rated = measure(f"{limiter.ref} maximum capacitance", limiter.max_capacitance)
-        return _energy_against(limiter, measure("bulk capacitance", capacitance), rated, energy)
+        return _capacitance_against(record, limiter, capacitance, energy)
     return _energy_info(limiter, energy, [f"protection.inrush_limiter.max_energy (or max_capacitance) for {limiter.ref}"])
 
 
@@ -51,6 +56,29 @@ def _energy_against(limiter, value, limit, energy):
                    values=_unique((value, measure("switch-on energy at high line", energy))), limit=limit, relation="<=",
                    method="E = 1/2 C V_pk^2 at the crest of high line", explanation=_energy_text(limiter, verdict, energy),
                    keys=(("protection", "inrush_limiter"), ("protection", "bulk_capacitance")), sources=(NTC_GUIDES, MARGIN_PRACTICE))
+
+
+def scaled_capacitance(limiter, quoted_at, used_at):
+    """The maker's maximum capacitance moved to another voltage at the same energy: C_used = C_quoted (V_quoted / V_used)^2."""
+    return (limiter.max_capacitance * (quoted_at / used_at).to("") ** 2).to("uF")
+
+
+def _capacitance_against(record, limiter, capacitance, energy):
+    quoted_at = limiter.max_capacitance_voltage or record.mains.nominal
+    used_at = record.mains.high
+    allowed = scaled_capacitance(limiter, quoted_at, used_at)
+    verdict = judge(capacitance, allowed, "<=", ENERGY_MARGIN)
+    text = words.capacitance_scaled_text(limiter.ref, limiter.max_capacitance, quoted_at, used_at, allowed, limiter.max_capacitance_voltage is None)
+    values = (measure("bulk capacitance", capacitance), measure("switch-on energy at high line", energy),
+              measure(f"{limiter.ref} maximum capacitance as quoted", limiter.max_capacitance), measure("voltage it is quoted at", quoted_at),
+              measure("high line", used_at))
+    return finding(code="PROT-NTC-ENERGY", subject=limiter.ref, title="Inrush limiter switch-on energy", verdict=verdict,
+                   values=values, limit=measure(f"{limiter.ref} maximum capacitance at high line", allowed), relation="<=",
+                   method="C_allowed = C_max (V_quoted / V_high)^2 (equal energy 1/2 C V^2)",
+                   explanation=(text + " " + _energy_text(limiter, verdict, energy)).strip(),
+                   keys=(("protection", "inrush_limiter", "max_capacitance"), ("protection", "inrush_limiter", "max_capacitance_voltage"),
+                         ("protection", "bulk_capacitance")),
+                   sources=(NTC_GUIDES, CAPACITANCE_SCALING, MARGIN_PRACTICE))
 
 
 def _unique(measures: tuple) -> tuple:
@@ -116,22 +144,18 @@ def _dissipation_info(limiter, values, missing: list[str]):
 
 
 def _cool_down_finding(record, limiter):
+    """A hot restart that needs the whole melting I^2 t blows the fuse: marginal, never info. No hot resistance is taken as zero."""
     hot = limiter.hot_resistance if limiter.hot_resistance is not None else Q_(0, "ohm")
     pulse = charging_pulse(record, hot)
-    values = (measure("peak current on a hot restart", pulse.peak), measure("hot-restart I^2 t", pulse.i2t)) if pulse else ()
-    missing = [] if limiter.hot_resistance is not None else ["protection.inrush_limiter.hot_resistance"]
-    return finding(code="PROT-NTC-COOLDOWN", subject=limiter.ref, title="Switching on again while the limiter is hot", verdict=Verdict.INFO,
-                   values=values, method="I_pk = sqrt(2) V_high / (R_hot + R_source + ESR); I^2 t = I_pk^2 tau / 2",
-                   explanation=_cool_down_text(record, limiter, pulse) + add_text(missing),
-                   keys=(("protection", "inrush_limiter"),), sources=(COOL_DOWN, RC_CHARGE))
-
-
-def _cool_down_text(record, limiter, pulse) -> str:
-    text = (f"A warm NTC has only its residual resistance: switched off and on again before {limiter.ref} has cooled "
-            "(tens of seconds to minutes), the unit draws nearly the unlimited surge.")
     fuse = record.protection.fuse
-    if pulse is None or fuse is None or fuse.melting_i2t is None:
-        return text
-    share = percent((pulse.i2t / fuse.melting_i2t).to(""))
-    text += f" That pulse is {share} % of {fuse.ref}'s melting I^2 t"
-    return text + (": a quick power cycle can blow the fuse. Wait before switching on again." if share >= 100 else ".")
+    melting = fuse_melting(fuse, pulse.time_constant) if pulse is not None and fuse is not None else None
+    share = percent((pulse.i2t / melting.i2t).to("")) if melting is not None else None
+    values = (measure("hot-restart I^2 t", pulse.i2t), measure("peak current on a hot restart", pulse.peak)) if pulse else ()
+    if melting is not None:
+        values += (measure("fuse melting I^2 t at the pulse's duration", melting.i2t), measure("share of the melting I^2 t", Q_(share, "percent")))
+    verdict = Verdict.MARGINAL if share is not None and share >= 100 else Verdict.INFO
+    return finding(code="PROT-NTC-COOLDOWN", subject=limiter.ref, title="Switching on again while the limiter is hot", verdict=verdict,
+                   values=values, limit=measure("fuse melting I^2 t at the pulse's duration", melting.i2t) if melting is not None else None,
+                   relation="<=", method="I_pk = sqrt(2) V_high / (R_hot + R_source + ESR); I^2 t = I_pk^2 tau / 2 against the melting I^2 t",
+                   explanation=words.hot_restart_text(limiter.ref, fuse.ref if fuse else None, share, limiter.hot_resistance is None),
+                   keys=(("protection", "inrush_limiter", "hot_resistance"), ("protection", "fuse")), sources=(COOL_DOWN, RC_CHARGE, MELTING_CURVE))

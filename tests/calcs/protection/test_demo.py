@@ -78,10 +78,10 @@ def test_rev_a_lacks_battery_side_protection():
 
 
 @pytest.mark.parametrize("revision", ["B", "C"])
-def test_later_revisions_fix_the_protection(revision):
+def test_later_revisions_fix_the_battery_side(revision):
+    # The switch-on pulse now starts from the NTC at the enclosure's inside air (room + 20 K), not 25 degC: see
+    # test_inrush.py for the record-level checks; the battery side stays fixed.
     findings = findings_of("sw-charger-12v", revision)
-    assert not [f.code for f in findings if f.verdict is Verdict.FAIL]
-    assert one(findings, "PROT-INRUSH").verdict in (Verdict.PASS, Verdict.MARGINAL)
     assert one(findings, "PROT-OUTPUT-FUSE").verdict is Verdict.PASS
     assert one(findings, "PROT-REVERSE-POLARITY").verdict is Verdict.PASS
 
@@ -93,9 +93,11 @@ def test_rev_b_ntc_energy_and_cool_down_caveat():
     assert energy.value.quantity.to("J").magnitude == pytest.approx(0.5 * 235e-6 * (253 * math.sqrt(2)) ** 2, rel=1e-6)
     assert energy.verdict is Verdict.PASS
     cool = one(findings, "PROT-NTC-COOLDOWN")
-    assert cool.verdict is Verdict.INFO
+    # hot-restart I^2 t = I_pk^2 tau / 2 = 298.2^2 x 1.2 ohm x 235 uF / 2 = 12.5 A^2 s, over half F1's single 12 A^2 s
+    # figure (halved for a sub-10 ms pulse, from memory): the fuse melts, so marginal, never info.
+    assert cool.verdict is Verdict.MARGINAL
     assert "cooled" in cool.explanation
-    assert cool.value.quantity.to("A").magnitude == pytest.approx(253 * math.sqrt(2) / (0.4 + 0.5 + 0.3), rel=1e-6)
+    assert cool.values[1].quantity.to("A").magnitude == pytest.approx(253 * math.sqrt(2) / (0.4 + 0.5 + 0.3), rel=1e-6)
 
 
 def test_rev_b_ntc_dissipation_from_hot_resistance():
@@ -113,47 +115,51 @@ def test_rotator_metal_enclosure_without_bonding_is_a_finding():
     assert earth.keys == (("protection", "earth", "bonding"),)
 
 
-def test_bench_supply_has_no_protection_failure():
+def test_bench_supply_fuse_at_the_enclosures_inside_air():
     findings = findings_of("bench-psu-13v8", "A")
-    assert not [f.code for f in findings if f.verdict is Verdict.FAIL]
-    assert one(findings, "PROT-EARTH-BOND").verdict is Verdict.PASS
-    # 13.8 V x 3 A / 0.55 = 75.27 W at 108 V and power factor 0.65: 1.072 A; / (0.75 x 0.975 at 30 degC) = 1.466 A
-    # (Littelfuse, Fuseology Selection Guide: 75 % at 25 degC; the 0.5 %/K re-rating line is from memory) -> T1.6A
+    assert one(findings, "PROT-EARTH-BOND").verdict is Verdict.INFO  # a described bond is a claim to verify
+    # 13.8 V x 3 A / 0.55 = 75.27 W at 108 V and power factor 0.65: 1.072 A; inside air 30 + 20 = 50 degC (room + 20 K,
+    # from memory): / (0.75 x 0.875) = 1.634 A (Littelfuse, Fuseology Selection Guide: 75 % at 25 degC; the
+    # 0.5 %/K re-rating line is from memory): the declared 1.6 A is short.
     rating = one(findings, "PROT-FUSE-RATING")
-    assert rating.limit.quantity.to("A").magnitude == pytest.approx(1.466, abs=0.001)
-    assert rating.verdict is Verdict.PASS
+    assert rating.limit.quantity.to("A").magnitude == pytest.approx(1.0723 / (0.75 * 0.875), abs=0.001)
+    assert rating.verdict is Verdict.FAIL
 
 
 def test_rotator_fuse_rating_by_hand():
-    # 24 V x 2 A / 0.85 = 56.47 W at 207 V and power factor 0.95: 0.2872 A; / (0.75 x 0.975) = 0.3927 A; the next
-    # IEC 60127-1 Annex A rating is 400 mA, the fuse the record declares.
+    # 24 V x 2 A / 0.85 = 56.47 W at 207 V and power factor 0.95: 0.2872 A; inside air 30 + 20 = 50 degC:
+    # / (0.75 x 0.875) = 0.4376 A; the next IEC 60127-1 Annex A rating is 500 mA.
     findings = findings_of("rotator-control", "A")
-    assert one(findings, "PROT-FUSE-RATING").limit.quantity.to("A").magnitude == pytest.approx(0.3927, abs=0.0001)
-    assert one(findings, "PROT-FUSE-RECOMMENDED").title == "Fit T400mA"
+    assert one(findings, "PROT-FUSE-RATING").limit.quantity.to("A").magnitude == pytest.approx(0.4376, abs=0.0001)
+    assert one(findings, "PROT-FUSE-RECOMMENDED").title == "Fit T500mA"
 
 
 def test_recommended_fuse_for_the_checklist():
     choice = recommended_fuse(load_demo("sw-charger-12v", "B"))
-    # 86.4 W / 0.8 / (207 V x 0.6) = 0.870 A; / (0.75 x 0.95 at 35 degC) = 1.22 A -> 1.25 A,
+    # 86.4 W / 0.8 / (207 V x 0.6) = 0.870 A; inside air 35 + 20 = 55 degC: / (0.75 x 0.85) = 1.364 A -> 1.6 A,
     # the next value of IEC 60127-1 Annex A; time-lag for a capacitor-input unit (common practice).
-    assert choice.rating.to("A").magnitude == pytest.approx(1.25)
+    assert choice.rating.to("A").magnitude == pytest.approx(1.6)
     assert choice.speed == "time-lag"
-    assert choice.marking == "T1.25A"
-    # Melting I^2 t needed: pulse I^2 t / 29 % for 10 000 pulses (Littelfuse, Fuseology Selection Guide, pulse-cycle chart).
-    pulse = (253 * math.sqrt(2) / 10.8) ** 2 * 10.8 * 235e-6 / 2
-    assert choice.minimum_melting_i2t.to("A**2*s").magnitude == pytest.approx(pulse / 0.29, rel=1e-6)
+    assert choice.marking == "T1.6A"
+    # The NTC starts at 55 degC: 10 ohm x exp(4000 K (1/328.15 K - 1/298.15 K)) (B-constant equation, B 4000 K from memory).
+    # Melting I^2 t needed: pulse I^2 t / 29 % for 10 000 pulses (Littelfuse, Fuseology Selection Guide, pulse-cycle chart),
+    # and / 50 % for a single figure against a sub-10 ms pulse (from memory).
+    path = 10 * math.exp(4000 * (1 / 328.15 - 1 / 298.15)) + 0.8
+    pulse = (253 * math.sqrt(2) / path) ** 2 * path * 235e-6 / 2
+    assert choice.minimum_melting_i2t.to("A**2*s").magnitude == pytest.approx(pulse / 0.29 / 0.5, rel=1e-6)
 
 
 def test_recommendation_says_whether_the_declared_fuse_fits():
     assert not recommended_fuse(load_demo("sw-charger-12v", "A")).declared_fits
-    assert recommended_fuse(load_demo("sw-charger-12v", "B")).declared_fits
+    # rev B's T2A fails the switch-on pulse once the NTC starts at the enclosure's inside air
+    assert not recommended_fuse(load_demo("sw-charger-12v", "B")).declared_fits
     finding = one(findings_of("sw-charger-12v", "B"), "PROT-FUSE-RECOMMENDED")
-    assert "T2A" in finding.explanation and "also passes" in finding.explanation
+    assert "T2A" in finding.explanation and "does not pass all of them" in finding.explanation
 
 
 def test_recommendation_is_a_finding_value():
-    # 0.870 A / (0.75 x 0.95) = 1.22 A -> 1.25 A, the next IEC 60127-1 Annex A rating
+    # 0.870 A / (0.75 x 0.85 at 55 degC inside) = 1.364 A -> 1.6 A, the next IEC 60127-1 Annex A rating
     finding = one(findings_of("sw-charger-12v", "A"), "PROT-FUSE-RECOMMENDED")
-    assert finding.value.quantity.to("A").magnitude == pytest.approx(1.25)
-    assert finding.title == "Fit T1.25A"
+    assert finding.value.quantity.to("A").magnitude == pytest.approx(1.6)
+    assert finding.title == "Fit T1.6A"
 

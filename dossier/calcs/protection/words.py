@@ -1,0 +1,223 @@
+"""Every sentence the protection calc writes; the checks pass numbers in and keep to rules."""
+
+from __future__ import annotations
+
+from dossier.units import fmt
+
+
+def add_text(missing) -> str:
+    """' Add protection.bulk_esr and protection.source_resistance.' or ''."""
+    if not missing:
+        return ""
+    return " Add " + " and ".join(missing) + "."
+
+
+def assumed_text(keys, harsher: str) -> str:
+    """Says that the record was silent, which reading was taken, and which keys make it exact."""
+    if not keys:
+        return ""
+    return f" The record does not give {' or '.join(keys)}: the plausible value that {harsher} was taken (the harsher reading). Declare {' and '.join(keys)} to make it exact."
+
+
+# Input current and the fuse rating
+
+INPUT_NOT_COMPUTED = "The input current comes from the output power."
+MORE_CURRENT = "gives the most input current"
+LESS_CURRENT = "gives the least input current"
+
+
+def input_text(topology_words: str, input_power) -> str:
+    return f"Input: {topology_words}; at low line the unit draws {fmt(input_power)}."
+
+
+def no_fuse_text(fit_marking: str | None) -> str:
+    fit = f" Fit a {fit_marking} fuse in the line conductor." if fit_marking else ""
+    return ("No mains fuse is declared. Without one, a short inside the unit is cleared only by the building's breaker, "
+            "which is sized for the wiring, not for this unit: parts can burn before it trips." + fit)
+
+
+def rating_text(ref: str, load_percent: float, ambient_in_range: bool) -> str:
+    text = f"{ref} runs at {load_percent} % of its rating at low line."
+    if load_percent > 75:
+        text += " Above 75 % a fuse runs hot, ages and opens in normal use."
+    if not ambient_in_range:
+        text += " The ambient is beyond the re-rating line's range (100 degC): use the maker's curve."
+    return text
+
+
+def rating_limit_label(rerating_percent: float, ambient) -> str:
+    return f"running current / (75 % x {rerating_percent} % re-rating at {fmt(ambient)})"
+
+
+RUNNING_UNKNOWN = "The running current is unknown."
+NO_MINIATURE_RATING = "The running current needs more than 10 A, the top of the IEC 60127 series: use a larger fuse type."
+
+
+def fuse_ambient_text(ambient, assumed: bool) -> str:
+    if not assumed:
+        return ""
+    return (f" The fuse sits inside the enclosure: its air is taken at {fmt(ambient)}, the room's highest plus 20 K."
+            " Declare protection.internal_ambient (or protection.fuse.ambient) to make it exact.")
+
+
+def recommendation_text(rating, speed: str, melting_i2t, unlimited: bool) -> str:
+    text = f"The smallest preferred rating that carries the running current is {fmt(rating)} ({speed})."
+    if melting_i2t is not None:
+        text += f" Choose a type whose melting I^2 t is at least {fmt(melting_i2t)}, so the switch-on surge does not wear it out"
+        text += " (or fit an inrush limiter, which shrinks the surge)." if unlimited else "."
+    return text
+
+
+def declared_fits_text(ref: str, declared_marking: str, fits: bool) -> str:
+    if fits:
+        return f" The declared {ref} ({declared_marking}) also passes these checks."
+    return f" The declared {ref} ({declared_marking}) does not pass all of them: see the other findings for {ref}."
+
+
+# An oversized fuse
+
+def oversize_wiring_text(ref: str, part: str) -> str:
+    return (f"{ref} is rated above the {part} it protects: a fault current the {part} cannot carry for long "
+            f"can flow without blowing {ref}. Fit a smaller fuse, or a {part} rated for the fuse.")
+
+
+def oversize_running_text(ref: str, multiple: float, wiring_declared: bool) -> str:
+    text = (f"{ref} is more than {multiple:g} times the smallest rating that carries the running current: an overload or "
+            "a partial fault inside the unit (a shorted turn, a failing rectifier) can run hot for long without blowing it.")
+    if not wiring_declared:
+        text += (" The record does not give the ratings of the inlet, cord, switch or internal wiring the fuse protects,"
+                 " so nothing shows that they can carry what the fuse lets through (the harsher reading)."
+                 " Declare protection.wiring (inlet, cord, switch, internal).")
+    return text
+
+
+OVERSIZE_NOT_ASSESSED = ("Not assessed: neither the running current nor the ratings of what the fuse protects are known."
+                         " Add output (voltage, current) or protection.wiring (inlet, cord, switch, internal).")
+
+
+# Speed, voltage, breaking capacity
+
+def speed_text(ref: str, speed: str, too_fast: bool) -> str:
+    if too_fast:
+        return (f"{ref} is fast-acting, but the unit draws a surge at every switch-on; a time-lag fuse carries the surge "
+                "and still opens on a lasting fault.")
+    return f"{ref} is {speed}."
+
+
+FUSE_VOLTAGE_LOW = "A fuse rated below the circuit voltage may not quench the arc when it opens."
+BREAKING_UNKNOWN = "The breaking capacity is marked on the fuse (H for high, L for low) and given in its data."
+
+
+def breaking_text(ref: str, glass: bool) -> str:
+    body = "glass " if glass else ""
+    return (f"{ref} is a low-breaking {body}fuse. A short across the mains can drive more current than it can interrupt; "
+            "it may arc or shatter instead of clearing. Common practice on a mains primary is a ceramic, sand-filled, high-breaking type.")
+
+
+# The switch-on pulse against the fuse
+
+def melting_basis_text(basis: str, time, derating: float | None) -> str:
+    if basis == "curve":
+        return f" The fuse's melting I^2 t is read from its declared I^2 t-t curve at the pulse's time constant, {fmt(time)}."
+    return (f" Only one melting I^2 t is declared; makers usually measure it at about ten times the rated current, where a time-lag fuse"
+            f" takes tens of milliseconds to melt. A pulse of {fmt(time)} melts it at less: the figure is taken at {derating * 100:g} %"
+            " (the harsher reading, from memory). Declare protection.fuse.melting_curve (time and I^2 t points from the maker's curve) to make it exact.")
+
+
+def pulse_against_fuse_text(ref: str, ratio_percent: float, blows: bool, fatigues: bool, pulses: int) -> str:
+    text = f"The switch-on pulse is {ratio_percent} % of {ref}'s melting I^2 t at the pulse's duration."
+    if blows:
+        text += f" It is more than the fuse needs to melt: {ref} blows at every switch-on."
+    elif fatigues:
+        text += f" The fuse survives a single switch-on but fatigues and opens after far fewer than {pulses} of them."
+    return text
+
+
+CHART_END = " The makers' pulse-cycle chart ends at 100 000 pulses; its last figure is used."
+NO_LIMITER = " There is no inrush limiter."
+
+
+def ntc_cold_text(ref: str, cold, at, internal_assumed: bool, b_assumed: bool) -> str:
+    text = f" {ref} starts from the enclosure's air at {fmt(at)}, where its resistance is {fmt(cold)} (not its 25 degC figure)."
+    if internal_assumed:
+        text += " That air is taken as the room's highest plus 20 K; declare protection.internal_ambient to make it exact."
+    if b_assumed:
+        text += " Its B constant is taken as 4000 K (the harsher reading); declare protection.inrush_limiter.b_value."
+    return text
+
+
+# The limiter
+
+def capacitance_scaled_text(ref: str, quoted, at_voltage, used_at, allowed, assumed: bool) -> str:
+    text = (f"{ref}'s maximum capacitance, {fmt(quoted)}, is quoted at {fmt(at_voltage)}; the energy 1/2 C V^2 it can absorb"
+            f" is fixed, so at {fmt(used_at)} (high line) it allows {fmt(allowed)}.")
+    if assumed:
+        text += (" The record does not say at which voltage the maker quotes it: the nominal mains voltage was taken."
+                 " Declare protection.inrush_limiter.max_capacitance_voltage to make it exact.")
+    return text
+
+
+def hot_restart_text(ref: str, fuse_ref: str | None, share_percent: float | None, hot_assumed: bool) -> str:
+    text = (f"A warm NTC has only its residual resistance: switched off and on again before {ref} has cooled "
+            "(tens of seconds to minutes), the unit draws nearly the unlimited surge.")
+    if hot_assumed:
+        text += " With no hot resistance declared it is taken as zero (the harsher reading)."
+    if share_percent is None:
+        return text
+    text += f" That pulse is {share_percent} % of {fuse_ref}'s melting I^2 t"
+    if share_percent >= 100:
+        return text + (": a quick power cycle blows the fuse. Fit a limiter bypassed by a relay, a larger melting I^2 t,"
+                       " or label the unit to wait before switching on again.")
+    return text + "."
+
+
+# Earth
+
+EARTH_NOT_DECLARED = "The record does not say whether the unit is class I or class II, nor how touchable metal is earthed."
+EARTH_TERMINAL_UNBONDED = ("The mains inlet has a protective-earth terminal, but the record does not say what it is bonded to. "
+                           "An earth pin that goes nowhere protects nothing.")
+
+
+def bond_claimed_text(bonding: str) -> str:
+    return (f"The record says the bond is: \"{bonding}\". That is a claim, not a measurement: it is verified only by the "
+            "checklist's protective-earth continuity test, made with the test current the checklist states "
+            "(a multimeter's few milliamperes cannot prove a bond).")
+
+
+def class_i_unbonded_text(where: str, said_none: bool) -> str:
+    said = "says there is no bond to" if said_none else "does not say how protective earth is bonded to"
+    return (f"The unit is class I but the record {said} {where}. "
+            "If that bond is missing or loose, a fault from the mains to the case leaves the case live and nothing trips: "
+            "whoever touches it takes the fault current. Say how the earth lead is fixed (stud, star washer, locknut, crimped "
+            "ring terminal) and have it checked by a qualified person.")
+
+
+CLASS_II_METAL = ("The unit is class II in a metal enclosure, and the record does not say how the case is kept from live parts. "
+                  "State the double or reinforced insulation that does it, or bond the case to earth and declare class I.")
+
+
+# Battery lead
+
+def lead_fuse_glass_text(ref: str) -> str:
+    return (f"{ref} is a glass fuse. Glass miniature fuses are rated for AC mains at a low breaking capacity; a battery's DC "
+            "fault current can hold an arc across the melted link and shatter the glass. Use a fuse rated for DC at the "
+            "battery voltage with a breaking capacity above the battery's short-circuit current (e.g. an automotive or "
+            "ceramic DC-rated type).")
+
+
+def lead_fuse_dc_unknown_text(missing) -> str:
+    return ("Not assessed: a fuse in a battery lead must be rated for DC at the battery's voltage and must break the "
+            "battery's short-circuit current; the record does not show either." + add_text(missing))
+
+
+def lead_fuse_dc_text(ref: str, voltage_ok: bool, breaking_ok: bool, prospective_assumed: bool) -> str:
+    parts = []
+    if not voltage_ok:
+        parts.append(f"{ref}'s DC voltage rating is below the battery's highest voltage: it may not quench the DC arc")
+    if not breaking_ok:
+        parts.append(f"{ref} cannot break the battery's short-circuit current: it may arc or burst instead of clearing")
+    text = ("; ".join(parts) + ".") if parts else ""
+    if prospective_assumed:
+        text += (" The battery's short-circuit current is taken as 30 A per Ah of capacity (the harsher reading, from memory);"
+                 " declare protection.output_fuse.prospective_current from the battery maker's data.")
+    return text.strip()
