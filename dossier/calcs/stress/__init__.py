@@ -2,6 +2,8 @@
 
 from __future__ import annotations
 
+from dataclasses import replace
+
 from dossier.calcs.shared.finding_kit import not_assessed
 from dossier.calcs.shared.margins import margin
 from dossier.calcs.stress import capacitors, roles, switches, words
@@ -91,7 +93,7 @@ def _diode(voltages: Voltages, index: int, device, key) -> list[Finding]:
     if rail is None:
         return _not_assessed("STRESS-RECTIFIER", device.ref, title, words.no_inverse(stage), ("stages", stage_index))
     if role is not None:
-        rail = rail.__class__(**{**rail.__dict__, "basis": f"{rail.basis}; {words.role_basis(role, how)}"})
+        rail = replace(rail, basis=f"{rail.basis}; {words.role_basis(role, how)}")
     return [rating_finding(
         "STRESS-RECTIFIER", device.ref, title, device.voltage_rating, rail, margin(voltages.record, "rectifier_voltage"),
         "peak inverse voltage", key, (ARRL_HANDBOOK, MOHAN_POWER_ELECTRONICS),
