@@ -89,3 +89,19 @@ TAB_OUTCOME = {
 def tab(device, heatsink, need, grade, outcome, barrier) -> str:
     names = dict(sink=heatsink.ref, device=device.ref, grade=grade or "none", barrier=barrier.name if barrier else "")
     return f"{device.ref}'s tab is at mains potential. {TAB_NEED[need.why].format(**names)}. {TAB_OUTCOME[outcome].format(**names)}"
+
+
+# --- soak readings ---------------------------------------------------------------------------------
+
+SOAK_NO_ESTIMATE = "the record lacks the data for an estimate at this point (the losses and thermal resistances of what is measured)"
+
+
+def soak(reading, estimate, projection, verdict, short_run: bool) -> str:
+    text = f"The estimate at {fmt(reading.ambient)} is {fmt(estimate)}."
+    if projection is not None:
+        text += f" Carried to the highest ambient: {projection.label} {fmt(projection.temperature)} against {projection.limit_label} {fmt(projection.limit)}."
+    if verdict is Verdict.MARGINAL:
+        text += " The unit runs hotter than estimated: trust the measurement and check the resistances and losses in the record."
+    if short_run:
+        text += f" A run of {fmt(reading.duration)} may not have reached steady temperature."
+    return text
