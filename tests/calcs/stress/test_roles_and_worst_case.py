@@ -10,30 +10,14 @@ from pydantic import ValidationError
 
 from dossier.calcs import stress
 from dossier.findings import Verdict
-from dossier.record.model import Record
+from tests.calcs.stress.test_calc import HIGH_LINE_PEAK, by, record, volts
 
-BASE = {"id": "unit", "title": "Test unit", "revision": "A", "date": "2026-01-01", "authors": ["Tester"], "status": "design"}
-MAINS_230 = {"nominal": "230 V", "frequency": "50 Hz", "tolerance": "10 %"}
-LINE_PEAK = math.sqrt(2) * 253  # 230 V + 10 %: 357.8 V
-
-
-def record(**sections) -> Record:
-    return Record.model_validate({**BASE, "mains": MAINS_230, **sections})
-
-
-def by(findings, code, subject):
-    matches = [f for f in findings if f.code == code and f.subject == subject]
-    assert len(matches) == 1, [(f.code, f.subject) for f in findings]
-    return matches[0]
-
-
-def volts(quantity) -> float:
-    return float(quantity.to("V").magnitude)
+LINE_PEAK = HIGH_LINE_PEAK  # 230 V + 10 %: 357.8 V
 
 
 # --- diodes by role ----------------------------------------------------------------------------------
 
-def forward(diode: dict, part_role: str = "", topology: str = "forward") -> Record:
+def forward(diode: dict, part_role: str = "", topology: str = "forward"):
     return record(
         stages=[{"kind": "mains-input", "name": "Input", "side": "mains", "parts": [{"ref": "BR1", "kind": "bridge"}]},
                 {"kind": "converter", "name": "Forward", "side": "mains", "topology": topology,
@@ -89,7 +73,7 @@ def test_half_wave_and_doubler_diodes_on_the_mains_block_twice_the_peak(topology
 
 # --- capacitors at no load ---------------------------------------------------------------------------
 
-def linear(capacitor: dict) -> Record:
+def linear(capacitor: dict):
     return record(
         stages=[{"kind": "rectifier", "name": "Rectifier", "side": "isolated", "topology": "bridge",
                  "parts": [{"ref": "BR1", "kind": "bridge"}, {"ref": "C1", "kind": "capacitor"}]}],
@@ -120,7 +104,7 @@ def test_a_declared_no_load_voltage_makes_it_exact():
 
 # --- capacitors in series ----------------------------------------------------------------------------
 
-def bus_pair(**capacitor) -> Record:
+def bus_pair(**capacitor):
     return record(
         stages=[{"kind": "mains-input", "name": "Input", "side": "mains", "parts": [{"ref": "BR1", "kind": "bridge"}, {"ref": "C2", "kind": "capacitor"}]}],
         devices={"capacitors": [{"ref": "C2", "position": "bulk", "voltage_rating": "200 V", "in_series": 2, **capacitor}]},
@@ -161,7 +145,7 @@ def test_split_half_bridge_capacitors_need_balancing_resistors():
 
 # --- which rating a switch's voltage_rating is ----------------------------------------------------------
 
-def half_bridge(**switch) -> Record:
+def half_bridge(**switch):
     return record(
         stages=[{"kind": "mains-input", "name": "Input", "side": "mains", "parts": [{"ref": "BR1", "kind": "bridge"}]},
                 {"kind": "converter", "name": "Converter", "side": "mains", "topology": "half-bridge", "parts": [{"ref": "Q1", "kind": "transistor"}]}],
