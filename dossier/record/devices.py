@@ -9,11 +9,18 @@ from pydantic_core import PydanticCustomError
 
 from dossier.record.fields import (
     Designator,
-    Current, Duration, Energy, Frequency, Power, Ratio, Section, Temperature, ThermalResistance, Voltage,
+    Capacitance, Current, Duration, Energy, Frequency, Power, Ratio, Resistance, Section, Temperature, ThermalResistance,
+    Voltage,
 )
 from dossier.units import Q_
 
 SafetyClass = Literal["", "X1", "X2", "X3", "Y1", "Y2", "Y3", "Y4"]
+DiodeRole = Literal["mains-bridge", "bridge", "centre-tapped", "half-wave", "doubler", "reset", "clamp", "freewheel"]
+RatingKind = Literal["V_CEO", "V_CES", "V_CBO", "V_DSS", "V_RRM"]
+InsulationGrade = Literal["basic", "supplementary", "reinforced", "double"]
+# Which voltage ratings a maker gives for each kind of part.
+RATING_KINDS = {"bjt": ("V_CEO", "V_CES", "V_CBO"), "mosfet": ("V_DSS",), "igbt": ("V_CES",),
+                "diode": ("V_RRM",), "schottky": ("V_RRM",), "bridge": ("V_RRM",), "regulator": ()}
 
 
 class Switching(Section):
@@ -48,6 +55,21 @@ class Semiconductor(Section):
     pad: ThermalResistance | None = Field(None, description="Case-to-sink resistance with the insulating pad or grease.")
     tab_live: bool = Field(False, description="Its mounting tab is connected to a mains-side (hazardous) circuit.")
     insulated: bool = Field(False, description="An insulating pad and bush sit between its tab and the heatsink.")
+    insulation: InsulationGrade | None = Field(None, description="Grade of the insulation between tab and heatsink (pad, bush and the creepage round them): basic, supplementary, reinforced or double; one pad and bush is basic.")
+    role: DiodeRole | None = Field(None, description="A diode's job, which sets the voltage it blocks: mains-bridge, bridge, centre-tapped, half-wave, doubler, reset, clamp or freewheel.")
+    voltage_rating_kind: RatingKind | None = Field(None, description="Which rating voltage_rating is: V_CEO, V_CES or V_CBO (bjt), V_DSS (mosfet), V_CES (igbt), V_RRM (diodes).")
+    base_held_off: bool = Field(False, description="A bjt's base is shorted or reverse-biased to its emitter through a low impedance while it is off, so V_CES applies.")
+    current_rms: Current | None = Field(None, description="RMS current through a MOSFET over a whole cycle, for its conduction loss.")
+    rds_on: Resistance | None = Field(None, description="A MOSFET's on-resistance at 25 degC from the maker's data (the maximum, not the typical).")
+    rds_on_hot: Resistance | None = Field(None, description="A MOSFET's on-resistance at its hot junction temperature, read from the maker's curve.")
+    rds_on_rise: Ratio | None = Field(None, description="A MOSFET's on-resistance at its hot junction temperature over its value at 25 degC, from the maker's curve, e.g. 1.9.")
+
+    @model_validator(mode="after")
+    def _rating_kind_fits(self):
+        if self.voltage_rating_kind is not None and self.voltage_rating_kind not in RATING_KINDS[self.kind]:
+            allowed = ", ".join(RATING_KINDS[self.kind]) or "none"
+            raise PydanticCustomError("literal_error", "expected {expected}, found {found}", {"expected": f"a rating a {self.kind} has ({allowed})", "found": repr(self.voltage_rating_kind)})
+        return self
 
 
 class Capacitor(Section):
@@ -55,6 +77,11 @@ class Capacitor(Section):
     voltage_rating: Voltage = Field(description="Rated voltage: DC for ordinary capacitors, AC RMS for X and Y safety capacitors.")
     position: Literal["bulk", "split", "across-line", "line-to-earth", "across-barrier", "output", "other"] = Field("other", description="Where it sits: bulk, split, across-line, line-to-earth, across-barrier, output or other.")
     safety_class: SafetyClass = Field("", description="X1, X2, X3, Y1, Y2, Y3 or Y4 (IEC 60384-14) for safety capacitors.")
+    in_series: int = Field(1, ge=1, le=20, description="Equal capacitors in series across the voltage its position names (a split pair counts 2 by itself); this entry stands for each of them.")
+    balancing_resistor: Resistance | None = Field(None, description="Resistor across each capacitor of a series string, to share the voltage, e.g. 220 kohm.")
+    leakage: Current | None = Field(None, description="Largest leakage current of one capacitor from the maker's data, at its hot temperature if given, e.g. 0.3 mA.")
+    capacitance: Capacitance | None = Field(None, description="Capacitance of one capacitor, e.g. 470 uF; gives the makers' usual leakage limit when leakage is not given.")
+    no_load_voltage: Voltage | None = Field(None, description="DC voltage across the whole string with no load at nominal line, measured or from the transformer maker's regulation figure.")
 
 
 class Heatsink(Section):

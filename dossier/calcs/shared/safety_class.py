@@ -3,14 +3,16 @@
 A class is accepted when it is tested for at least the impulse its position can bring: across the line, the
 rated impulse voltage of the mains' overvoltage category (IEC 60664-1 Table F.1); from line to earth, a Y
 class for basic insulation; across a barrier, a Y class for the barrier's grade (Y1 for reinforced or double).
-The subclass impulse figures are recalled from IEC 60384-14, not read from it: marked 'from memory'.
+The subclass impulse figures are recalled from IEC 60384-14, not read from it: marked 'from memory'. That one Y1
+bridges reinforced insulation and one Y2 basic (mains up to 300 V, category II) is IEC 62368-1 ed. 3 Table G.12,
+confirmed in a test house's public answer on the standard.
 """
 
 from __future__ import annotations
 
 from dataclasses import dataclass, replace
 
-from dossier.citations import IEC_60384_14, IEC_60664_1
+from dossier.citations import IEC_60384_14, IEC_60664_1, IEC_62368_1
 from dossier.findings import Source
 from dossier.standards import iec60664
 
@@ -22,7 +24,13 @@ Y_BRIDGES = {"Y1": ("basic", "supplementary", "reinforced", "double"), "Y2": ("b
 # Highest line voltage (V RMS) each Y subclass is made for (IEC 60384-14, from memory).
 Y_MAX_LINE = {"Y1": 500, "Y2": 300, "Y4": 150}
 
-CLASS_SOURCE = replace(IEC_60384_14, clause="subclasses X1-X3 and Y1-Y4: impulse test voltages and the insulation each may bridge (from memory)")
+CLASS_SOURCE = replace(IEC_60384_14, edition="edition 4.0, 2013, with amendment 1, 2016",
+                       clause="subclasses X1-X3 and Y1-Y4: impulse test voltages and rated voltage ranges (from memory)")
+# Which Y subclass may bridge which insulation is set by the product standard.
+BRIDGING_SOURCE = replace(IEC_62368_1, edition="edition 3.0, 2018", clause=(
+    "clause G.11.3 and Table G.12: one Y1 capacitor may bridge reinforced insulation and one Y2 basic insulation, "
+    "for mains up to 300 V in overvoltage category II (confirmed in a test house's public answer on the standard); "
+    "other voltages and categories, and Y4, from memory"))
 IMPULSE_SOURCE = replace(IEC_60664_1, clause="Table F.1")
 
 
@@ -60,7 +68,7 @@ def bridging(grade: str, nominal_volts: float) -> Requirement | None:
         return None
     accepted = tuple(name for name, grades in Y_BRIDGES.items() if grade in grades and _made_for(name, nominal_volts))
     reason = f"it bridges {grade} insulation on a {nominal_volts:g} V supply, which only a Y class made for that may do"
-    return Requirement(accepted, reason, (CLASS_SOURCE,))
+    return Requirement(accepted, reason, (BRIDGING_SOURCE, CLASS_SOURCE))
 
 
 def barrier_grade(record, ref: str) -> tuple[str, str]:

@@ -2,13 +2,29 @@
 
 from __future__ import annotations
 
-from dataclasses import dataclass
+from dataclasses import dataclass, field, replace
 
 from dossier.calcs.magnetics.voltages import winding_voltages
 from dossier.calcs.shared.mains_lines import HIGH_PEAK_FORMULA, high_line_peak
+from dossier.findings import Source, common_practice
+from dossier.units import Q_
+
+# A small mains transformer's secondary at no load over its rated (full-load) voltage: regulation of about 5 % for
+# large toroids to 25 % for small EI parts, the smaller the worse; the top is assumed (common practice, from memory).
+NO_LOAD_RISE = Q_(0.25)
+NO_LOAD_PRACTICE = common_practice(
+    "a small mains transformer's no-load secondary voltage is about 5-25 % above its rated full-load voltage, the "
+    "smaller the transformer the higher; 25 % is assumed when the record gives only the loaded voltage (from memory)")
 
 MAIN_TRANSFORMER_ROLES = ("transformer", "mains-transformer")
-RECTIFIER_TOPOLOGIES = ("bridge", "centre-tapped")
+# Output rectifier topology -> (rail taken from one half of a centre-tapped winding, multiple of that peak, name)
+RAIL_OF_TOPOLOGY = {
+    "bridge": (False, 1, "bridge"),
+    "centre-tapped": (True, 1, "centre-tapped"),
+    "half-wave": (False, 1, "half-wave"),
+    "doubler": (False, 2, "doubler"),
+    "voltage-doubler": (False, 2, "doubler"),
+}
 RECTIFIER_KINDS = ("diode", "schottky", "bridge")
 MAINS_RECTIFIER_PARTS = ("bridge", "diode", "rectifier")
 
@@ -27,6 +43,8 @@ class Rail:
     formula: str
     basis: str
     key: tuple
+    notes: tuple[str, ...] = field(default=())  # sentences keys into words, e.g. an assumed no-load rise
+    sources: tuple[Source, ...] = field(default=())  # sources of anything assumed on the way
 
 
 class Voltages:
@@ -52,12 +70,6 @@ class Voltages:
         mains_stages = [stage for stage in self.record.stages if stage.side == "mains"]
         return any(stage.kind == "rectifier" or _has_rectifier_part(stage) for stage in mains_stages)
 
-    def mains_piv(self) -> Rail | None:
-        """Each diode of a bridge on the mains blocks the line peak."""
-        if self.record.mains is None:
-            return None
-        return Rail(high_line_peak(self.record.mains), f"PIV = {HIGH_PEAK_FORMULA} (bridge on the mains)", "mains peak at high line", ("mains", "nominal"))
-
     def secondary(self):
         """(index, magnetic, winding) of the main transformer's secondary the output rectifier sits on."""
         for index, magnetic in enumerate(self.record.magnetics):
@@ -77,24 +89,40 @@ class Voltages:
         if peaks is None:
             return None
         where = f"{'one half of ' if half else ''}winding '{winding.name}' of {magnetic.ref}"
-        return Rail(peaks["high"], "V_pk = V_drive,pk x N_winding / N_drive", f"peak across {where} at high line", ("magnetics", index, "windings"))
+        rail = Rail(peaks["high"], "V_pk = V_drive,pk x N_winding / N_drive", f"no-load peak across {where} at high line", ("magnetics", index, "windings"))
+        return self._loaded_declaration(rail, magnetic, index, peaks)
 
-    def piv(self, topology: str) -> Rail | None:
-        """Peak inverse voltage across an output rectifier: bridge = V_pk; centre-tapped = 2 x V_pk of one half."""
-        if topology == "bridge":
-            peak = self.winding_peak(half=False)
-            return None if peak is None else Rail(peak.voltage, "PIV = V_pk of the secondary (bridge)", peak.basis, peak.key)
-        if topology == "centre-tapped":
-            half = self.winding_peak(half=True)
-            return None if half is None else Rail(2 * half.voltage, "PIV = 2 x V_pk of one half winding (centre-tapped full-wave)", f"twice the {half.basis}", half.key)
-        return None
+    def _loaded_declaration(self, rail: Rail, magnetic, index: int, peaks: dict) -> Rail:
+        """A mains transformer declared by the voltage across a secondary: that is its rated, loaded voltage at
+        nominal line, so it is carried to high line and raised by the no-load rise (the harsher reading)."""
+        excitation = magnetic.excitation
+        if magnetic.role != "mains-transformer" or excitation is None or not _is_secondary(magnetic, excitation.winding):
+            return rail
+        voltage, formula = rail.voltage, rail.formula
+        if self.record.mains is not None and peaks.get("nominal") is not None and peaks["nominal"] == peaks["high"]:
+            voltage = voltage * (self.record.mains.high / self.record.mains.nominal).to("").magnitude
+            formula += " x V_high / V_nominal"
+        voltage = voltage * (1 + NO_LOAD_RISE.magnitude)
+        return Rail(voltage, f"{formula} x (1 + no-load rise)", rail.basis, ("magnetics", index, "excitation"),
+                    notes=("no-load-rise",), sources=(NO_LOAD_PRACTICE,))
+
+    def line_peak(self) -> Rail | None:
+        """The mains crest at high line: what a diode rectifying the mains works from."""
+        if self.record.mains is None:
+            return None
+        return Rail(high_line_peak(self.record.mains), f"V_pk = {HIGH_PEAK_FORMULA}", "mains peak at high line", ("mains", "nominal"))
 
     def rectified(self, topology: str) -> Rail | None:
-        """The rectified rail behind an output rectifier (no diode drop; the no-load peak)."""
-        peak = self.winding_peak(half=topology == "centre-tapped") if topology in RECTIFIER_TOPOLOGIES else None
+        """The rectified rail behind an output rectifier, at no load (no diode drop): the peak of the winding each
+        diode conducts from; a doubler twice the whole winding's peak. An unknown topology is read as a doubler."""
+        shape = RAIL_OF_TOPOLOGY.get(topology, (False, 2, "unknown"))
+        half, times, _ = shape
+        peak = self.winding_peak(half=half)
         if peak is None:
             return None
-        return Rail(peak.voltage, "V_rail = V_pk of the winding each diode conducts from", peak.basis, peak.key)
+        formula = "V_rail = V_pk of the winding each diode conducts from" if times == 1 else "V_rail = 2 x V_pk (doubler)"
+        return replace(peak, voltage=times * peak.voltage, formula=f"{formula}; {peak.formula}",
+                       notes=peak.notes + (("role-assumed",) if shape[2] == "unknown" else ()))
 
     def supply_of(self, index: int) -> Rail | None:
         """The voltage feeding stage index: the bus on the mains side, else the nearest rectified rail before it."""
@@ -112,6 +140,11 @@ class Voltages:
             return None
         tolerance = output.tolerance.to("").magnitude if output.tolerance is not None else 0.0
         return Rail(output.voltage * (1 + tolerance), "V_out,max = V_out x (1 + tolerance)", "the rated output at the top of its tolerance", ("output", "voltage"))
+
+
+def _is_secondary(magnetic, name: str) -> bool:
+    winding = next((w for w in magnetic.windings if w.name == (name or magnetic.windings[0].name)), None)
+    return winding is not None and winding.role == "secondary"
 
 
 def _has_rectifier_part(stage) -> bool:

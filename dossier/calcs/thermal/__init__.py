@@ -2,17 +2,26 @@
 
 from __future__ import annotations
 
-from dossier.calcs.thermal import path
+from dataclasses import replace
+
+from dossier.calcs.thermal import path, tab, words
 from dossier.calcs.shared.finding_kit import banded, maker, not_assessed
 from dossier.calcs.shared.margins import margin
 from dossier.calcs.thermal.soak import soak_findings
-from dossier.citations import IEC_61140, MOHAN_POWER_ELECTRONICS
+from dossier.citations import IEC_61140, IEC_62368_1, MOHAN_POWER_ELECTRONICS
 from dossier.findings import Finding, Measure, Verdict, common_practice
 from dossier.plugins import Calc
 from dossier.units import fmt
 
 NAME = "thermal"
 PAD_RANGES = common_practice("insulating pads about 1-4 K/W, greased bare mount about 0.1-0.5 K/W (makers' pad listings)")
+RDS_RISE_PRACTICE = common_practice(
+    "a silicon MOSFET's on-resistance rises about 1.5-2.5 x from 25 degC to 150 degC, high-voltage parts at the top; "
+    "the top is assumed when the record gives no curve (from memory; the maker's normalised R_DS(on) curve makes it exact)")
+TAB_SOURCES = (
+    replace(IEC_61140, edition="edition 4.0, 2016", clause="class I (basic insulation plus protective earth) and class II (double or reinforced insulation) equipment (from memory)"),
+    replace(IEC_62368_1, edition="edition 3.0, 2018", clause="clause 5.4: a pad and bush as basic insulation; double or reinforced insulation to accessible parts (from memory)"),
+)
 finding = maker(NAME)
 
 
@@ -34,7 +43,8 @@ def _junction(record, index: int, device) -> list[Finding]:
     ambient = record.environment.max_ambient
     junction = path.junction_of(record, device, ambient)
     if junction is None or device.max_junction is None:
-        return [not_assessed(NAME, "THERM-JUNCTION", device.ref, title, _junction_missing(device), (key,), (MOHAN_POWER_ELECTRONICS,))]
+        why = words.JUNCTION_MISSING[_junction_missing(device)]
+        return [not_assessed(NAME, "THERM-JUNCTION", device.ref, title, why, (key,), (MOHAN_POWER_ELECTRONICS,))]
     allowance = margin(record, "junction")
     limit = (device.max_junction.to("K") - allowance.value.to("K")).to("degC")
     # fail above the maximum junction temperature; marginal inside the allowance below it
@@ -44,111 +54,82 @@ def _junction(record, index: int, device) -> list[Finding]:
         values=(Measure(f"junction at {fmt(ambient)} ambient", junction.temperature),),
         limit=Measure(f"max junction {fmt(device.max_junction)} less {fmt(allowance.value)}", limit), relation="<=",
         method=f"{junction.formula}; {junction.loss.formula}",
-        explanation=_junction_words(device, junction, verdict),
+        explanation=words.junction(device, junction, verdict),
         keys=(key, ("environment", "max_ambient")),
         sources=_junction_sources(junction, allowance.source),
-        extra=_loss_measures(junction),
+        extra=_loss_measures(junction) + (Measure("ambient", ambient), Measure("max junction", device.max_junction),
+                                          Measure("junction allowance", allowance.value)),
     )]
 
 
 def _junction_missing(device) -> str:
+    """The key into words.JUNCTION_MISSING naming what the record lacks."""
     if path.loss_of(device) is None:
-        return "give loss, or forward_voltage and current, to estimate its loss"
+        return "mosfet-loss" if device.kind == "mosfet" else "loss"
     if device.max_junction is None:
-        return "give max_junction from the maker's data"
-    if device.heatsink:
-        return "give rth_jc from the maker's data"
-    return "give a heatsink, or rth_ja for a device in free air"
-
-
-def _junction_words(device, junction, verdict) -> str:
-    text = f"{device.ref} dissipates {fmt(junction.loss.total)} through {fmt(junction.path)} in all from junction to air."
-    if junction.case_to_sink is not None and junction.case_to_sink.assumed:
-        text += f" Case to sink: {junction.case_to_sink.words}."
-    if verdict is Verdict.FAIL:
-        text += " The junction would exceed its maximum: a larger heatsink, a better pad or a lower loss is needed."
-    elif verdict is Verdict.MARGINAL:
-        text += " It stays under its maximum but inside the allowance for estimate error and life."
-    return text
+        return "max_junction"
+    return "rth_jc" if device.heatsink else "rth_ja"
 
 
 def _junction_sources(junction, allowance_source):
     assumed = junction.case_to_sink is not None and junction.case_to_sink.assumed
-    return (MOHAN_POWER_ELECTRONICS, allowance_source) + ((PAD_RANGES,) if assumed else ())
+    rds = (RDS_RISE_PRACTICE,) if junction.loss.rds_assumed else ()
+    return (MOHAN_POWER_ELECTRONICS, allowance_source) + ((PAD_RANGES,) if assumed else ()) + rds
 
 
 def _loss_measures(junction) -> tuple[Measure, ...]:
-    parts = [("conduction loss", junction.loss.conduction), ("switching loss", junction.loss.switching)]
+    loss = junction.loss
+    parts = [("conduction loss", loss.conduction), ("switching loss", loss.switching), ("hot on-resistance", loss.on_resistance)]
     measures = [Measure(label, value) for label, value in parts if value is not None]
-    return tuple(measures) + (Measure("loss", junction.loss.total), Measure("junction-to-air resistance", junction.path))
+    if junction.case_to_sink is not None:
+        measures.append(Measure("case-to-sink resistance", junction.case_to_sink.resistance))
+    return tuple(measures) + (Measure("loss", loss.total), Measure("junction-to-air resistance", junction.path))
 
 
 # --- heatsinks ----------------------------------------------------------------------------------
 
 def _heatsink(record, index: int, heatsink) -> list[Finding]:
     losses = path.sink_losses(record, heatsink)
-    temperature = path.sink_temperature(record.environment.max_ambient, heatsink, losses)
+    ambient = record.environment.max_ambient
+    temperature = path.sink_temperature(ambient, heatsink, losses)
     common = dict(
         code="THERM-HEATSINK", subject=heatsink.ref, title=f"{heatsink.ref} temperature",
-        values=(Measure(f"heatsink at {fmt(record.environment.max_ambient)} ambient", temperature),),
+        values=(Measure(f"heatsink at {fmt(ambient)} ambient", temperature),),
         method="T_sink = T_a + R_sa x sum(P of the devices on it)",
         keys=(("devices", "heatsinks", index, "rth_sa"), ("environment", "max_ambient")),
-        extra=(Measure("total loss", path.total_loss(losses)),),
+        extra=(Measure("total loss", path.total_loss(losses)), Measure("sink-to-air resistance", heatsink.rth_sa),
+               Measure("ambient", ambient)),
     )
-    words = _sink_words(heatsink, losses)
+    text = words.sink(heatsink, losses)
     if not heatsink.touchable:
-        return [finding(**common, verdict=Verdict.INFO, explanation=words + " It cannot be touched from outside, so no touch limit applies.", sources=(MOHAN_POWER_ELECTRONICS,))]
+        return [finding(**common, verdict=Verdict.INFO, explanation=text + words.UNTOUCHABLE, sources=(MOHAN_POWER_ELECTRONICS,))]
     touch = margin(record, "touch_temperature")
     verdict = Verdict.FAIL if temperature.to("K") > touch.value.to("K") else Verdict.PASS
     return [finding(**common, verdict=verdict, limit=Measure("touch limit", touch.value), relation="<=",
-                    explanation=words + _touch_words(verdict), sources=(MOHAN_POWER_ELECTRONICS, touch.source))]
+                    explanation=text + words.touch(verdict, touch.from_record), sources=(MOHAN_POWER_ELECTRONICS, touch.source))]
 
 
-def _sink_words(heatsink, losses) -> str:
-    named = ", ".join(f"{device.ref} {fmt(loss.total)}" if loss else f"{device.ref} (loss unknown)" for _, device, loss in losses)
-    text = f"Devices on {heatsink.ref}: {named or 'none listed'}."
-    if any(loss is None for _, _, loss in losses):
-        text += " A device with no loss figure is left out, so the sink runs hotter than shown."
-    return text
-
-
-def _touch_words(verdict) -> str:
-    if verdict is Verdict.FAIL:
-        return " It can be touched and runs hotter than the touch limit: guard it, or use a larger sink."
-    return " It can be touched and stays under the touch limit."
-
-
-# --- insulating pads ----------------------------------------------------------------------------
+# --- live tabs and their insulation -------------------------------------------------------------
 
 def _pad(record, index: int, device) -> list[Finding]:
     heatsink = path.heatsink_named(record, device.heatsink)
     if not device.tab_live or heatsink is None:
         return []
-    reachable = heatsink.touchable or heatsink.earthed
-    verdict = _pad_verdict(device, reachable)
+    sink_index = record.devices.heatsinks.index(heatsink)
+    need = tab.need_of(record, sink_index, heatsink)
+    grade = tab.grade_of(device)
+    found = tab.barrier_round(record, device, heatsink)
+    verdict, outcome = tab.verdict_of(need, grade, found)
+    barrier = found[1] if found else None
+    keys = (("devices", "semiconductors", index, "insulation"),) + need.keys + ((("barriers", found[0]),) if found else ())
     return [finding(
         code="THERM-PAD", subject=device.ref, title=f"{device.ref} live tab on {heatsink.ref}", verdict=verdict,
-        values=(Measure("insulating pad", "fitted" if device.insulated else "none"),),
-        method="a tab at mains potential on a touchable or earthed heatsink needs insulation between them",
-        explanation=_pad_words(device, heatsink, verdict),
-        keys=(("devices", "semiconductors", index, "insulated"), ("devices", "heatsinks", record.devices.heatsinks.index(heatsink))),
-        sources=(IEC_61140,),
+        values=(Measure("insulation between tab and sink", grade or "none"),),
+        limit=Measure("insulation needed", need.grade) if need.grade else None, relation=">=",
+        method="a tab at mains potential: basic insulation to an earthed or protectively earthed sink; double or reinforced to a touchable sink without protective earth",
+        explanation=words.tab(device, heatsink, need, grade, outcome, barrier),
+        keys=keys, sources=TAB_SOURCES,
     )]
-
-
-def _pad_verdict(device, reachable: bool) -> Verdict:
-    if not reachable:
-        return Verdict.INFO
-    return Verdict.PASS if device.insulated else Verdict.FAIL
-
-
-def _pad_words(device, heatsink, verdict) -> str:
-    where = " and ".join(word for word, flag in (("touchable", heatsink.touchable), ("earthed", heatsink.earthed)) if flag)
-    if verdict is Verdict.INFO:
-        return f"{heatsink.ref} is neither touchable nor earthed, so it is live itself: keep it out of reach and count it as mains in the clearances."
-    if verdict is Verdict.FAIL:
-        return f"{device.ref}'s tab is at mains potential and {heatsink.ref} is {where}: without an insulating pad and bush the sink is live or the mains is shorted to earth."
-    return f"{device.ref}'s tab is at mains potential and {heatsink.ref} is {where}; the insulating pad separates them and its thermal resistance is counted in the heat path."
 
 
 CALC = Calc(
@@ -156,16 +137,16 @@ CALC = Calc(
     title="Thermal",
     run=run,
     summary=(
-        "Estimates each power device's loss (conduction from its current and forward or saturation voltage, plus "
+        "Estimates each power device's loss (conduction from its current and forward or saturation voltage, a MOSFET's from I_rms^2 x its hot R_DS(on), plus "
         "switching where the record gives the data) and its junction temperature through junction-to-case, "
         "case-to-sink and sink-to-air resistances at the record's highest ambient, with devices sharing a heatsink. "
         "Judges the margin to the maximum junction temperature, touchable heatsinks against a touch limit, live "
-        "tabs on touchable or earthed heatsinks for an insulating pad, and compares soak-test readings with the estimate."
+        "tabs on heatsinks for the grade of insulation the sink needs, and compares soak-test readings with the estimate."
     ),
     codes={
         "THERM-JUNCTION": "a device's estimated junction temperature against its maximum, less an allowance",
         "THERM-HEATSINK": "a heatsink's temperature with all its devices; touchable ones against a touch limit",
-        "THERM-PAD": "a live tab on a touchable or earthed heatsink needs an insulating pad",
+        "THERM-PAD": "a live tab on a heatsink: basic insulation to an earthed sink, double or reinforced to a touchable sink without protective earth",
         "THERM-SOAK": "a temperature measured after a run, against the estimate and the device's limits",
     },
     order=50,

@@ -6,13 +6,16 @@ a device in free air: T_j = T_a + P R_ja. Temperatures are worked in kelvin and 
 
 from __future__ import annotations
 
-from dataclasses import dataclass
+from dataclasses import dataclass, replace
 
 from dossier.units import Q_
 
 # When the record gives no case-to-sink figure, the top of the makers' usual range is assumed.
 ASSUMED_PAD = Q_(4.0, "K/W")  # insulating silicone pads under TO-220/TO-247: about 1-4 K/W
 ASSUMED_GREASE = Q_(0.5, "K/W")  # bare mount with thermal grease: about 0.1-0.5 K/W
+# A silicon MOSFET's on-resistance at its maximum junction temperature over its 25 degC value, when the record
+# gives no curve: about 1.5-2.5 x at 150 degC, high-voltage parts at the top (common practice, from memory).
+ASSUMED_RDS_RISE = Q_(2.5)
 
 
 @dataclass(frozen=True)
@@ -21,6 +24,8 @@ class Loss:
     conduction: object | None
     switching: object | None
     formula: str
+    on_resistance: object | None = None  # a MOSFET's hot R_DS(on), when the loss was worked from it
+    rds_assumed: bool = False  # the hot rise of R_DS(on) is the assumed common-practice figure
 
 
 @dataclass(frozen=True)
@@ -31,16 +36,46 @@ class CaseToSink:
 
 
 def loss_of(device) -> Loss | None:
-    """The record's loss, else conduction (V x I) plus switching where the record gives switching data."""
+    """The record's loss, else conduction plus switching where the record gives switching data.
+
+    Conduction: a MOSFET's channel is a resistance, I_rms^2 x R_DS(on) at the hot junction; a diode's or a
+    bipolar switch's drop is roughly constant, V_F x I_avg (Mohan et al., on-state losses).
+    """
     if device.loss is not None:
         return Loss(device.loss.to("W"), None, None, "P as given in the record")
+    conduction = _mosfet_conduction(device) if device.kind == "mosfet" else _drop_conduction(device)
+    if conduction is None:
+        return None
+    switching = switching_loss(device.switching)
+    if switching is None:
+        return replace(conduction, formula=f"{conduction.formula} (conduction only)")
+    return replace(conduction, total=conduction.total + switching, switching=switching,
+                   formula=f"{conduction.formula} + {_switching_formula(device.switching)}")
+
+
+def _drop_conduction(device) -> Loss | None:
     if device.forward_voltage is None or device.current is None:
         return None
     conduction = (device.forward_voltage * device.current).to("W")
-    switching = switching_loss(device.switching)
-    if switching is None:
-        return Loss(conduction, conduction, None, "P = V_F x I_avg (conduction only)")
-    return Loss(conduction + switching, conduction, switching, f"P = V_F x I_avg + {_switching_formula(device.switching)}")
+    return Loss(conduction, conduction, None, "P = V_F x I_avg")
+
+
+def _mosfet_conduction(device) -> Loss | None:
+    hot, formula, assumed = hot_on_resistance(device)
+    if hot is None or device.current_rms is None:
+        return None
+    conduction = (device.current_rms ** 2 * hot).to("W")
+    return Loss(conduction, conduction, None, f"P = I_rms^2 x {formula}", on_resistance=hot, rds_assumed=assumed)
+
+
+def hot_on_resistance(device):
+    """(R_DS(on) at the hot junction, its formula, whether the rise was assumed); (None, '', False) when not given."""
+    if device.rds_on_hot is not None:
+        return device.rds_on_hot.to("ohm"), "R_DS(on),hot", False
+    if device.rds_on is None:
+        return None, "", False
+    rise = device.rds_on_rise if device.rds_on_rise is not None else ASSUMED_RDS_RISE
+    return (device.rds_on * rise).to("ohm"), "R_DS(on),25 x k_hot", device.rds_on_rise is None
 
 
 def switching_loss(switching):

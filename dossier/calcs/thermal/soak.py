@@ -4,7 +4,7 @@ from __future__ import annotations
 
 from dataclasses import dataclass
 
-from dossier.calcs.thermal import path
+from dossier.calcs.thermal import path, words
 from dossier.calcs.shared.finding_kit import maker, not_assessed
 from dossier.calcs.shared.margins import margin
 from dossier.findings import Finding, Measure, Verdict, common_practice
@@ -41,8 +41,7 @@ def _reading(record, index: int, reading) -> list[Finding]:
     estimate = _estimate(record, device, heatsink, reading.ambient)
     title = f"{reading.ref} soak reading against the estimate"
     if estimate is None:
-        return [not_assessed(NAME, "THERM-SOAK", reading.ref, title, "the record lacks the data for an estimate at this point "
-                             "(the losses and thermal resistances of what is measured)", (key,), (SOAK_PRACTICE,))]
+        return [not_assessed(NAME, "THERM-SOAK", reading.ref, title, words.SOAK_NO_ESTIMATE, (key,), (SOAK_PRACTICE,))]
     allowed = _allowed(estimate, reading.ambient)
     projection = _projection(record, device, heatsink, reading)
     verdict = _verdict(reading.temperature, allowed, projection)
@@ -51,10 +50,11 @@ def _reading(record, index: int, reading) -> list[Finding]:
         values=(Measure(f"measured after {fmt(reading.duration)} at {fmt(reading.ambient)}", reading.temperature), Measure("estimate at that ambient", estimate)),
         limit=Measure(f"estimate plus {RISE_TOLERANCE:.0%} of its rise", allowed), relation="<=",
         method="rise = T_measured - T_ambient, against the estimated rise; projected = T_measured + (T_a,max - T_ambient)",
-        explanation=_words(reading, estimate, projection, verdict),
+        explanation=words.soak(reading, estimate, projection, verdict, reading.duration.to("h") < SETTLING),
         keys=(key, ("environment", "max_ambient")),
         sources=(SOAK_PRACTICE,),
-        extra=_projection_measures(projection),
+        extra=_projection_measures(projection) + (Measure("ambient during the run", reading.ambient), Measure("run", reading.duration),
+                                                  Measure("rise tolerance", Q_(RISE_TOLERANCE * 100, "percent"))),
     )]
 
 
@@ -99,17 +99,6 @@ def _verdict(measured, allowed, projection: Projection | None) -> Verdict:
     if projection is not None and projection.temperature.to("K") > projection.limit.to("K"):
         return Verdict.FAIL
     return Verdict.MARGINAL if measured.to("K") > allowed.to("K") else Verdict.PASS
-
-
-def _words(reading, estimate, projection: Projection | None, verdict) -> str:
-    text = f"The estimate at {fmt(reading.ambient)} is {fmt(estimate)}."
-    if projection is not None:
-        text += f" Carried to the highest ambient: {projection.label} {fmt(projection.temperature)} against {projection.limit_label} {fmt(projection.limit)}."
-    if verdict is Verdict.MARGINAL:
-        text += " The unit runs hotter than estimated: trust the measurement and check the resistances and losses in the record."
-    if reading.duration.to("h") < SETTLING:
-        text += f" A run of {fmt(reading.duration)} may not have reached steady temperature."
-    return text
 
 
 def _projection_measures(projection: Projection | None) -> tuple[Measure, ...]:

@@ -72,7 +72,7 @@ def test_switching_loss_from_energy_per_cycle():
 def test_conduction_and_switching_add_up():
     # 1.0 V x 0.7 A = 0.7 W conduction; 1/2 x 340 V x 1 A x 0.25 us x 40 kHz = 1.7 W switching (Mohan et al., from memory)
     switching = {"frequency": "40 kHz", "voltage": "340 V", "current": "1 A", "crossover_time": "0.25 us"}
-    record = unit([device(forward_voltage="1.0 V", current="0.7 A", heatsink="HS1", pad="1.5 K/W", switching=switching)], [sink()])
+    record = unit([device(kind="bjt", forward_voltage="1.0 V", current="0.7 A", heatsink="HS1", pad="1.5 K/W", switching=switching)], [sink()])
     finding = by(thermal.run(record), "THERM-JUNCTION", "Q1")
     losses = {m.label: float(m.quantity.to("W").magnitude) for m in finding.extra if m.label.endswith("loss")}
     assert losses == pytest.approx({"conduction loss": 0.7, "switching loss": 1.7, "loss": 2.4})
