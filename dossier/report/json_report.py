@@ -36,6 +36,7 @@ def finding_json(finding: Finding, locate) -> dict:
         "explanation": finding.explanation,
         "keys": [{"key": dotted(k), "at": str(locate(k))} for k in finding.keys],
         "sources": [source_json(s) for s in finding.sources],
+        "extra": [measure_json(m) for m in finding.extra],
     }
 
 

@@ -71,7 +71,7 @@ def test_json_output_has_the_documented_shape():
     assert set(record) == {"file", "valid", "counts", "findings"}
     assert set(record["counts"]) == {"fail", "marginal", "pass", "info"}
     for finding in record["findings"]:
-        assert {"code", "calc", "subject", "title", "verdict", "values", "limit", "relation", "method", "explanation", "keys", "sources"} == set(finding)
+        assert {"code", "calc", "subject", "title", "verdict", "values", "limit", "relation", "method", "explanation", "keys", "sources", "extra"} == set(finding)
 
 
 def test_schema_is_json_schema_with_units_described():
