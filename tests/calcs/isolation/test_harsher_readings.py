@@ -214,3 +214,16 @@ def test_check_json_holds_every_isolation_measure(tmp_path):
     assert measures["Table A.2 reading"]["value"] == "next row up"
     assert "edition 2 clearance (next impulse step)" in measures
     assert clearance["limit"]["value"] == pytest.approx(3.42)
+
+
+def test_an_archive_that_allows_interpolation_gets_it_in_its_site(tmp_path):
+    from dossier.collect.archive import open_archive
+
+    write_record(tmp_path, "unit")
+    (tmp_path / "archive.yaml").write_text("table_interpolation:\n  allowed: true\n  clause: IEC 60664-1:2020, Table F.2 note\n", encoding="utf-8")
+    archive, problems = open_archive(tmp_path)
+    assert not problems
+    (calc,) = [c for c in archive.calcs if c.name == "isolation"]
+    record = record_with(REINFORCED_120, MAINS_120)
+    # IEC 60664-1:2020 Table F.2 case A, 2400 V interpolated between 2.0 kV (1.0 mm) and 2.5 kV (1.5 mm)
+    assert mm(by_code(calc.run(record))["ISO-CLEARANCE"].limit.quantity) == pytest.approx(1.4)
