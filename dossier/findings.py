@@ -66,12 +66,13 @@ class Finding:
     keys: tuple[tuple, ...] = ()
     sources: tuple[Source, ...] = ()
     extra: tuple[Measure, ...] = field(default=())
-    mains: bool = False  # concerns a mains barrier or the mains protection: not assessed blocks power-up
+    # guards against a hazard (a safety barrier, the mains protection): when not assessed, it blocks power-up
+    guards_hazard: bool = False
 
     @property
     def blocks_power_up(self) -> bool:
-        """A fail blocks power-up; so does a check on a mains barrier or the mains protection that was not made."""
-        return self.verdict is Verdict.FAIL or (self.verdict is Verdict.NOT_ASSESSED and self.mains)
+        """A fail blocks power-up; so does a check guarding a hazard (a safety barrier, the mains protection) that was not made."""
+        return self.verdict is Verdict.FAIL or (self.verdict is Verdict.NOT_ASSESSED and self.guards_hazard)
 
     @property
     def value(self) -> Measure | None:

@@ -23,6 +23,7 @@ from dossier.collect.caches import Caches
 from dossier.collect.extras import Extras, revision_extras
 from dossier.collect.parallel import collect_in_workers, worker_count
 from dossier.reading.settings import ArchiveSettings, load_settings
+from dossier.calcs import isolation
 
 CHECKLIST_SHEETS = {"a4": "checklist-a4.html", "letter": "checklist-letter.html"}
 
@@ -86,7 +87,13 @@ def open_archive(root: Path, calcs: list[Calc] | None = None) -> tuple[Archive, 
     settings = _gathered(problems, lambda: load_settings(root), ArchiveSettings())
     ledger = _gathered(problems, lambda: load_ledger(root), Ledger())
     problems.extend(frozen_problems(root, ledger))
-    return Archive(root, settings, calcs if calcs is not None else load_calcs(), ledger), problems
+    calcs = calcs if calcs is not None else load_calcs()
+    return Archive(root, settings, [_as_settings_ask(calc, settings) for calc in calcs], ledger), problems
+
+
+def _as_settings_ask(calc: Calc, settings: ArchiveSettings) -> Calc:
+    """The isolation calc reads the archive's table_interpolation setting; the others take none."""
+    return isolation.configured(settings) if calc is isolation.CALC else calc
 
 
 def each_build(archive: Archive, problems: list[Problem], cache=None, jobs: int | None = None) -> Iterator[Build]:

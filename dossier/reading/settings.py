@@ -4,12 +4,27 @@ from __future__ import annotations
 
 from pathlib import Path
 
-from pydantic import BaseModel, ConfigDict, Field, ValidationError
+from pydantic import BaseModel, ConfigDict, Field, ValidationError, model_validator
 
 from dossier.problems import InputError, Location, Problem
 from dossier.reading.yaml_source import dotted, read_document
 
 SETTINGS_FILE = "archive.yaml"
+
+
+class TableInterpolation(BaseModel):
+    """Interpolating between the rows of the insulation tables, on the club's own authority."""
+
+    model_config = ConfigDict(extra="forbid", frozen=True)
+
+    allowed: bool = Field(False, description="Interpolate linearly between table rows instead of taking the next row up.")
+    clause: str = Field("", max_length=300, description="The clause or note of the standard that permits it, as the club reads it.")
+
+    @model_validator(mode="after")
+    def _clause_named(self):
+        if self.allowed and not self.clause.strip():
+            raise ValueError("name the clause that permits interpolation (clause: ...) to allow it")
+        return self
 
 
 class ArchiveSettings(BaseModel):
@@ -18,6 +33,10 @@ class ArchiveSettings(BaseModel):
     club: str = Field("", max_length=200, description="Who keeps the archive, shown on every page.")
     title: str = Field("Build archive", min_length=1, max_length=200, description="The site's name.")
     description: str = Field("", max_length=2000, description="One paragraph of Markdown for the archive's front page.")
+    table_interpolation: TableInterpolation = Field(
+        default_factory=TableInterpolation,
+        description="IEC 60664-1 tables: interpolate between rows (allowed: true, with the clause relied on); default: the next row up.",
+    )
 
 
 def load_settings(archive: Path) -> ArchiveSettings:

@@ -37,16 +37,27 @@ class Barrier(Section):
     between: tuple[str, str] = Field(description="The two circuits it separates, e.g. [mains, output].")
     grade: Grade = Field(description="functional, basic, supplementary, reinforced or double.")
     material_group: MaterialGroup | None = Field(None, description="Insulating material group I, II, IIIa or IIIb.")
-    cti: int | None = Field(None, ge=0, le=1000, description="Comparative tracking index; gives the material group when that is not stated.")
+    cti: int | None = Field(None, ge=0, le=1000, description="Comparative tracking index; gives the material group. With material_group too, the worse of the two is used.")
     printed_board: bool = Field(False, description="The creepage path runs over printed-wiring board material.")
     creepage: Length = Field(description="Shortest creepage distance measured or designed.")
     clearance: Length = Field(description="Shortest clearance through air.")
-    working_voltage: Voltage | None = Field(None, description="RMS working voltage across the barrier; default: the mains nominal voltage.")
-    working_peak: Voltage | None = Field(None, description="Peak working voltage where it exceeds the mains peak.")
+    working_voltage: Voltage | None = Field(
+        None,
+        description="AC working voltage across the barrier, RMS; default, for a barrier between mains and something: "
+        "the mains nominal voltage.",
+    )
+    working_dc: Voltage | None = Field(
+        None, description="DC working voltage across the barrier, e.g. a high-voltage DC rail to chassis."
+    )
+    working_peak: Voltage | None = Field(
+        None,
+        description="Recurring peak voltage across the barrier (a flyback or forward converter's reset, a valve "
+        "amplifier's high voltage), where it exceeds the peak of the AC and DC working voltages.",
+    )
     slots: list[Slot] = Field(default_factory=list, description="Grooves or slots cut across the creepage path.")
     parts: list[str] = Field(default_factory=list, description="Designators that bridge or form the barrier, e.g. T1, C9.")
 
-    _positive = field_validator("creepage", "clearance", "working_voltage", "working_peak")(_positive)
+    _positive = field_validator("creepage", "clearance", "working_voltage", "working_dc", "working_peak")(_positive)
 
     @model_validator(mode="after")
     def _material_given(self):

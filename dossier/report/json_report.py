@@ -37,7 +37,7 @@ def finding_json(finding: Finding, locate) -> dict:
         "explanation": finding.explanation,
         "keys": [{"key": dotted(k), "at": str(locate(k))} for k in finding.keys],
         "sources": [source_json(s) for s in finding.sources],
-        "mains": finding.mains,
+        "guards_hazard": finding.guards_hazard,
         "blocks_power_up": finding.blocks_power_up,
     }
 

@@ -72,7 +72,7 @@ def test_json_output_has_the_documented_shape():
     assert set(record["counts"]) == {"fail", "not-assessed", "marginal", "pass", "info"}
     for finding in record["findings"]:
         assert {"code", "calc", "subject", "title", "verdict", "values", "limit", "extra", "relation", "method", "explanation",
-                "keys", "sources", "mains", "blocks_power_up"} == set(finding)
+                "keys", "sources", "guards_hazard", "blocks_power_up"} == set(finding)
 
 
 def test_schema_is_json_schema_with_units_described():

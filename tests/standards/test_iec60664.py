@@ -67,12 +67,43 @@ def test_pollution_degree_4_clearance_is_at_least_1_6_mm():
     assert std.clearance_mm(6000, 4) == pytest.approx(5.5)
 
 
-def test_clearance_between_rows_is_interpolated():
-    # interpolation between Table F.2 rows: from memory, to verify against IEC 60664-1:2020 Table F.2's note
-    assert std.clearance_mm(6400, 2) == pytest.approx(6.0)
-    assert std.clearance_mm(2400, 2) == pytest.approx(1.4)
+def test_clearance_between_rows_takes_the_next_row_up():
+    # IEC 60664-1:2020 Table F.2 case A: 2.4 kV lies between 2.0 kV (1.0 mm) and 2.5 kV (1.5 mm); 6.4 kV between
+    # 6.0 kV (5.5 mm) and 8.0 kV (8.0 mm); the next row up is the harsher reading
+    assert std.clearance_mm(2400, 2) == pytest.approx(1.5)
+    assert std.clearance_mm(6400, 2) == pytest.approx(8.0)
     with pytest.raises(std.OutsideTable, match="Table F.2"):
         std.clearance_mm(12001, 2)
+
+
+def test_clearance_between_rows_interpolated_when_asked():
+    # linear interpolation between IEC 60664-1:2020 Table F.2 rows (that the standard allows it: from memory)
+    assert std.clearance_mm(6400, 2, interpolated=True) == pytest.approx(6.0)
+    assert std.clearance_mm(2400, 2, interpolated=True) == pytest.approx(1.4)
+
+
+# IEC 60664-1:2020 Table F.8 (F.7 in edition 2), case A: peak voltage (V) -> clearance (mm); confirmed against a
+# public transcription of the table.
+TABLE_F8 = {
+    40: 0.001, 60: 0.002, 100: 0.003, 120: 0.004, 150: 0.005, 200: 0.006, 250: 0.008, 330: 0.01, 400: 0.02,
+    500: 0.04, 600: 0.06, 800: 0.13, 1000: 0.26, 1200: 0.42, 1500: 0.76, 2000: 1.27, 2500: 1.8, 3000: 2.4,
+    4000: 3.8, 5000: 5.7, 6000: 7.9, 8000: 11.0, 10000: 15.2, 12000: 19.0, 15000: 25.0, 20000: 34.0,
+    25000: 44.0, 30000: 55.0, 40000: 77.0, 50000: 100.0,
+}
+
+
+@pytest.mark.parametrize("volts", sorted(TABLE_F8))
+def test_steady_clearance_matches_table_f8_case_a(volts):
+    # IEC 60664-1:2020 Table F.8, case A, every row held
+    assert std.steady_clearance_mm(volts) == pytest.approx(TABLE_F8[volts])
+
+
+def test_steady_clearance_between_rows_and_beyond():
+    # IEC 60664-1:2020 Table F.8 case A: 700 V peak lies between 600 V (0.06 mm) and 800 V (0.13 mm)
+    assert std.steady_clearance_mm(700) == pytest.approx(0.13)
+    assert std.steady_clearance_mm(700, interpolated=True) == pytest.approx(0.095)
+    with pytest.raises(std.OutsideTable, match="Table F.8"):
+        std.steady_clearance_mm(50001)
 
 
 def test_reinforced_impulse_is_160_percent_of_basic():
@@ -104,22 +135,34 @@ def test_altitude_factor_matches_table_a2(metres):
 
 
 def test_altitude_factor_below_2000_m_and_between_rows():
-    # IEC 60664-1:2020 Table A.2: no correction up to 2000 m; between rows, linear interpolation (dossier's choice)
+    # IEC 60664-1:2020 Table A.2: no correction up to 2000 m; between rows the next row up, or interpolated when asked
     assert std.altitude_factor(0) == 1.0
     assert std.altitude_factor(1999) == 1.0
-    assert std.altitude_factor(2500) == pytest.approx(1.07)
-    assert std.altitude_factor(7500) == pytest.approx(2.10)
+    assert std.altitude_factor(2500) == pytest.approx(1.14)
+    assert std.altitude_factor(7500) == pytest.approx(2.25)
+    assert std.altitude_factor(2500, interpolated=True) == pytest.approx(1.07)
+    assert std.altitude_factor(7500, interpolated=True) == pytest.approx(2.10)
     with pytest.raises(std.OutsideTable, match="Table A.2"):
         std.altitude_factor(8001)
 
 
-def test_rationalised_voltage_table_f3():
-    # IEC 60664-1:2020 Table F.3: a 220-230 V system uses the 250 V row, a 300 V system the 320 V row
-    assert std.rationalised_voltage(230) == (250, True)
-    assert std.rationalised_voltage(220) == (250, True)
-    assert std.rationalised_voltage(300) == (320, True)
-    # from memory: IEC 60664-1:2020 Table F.3, 110-120 V systems use the 125 V row
-    assert std.rationalised_voltage(120) == (125, True)
+# IEC 60664-1:2020 Table F.3 (single-phase systems): nominal voltage -> rationalised voltage for Table F.5;
+# every row confirmed against a public transcription of the table (230 V and 240 V are the 220-240 V row).
+TABLE_F3 = {
+    12.5: 12.5, 25: 25, 30: 32, 42: 50, 48: 50, 50: 50, 60: 63, 100: 100, 110: 125, 120: 125,
+    150: 160, 200: 200, 220: 250, 230: 250, 240: 250, 300: 320, 600: 630, 1000: 1000,
+}
+
+
+@pytest.mark.parametrize("nominal", sorted(TABLE_F3))
+def test_rationalised_voltage_matches_table_f3(nominal):
+    # IEC 60664-1:2020 Table F.3, every row held, the 100-127 V rows included
+    assert std.rationalised_voltage(nominal) == (TABLE_F3[nominal], True)
+
+
+def test_table_f3_holds_every_pinned_row():
+    # IEC 60664-1:2020 Table F.3: no row held here goes unpinned
+    assert dict(std.RATIONALISED_F3) == TABLE_F3
 
 
 def test_unlisted_nominal_takes_the_next_creepage_row_up():
@@ -170,10 +213,11 @@ def test_board_pd2_column_does_not_apply_to_group_iiib():
     assert std.creepage_column(3, "I", True) == "PD3-I"
 
 
-def test_creepage_between_rows_is_interpolated():
-    # IEC 60664-1:2020 Table F.5, linear interpolation between rows (from memory, to verify against its note):
-    # 360 V, PD2 group II lies halfway between 2.2 mm (320 V) and 2.8 mm (400 V)
-    assert std.basic_creepage_mm(360, 2, "II", False) == pytest.approx(2.5)
+def test_creepage_between_rows_takes_the_next_row_up_or_interpolates_when_asked():
+    # IEC 60664-1:2020 Table F.5: 360 V, PD2 group II lies halfway between 2.2 mm (320 V) and 2.8 mm (400 V);
+    # the next row up by default, linear interpolation when asked (that the standard allows it: from memory)
+    assert std.basic_creepage_mm(360, 2, "II", False) == pytest.approx(2.8)
+    assert std.basic_creepage_mm(360, 2, "II", False, interpolated=True) == pytest.approx(2.5)
     # below the lowest row held (50 V) the 50 V value is kept: conservative, the lower rows are smaller
     assert std.basic_creepage_mm(24, 2, "I", False) == pytest.approx(0.60)
 
@@ -192,6 +236,13 @@ def test_creepage_outside_the_table_is_refused():
 def test_material_group_from_cti(cti, group):
     # IEC 60664-1:2020, material groups: I CTI >= 600; II 400-599; IIIa 175-399; IIIb 100-174
     assert std.material_group(cti) == group
+
+
+def test_the_worse_material_group():
+    # IEC 60664-1:2020 Table F.5: creepage grows from group I to group III; IIIb is the worst
+    assert std.worse_group("I", "IIIa") == "IIIa"
+    assert std.worse_group("IIIb", "II") == "IIIb"
+    assert std.worse_group("II", "II") == "II"
 
 
 def test_cti_below_100_has_no_group():

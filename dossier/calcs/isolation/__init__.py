@@ -2,60 +2,77 @@
 
 from __future__ import annotations
 
-import math
 from dataclasses import replace
+from functools import partial
 
-from dossier.calcs.shared.finding_kit import maker, not_assessed as not_assessed_finding
-from dossier.calcs.isolation.inputs import Inputs, Site, derive_inputs, material_group_of, material_key
+from dossier.calcs.isolation import words
+from dossier.calcs.isolation.inputs import (
+    NEXT_ROW_UP, Inputs, Reading, Site, derive_inputs, material_group_of, material_keys, working_of,
+)
 from dossier.calcs.isolation.needs import (
-    DOUBLED_GRADES, ClearanceNeed, CreepageNeed, bridged_slots, clearance_need, creepage_need, impulse_voltages,
+    ClearanceNeed, CreepageNeed, bridged_slots, clearance_need, creepage_need, impulse_voltages,
     judged_slot_index, minimum_groove,
 )
+from dossier.calcs.shared.finding_kit import maker
 from dossier.citations import IEC_60664_1, IEC_62368_1
 from dossier.findings import Finding, Measure, Verdict, judge
 from dossier.plugins import Calc
 from dossier.standards import iec60664 as std
-from dossier.units import Q_, fmt
+from dossier.units import Q_
 
 NAME = "isolation"
 finding = maker(NAME)
 MARGINAL_WITHIN = 0.10  # dossier's own band: within 10 % of the requirement is marginal
-INTERPOLATION_NOTE = "interpolated linearly between rows (from memory, to verify against the standard's note)"
 
 CLEARANCE_SOURCE = replace(IEC_60664_1, clause=(
-    "Table F.1 (rated impulse voltage); Table F.2, case A (clearance); Table A.2 (altitude); "
-    "reinforced clearance for 160 % of the basic impulse voltage"))
+    "Table F.1 (rated impulse voltage); Table F.2, case A (clearance for transients); Table F.8, case A (clearance "
+    "for steady-state and recurring peak voltages); Table A.2 (altitude); reinforced insulation at 160 % of the "
+    "voltages for basic insulation (clause 5.1.6, clause number from memory)"))
 CREEPAGE_SOURCE = replace(IEC_60664_1, clause=(
-    "Table F.3 (rationalised voltage); Table F.5 (creepage for basic insulation); "
-    "reinforced creepage twice basic, never less than the clearance"))
-PRODUCT_CREEPAGE_SOURCE = replace(IEC_62368_1, clause="Table 17 (creepage; no printed-board column, from memory)")
+    "Table F.3 (rationalised voltage); Table F.5 (creepage for basic insulation); reinforced creepage twice basic, "
+    "never less than the clearance (clause 5.2, clause number from memory)"))
+PRODUCT_CREEPAGE_SOURCE = replace(IEC_62368_1, edition="edition 3.0, 2018 (from memory)",
+                                  clause="Table 17 (creepage; no printed-board column, from memory)")
 GROOVE_SOURCE = replace(IEC_60664_1, clause="clause 6.8 (grooves across a creepage path)")
 INPUTS_SOURCE = replace(IEC_60664_1, clause=(
-    "Table F.1 (rated impulse voltage); Table F.3 (rationalised voltage); material groups by comparative tracking index"))
+    "Table F.1 (rated impulse voltage); Table F.3 (rationalised voltage); material groups by comparative tracking "
+    "index (clause 4.8.1.3, clause number from memory)"))
 
 CODES = {
     "ISO-INPUTS": "what the barrier's requirements were derived from: working voltage, impulse voltage, material group",
     "ISO-CLEARANCE": "declared clearance against the clearance IEC 60664-1 requires",
     "ISO-CREEPAGE": "declared creepage against the creepage IEC 60664-1 requires",
     "ISO-SLOT": "a slot or groove in the creepage path is at least as wide as clause 6.8 asks, or counts as bridged",
-    "ISO-NO-VOLTAGE": "the barrier cannot be assessed: no mains record and no working voltage declared",
+    "ISO-NO-VOLTAGE": "the barrier cannot be assessed: no working voltage declared and none to default to",
 }
 
 
-def run(record):
+def run(record, reading: Reading = NEXT_ROW_UP):
     findings = []
     for index, barrier in enumerate(record.barriers):
-        findings.extend(barrier_findings(record, Site(index, barrier)))
+        findings.extend(barrier_findings(record, Site(index, barrier), reading))
     return findings
 
 
-def barrier_findings(record, site: Site) -> list[Finding]:
-    if record.mains is None and site.barrier.working_voltage is None:
-        return [no_voltage_finding(site)]
-    inputs = derive_inputs(record, site)
+def reading_from(settings) -> Reading:
+    """The archive's table_interpolation setting as a Reading."""
+    chosen = settings.table_interpolation
+    return Reading(True, chosen.clause.strip()) if chosen.allowed else NEXT_ROW_UP
+
+
+def configured(settings) -> Calc:
+    """This calc as an archive's settings ask for it (interpolation between table rows, on a named clause)."""
+    reading = reading_from(settings)
+    return CALC if reading == NEXT_ROW_UP else replace(CALC, run=partial(run, reading=reading))
+
+
+def barrier_findings(record, site: Site, reading: Reading = NEXT_ROW_UP) -> list[Finding]:
+    working = working_of(record, site)
+    if working is None:
+        return [no_voltage_finding(record, site)]
+    inputs = derive_inputs(record, site, working, reading)
     clearance = clearance_finding(site, inputs)
-    findings = [inputs_finding(site, inputs), clearance]
-    findings.append(creepage_finding(site, inputs, _required(clearance)))
+    findings = [inputs_finding(site, inputs), clearance, creepage_finding(site, inputs, _required(clearance))]
     if site.barrier.slots:
         findings.append(slot_finding(site, inputs))
     return findings
@@ -70,21 +87,20 @@ def _required(clearance: Finding):
 
 
 def inputs_finding(site: Site, inputs: Inputs) -> Finding:
-    values = [Measure("working voltage RMS", inputs.working_rms), Measure("peak working voltage", inputs.working_peak),
-              Measure("Table F.5 voltage", inputs.creepage_voltage)]
+    values = [Measure("working voltage, r.m.s. or d.c.", inputs.creepage_voltage), Measure("peak working voltage", inputs.working_peak)]
     notes = list(inputs.notes)
     values += _impulse_measures(site, inputs, notes)
     values += _group_measures(site.barrier, notes)
-    return finding(code="ISO-INPUTS", subject=site.barrier.name, title=f"Derived inputs for {site.grade} insulation",
-                   verdict=Verdict.INFO, values=tuple(values), explanation=_capitalised("; ".join(notes)) + ".",
-                   keys=(inputs.rms_key, *inputs.supply_keys, material_key(site)), sources=(INPUTS_SOURCE,))
+    return finding(code="ISO-INPUTS", subject=site.barrier.name, title=words.inputs_title(site.grade),
+                   verdict=Verdict.INFO, values=tuple(values), explanation=words.sentences(notes),
+                   keys=(*inputs.voltage_keys, *inputs.supply_keys, *material_keys(site)), sources=(INPUTS_SOURCE,))
 
 
 def _impulse_measures(site: Site, inputs: Inputs, notes: list) -> list[Measure]:
     try:
         basic, impulse = impulse_voltages(inputs, site.grade)
     except std.OutsideTable as problem:
-        notes.append(f"impulse voltage not found: {problem}")
+        notes.append(words.impulse_not_found(problem))
         return []
     measures = [Measure("rated impulse voltage", Q_(basic, "V"))]
     if impulse != basic:
@@ -106,87 +122,49 @@ def _group_measures(barrier, notes: list) -> list[Measure]:
 
 
 def clearance_finding(site: Site, inputs: Inputs) -> Finding:
-    keys = (site.key("clearance"), *inputs.supply_keys)
+    keys = (site.key("clearance"), *inputs.voltage_keys, *inputs.supply_keys)
     try:
         need = clearance_need(inputs, site.grade)
     except std.OutsideTable as problem:
         return not_assessed(site, "ISO-CLEARANCE", "Clearance", str(problem), keys, CLEARANCE_SOURCE)
     declared, required = site.barrier.clearance, Q_(need.required_mm, "mm")
-    return finding(code="ISO-CLEARANCE", subject=site.barrier.name, title=f"Clearance for {site.grade} insulation",
+    return finding(code="ISO-CLEARANCE", subject=site.barrier.name, title=words.clearance_title(site.grade),
                    verdict=verdict(site, declared, required), values=(Measure("declared clearance", declared),),
-                   limit=Measure("required clearance", required), method=CLEARANCE_METHOD,
-                   explanation=clearance_text(site, inputs, need), keys=keys, sources=(CLEARANCE_SOURCE,),
-                   extra=_clearance_extra(need))
+                   limit=Measure("required clearance", required), method=words.CLEARANCE_METHOD,
+                   explanation=words.clearance_text(site, inputs, need), keys=keys, sources=(CLEARANCE_SOURCE,),
+                   extra=_clearance_extra(need, inputs.reading))
 
 
-CLEARANCE_METHOD = ("required = Table F.2 case A (impulse voltage, pollution degree) x Table A.2 altitude factor; "
-                    "impulse voltage from Table F.1, x 1.6 for reinforced and double insulation")
-
-
-def _clearance_extra(need: ClearanceNeed) -> tuple[Measure, ...]:
-    extra = [Measure("rated impulse voltage", Q_(need.basic_impulse, "V")), Measure("Table F.2 clearance", Q_(need.table_mm, "mm")),
-             Measure("altitude factor", Q_(need.factor))]
+def _clearance_extra(need: ClearanceNeed, reading: Reading) -> tuple[Measure, ...]:
+    extra = [Measure("rated impulse voltage", Q_(need.basic_impulse, "V")),
+             Measure("impulse voltage for the clearance", Q_(need.impulse, "V")),
+             Measure("Table F.2 clearance", Q_(need.transient_mm, "mm")),
+             Measure("Table F.2 reading", need.transient_reading),
+             Measure("peak voltage for Table F.8", Q_(need.steady_peak, "V")),
+             Measure("Table F.8 clearance", Q_(need.steady_mm, "mm")),
+             Measure("Table F.8 reading", need.steady_reading),
+             Measure("altitude factor", Q_(need.factor)),
+             Measure("Table A.2 reading", need.altitude_reading)]
     if need.edition2_mm is not None:
         extra.append(Measure("edition 2 clearance (next impulse step)", Q_(need.edition2_mm, "mm")))
-    return tuple(extra)
+    return tuple(extra) + _clause_measure(reading)
 
 
-def clearance_text(site: Site, inputs: Inputs, need: ClearanceNeed) -> str:
-    parts = [f"Rated impulse voltage {need.basic_impulse:g} V (Table F.1, {inputs.supply_note})"]
-    if site.grade in DOUBLED_GRADES:
-        parts.append(f"{site.grade} insulation is dimensioned for 160 % of it, {need.impulse:g} V (edition 3, 2020)")
-    parts.append(_table_f2_text(inputs, need))
-    parts.append(_altitude_text(inputs, need))
-    if site.grade in DOUBLED_GRADES:
-        parts.append(_edition2_text(need))
-    parts.append(grade_note(site))
-    return sentences(parts)
-
-
-def _table_f2_text(inputs: Inputs, need: ClearanceNeed) -> str:
-    rows = {volts for volts, _ in std.CLEARANCE_F2}
-    how = "" if need.impulse in rows else f", {INTERPOLATION_NOTE}"
-    return f"Table F.2, case A, pollution degree {inputs.pollution_degree}: {need.table_mm:.3g} mm{how}"
-
-
-def _altitude_text(inputs: Inputs, need: ClearanceNeed) -> str:
-    altitude = fmt(inputs.altitude.to("m"))
-    if need.factor == 1:
-        return f"Altitude {altitude}: no correction up to 2000 m (Table A.2)"
-    rows = {metres for metres, _ in std.ALTITUDE_A2}
-    how = "" if inputs.altitude.to("m").magnitude in rows else ", interpolated between its rows"
-    return f"Altitude {altitude}: factor {need.factor:.3g} (Table A.2{how}), so {need.required_mm:.3g} mm"
-
-
-def _edition2_text(need: ClearanceNeed) -> str:
-    if need.edition2_mm is None:
-        return "Edition 2 (2007) took the next step of the impulse series instead; that step lies beyond the table here"
-    same = "the same" if math.isclose(need.edition2_mm, need.required_mm) else "a different result"
-    return (f"Edition 2 (2007) took the next step of the impulse series instead, giving {need.edition2_mm:.3g} mm here "
-            f"({same}; the editions differ at overvoltage category III)")
-
-
-def grade_note(site: Site) -> str:
-    return GRADE_NOTES.get(site.grade, "")
-
-
-GRADE_NOTES = {
-    "functional": "Functional insulation is no safety barrier: the basic-insulation values are shown as guidance, without a verdict",
-    "supplementary": "Supplementary insulation is dimensioned as basic insulation",
-    "double": ("Double insulation is judged here as one reinforced gap; each of its basic and supplementary layers "
-               "must also meet the basic values on its own, which one declared pair cannot show"),
-}
+def _clause_measure(reading: Reading) -> tuple[Measure, ...]:
+    return (Measure("interpolation relies on", reading.clause),) if reading.interpolated else ()
 
 
 # --- creepage ---------------------------------------------------------------------------------
 
 
 def creepage_finding(site: Site, inputs: Inputs, clearance_mm: float | None) -> Finding:
-    keys = (site.key("creepage"), material_key(site), site.key("printed_board"), inputs.rms_key, ("environment", "pollution_degree"))
+    keys = (site.key("creepage"), *material_keys(site), site.key("printed_board"), *inputs.voltage_keys, ("environment", "pollution_degree"))
     try:
         group, _ = material_group_of(site.barrier)
     except std.OutsideTable as problem:
         return unsuitable_material(site, str(problem), keys)
+    if clearance_mm is None:
+        return not_assessed(site, "ISO-CREEPAGE", "Creepage", words.NO_CLEARANCE_FLOOR, (*keys, site.key("clearance")), CREEPAGE_SOURCE)
     try:
         need = creepage_need(inputs, site, group, clearance_mm)
     except std.OutsideTable as problem:
@@ -200,91 +178,30 @@ def judged_creepage(site: Site, inputs: Inputs, need: CreepageNeed, keys: tuple)
     outcome = verdict(site, declared, required)
     if bridged and outcome is not Verdict.INFO:
         outcome = Verdict.FAIL
-    text = creepage_text(site, inputs, need) + bridged_text(site, bridged)
+    text = words.creepage_text(site, inputs, need) + words.bridged_text(site, bridged)
     sources = (CREEPAGE_SOURCE,) if need.off_board_mm is None else (CREEPAGE_SOURCE, PRODUCT_CREEPAGE_SOURCE)
-    title = f"Creepage for {site.grade} insulation" + (": not credited, a slot counts as bridged" if bridged else "")
-    return finding(code="ISO-CREEPAGE", subject=site.barrier.name, title=title,
+    return finding(code="ISO-CREEPAGE", subject=site.barrier.name, title=words.creepage_title(site.grade, bool(bridged)),
                    verdict=outcome, values=(Measure("declared creepage", declared),), limit=Measure("required creepage", required),
-                   method=CREEPAGE_METHOD, explanation=text, keys=keys, sources=sources, extra=_creepage_extra(need))
+                   method=words.CREEPAGE_METHOD, explanation=text, keys=keys, sources=sources,
+                   extra=_creepage_extra(need, inputs))
 
 
-def _creepage_extra(need: CreepageNeed) -> tuple[Measure, ...]:
-    extra = [Measure("Table F.5 creepage (basic)", Q_(need.basic_mm, "mm")), Measure("material group", need.group)]
+def _creepage_extra(need: CreepageNeed, inputs: Inputs) -> tuple[Measure, ...]:
+    extra = [Measure("Table F.5 voltage", inputs.creepage_voltage), Measure("Table F.5 creepage (basic)", Q_(need.basic_mm, "mm")),
+             Measure("Table F.5 reading", need.reading), Measure("material group", need.group),
+             Measure("graded creepage", Q_(need.graded_mm, "mm")), Measure("required clearance (floor)", Q_(need.clearance_mm, "mm"))]
     if need.off_board_required_mm is not None:
         extra.append(Measure("required without the printed-board column", Q_(need.off_board_required_mm, "mm")))
-    return tuple(extra)
-
-
-CREEPAGE_METHOD = "required = max(Table F.5 value x 2 for reinforced and double insulation, required clearance)"
-
-
-def creepage_text(site: Site, inputs: Inputs, need: CreepageNeed) -> str:
-    parts = [inputs.creepage_note, _table_f5_text(inputs, need)]
-    if site.grade in DOUBLED_GRADES:
-        parts.append(f"{site.grade} insulation needs twice that, {need.graded_mm:.3g} mm")
-    if need.clearance_mm is not None and need.clearance_mm > need.graded_mm:
-        parts.append(f"raised to the required clearance, {need.clearance_mm:.3g} mm: creepage is never less than the clearance")
-    parts.append(_board_note(site, inputs, need))
-    parts.append(_off_board_note(need))
-    parts.append(grade_note(site))
-    return sentences(parts)
-
-
-def sentences(parts) -> str:
-    return ". ".join(_capitalised(part) for part in parts if part) + "."
-
-
-def _capitalised(text: str) -> str:
-    return text[:1].upper() + text[1:]
-
-
-def _table_f5_text(inputs: Inputs, need: CreepageNeed) -> str:
-    volts = inputs.creepage_voltage.to("V").magnitude
-    how = "" if volts in std.CREEPAGE_ROWS or volts <= std.CREEPAGE_ROWS[0] else f", {INTERPOLATION_NOTE}"
-    return f"Table F.5 at {volts:g} V, {column_text(need.column)}, material group {need.group}: {need.basic_mm:.3g} mm for basic insulation{how}"
-
-
-def column_text(column: str) -> str:
-    if column.startswith("board-"):
-        return f"printed-board column for pollution degree {column[-1]}"
-    pd, _, family = column.partition("-")
-    return f"pollution degree {pd[-1]} column" + (f" for material group {family}" if family else "")
-
-
-def _board_note(site: Site, inputs: Inputs, need: CreepageNeed) -> str:
-    pd = inputs.pollution_degree
-    if not site.barrier.printed_board or need.column.startswith("board-"):
-        return ""
-    if pd in std.BOARD_COLUMNS:
-        return f"the printed-board column does not apply to material group {need.group} at pollution degree {pd}"
-    return f"Table F.5 has no printed-board column at pollution degree {pd}"
-
-
-def _off_board_note(need: CreepageNeed) -> str:
-    if need.off_board_required_mm is None:
-        return ""
-    return (f"without the printed-board column it would be {need.off_board_required_mm:.3g} mm: product standards "
-            f"such as IEC 62368-1 (Table 17) give no printed-board column (from memory), so check which standard the unit "
-            f"must meet")
+    return tuple(extra) + _clause_measure(inputs.reading)
 
 
 def unsuitable_material(site: Site, reason: str, keys: tuple) -> Finding:
-    return finding(code="ISO-CREEPAGE", subject=site.barrier.name, title="Creepage: insulating material unsuitable",
+    return finding(code="ISO-CREEPAGE", subject=site.barrier.name, title=words.UNSUITABLE_TITLE,
                    verdict=Verdict.FAIL, values=(Measure("CTI", site.barrier.cti),),
-                   explanation=f"{reason}. Use a material of CTI 100 or more and declare its group or CTI.",
-                   keys=keys, sources=(CREEPAGE_SOURCE,))
+                   explanation=words.unsuitable_text(reason), keys=keys, sources=(CREEPAGE_SOURCE,))
 
 
 # --- slots ------------------------------------------------------------------------------------
-
-
-def bridged_text(site: Site, bridged: list[int]) -> str:
-    if not bridged:
-        return ""
-    named = ", ".join(f"{fmt(site.barrier.slots[j].width)}" for j in bridged)
-    return (f" A slot the declared creepage counts on ({named}) is too narrow and counts as bridged (clause 6.8), so the "
-            f"declared {fmt(site.barrier.creepage)} cannot be credited. Measure the creepage straight across the slot and "
-            f"declare that value with 'credited: false' on the slot, or widen the slot.")
 
 
 def slot_finding(site: Site, inputs: Inputs) -> Finding:
@@ -296,31 +213,10 @@ def slot_finding(site: Site, inputs: Inputs) -> Finding:
     except std.OutsideTable as problem:
         return not_assessed(site, "ISO-SLOT", "Slot width", str(problem), keys, GROOVE_SOURCE)
     outcome = Verdict.INFO if not slot.credited else verdict(site, slot.width, minimum)
-    return finding(code="ISO-SLOT", subject=site.barrier.name, title=slot_title(slot, minimum),
+    return finding(code="ISO-SLOT", subject=site.barrier.name, title=words.slot_title(slot, minimum),
                    verdict=outcome, values=(Measure("slot width", slot.width),), limit=Measure("minimum groove width", minimum),
-                   method=SLOT_METHOD, explanation=slot_text(site, inputs, slot, minimum), keys=keys, sources=(GROOVE_SOURCE,))
-
-
-SLOT_METHOD = ("minimum width by pollution degree (1: 0.25 mm, 2: 1.0 mm, 3: 1.5 mm); "
-               "one third of the declared clearance where that is below 3 mm, if smaller")
-
-
-def slot_title(slot, minimum) -> str:
-    if slot.width < minimum:
-        return "Slot too narrow: counts as bridged"
-    return "Slot wide enough to interrupt the creepage path"
-
-
-def slot_text(site: Site, inputs: Inputs, slot, minimum) -> str:
-    clearance = site.barrier.clearance.to("mm")
-    reduced = "; as the declared clearance is below 3 mm, one third of it is enough" if clearance.magnitude < std.GROOVE_REDUCTION_BELOW_MM else ""
-    base = fmt(Q_(std.GROOVE_MINIMUM_MM[inputs.pollution_degree], "mm"))
-    text = f"Clause 6.8: at pollution degree {inputs.pollution_degree} a groove interrupts a creepage path only if it is at least {base} wide{reduced}."
-    if slot.width < minimum:
-        text += " A narrower one is measured straight across, as if bridged by dirt and moisture."
-    if not slot.credited:
-        text += " The declared creepage does not count on this slot ('credited: false'), so its width is for information."
-    return text + ("" if not site.guidance_only else " " + grade_note(site) + ".")
+                   method=words.SLOT_METHOD, explanation=words.slot_text(site, inputs, slot, minimum), keys=keys,
+                   sources=(GROOVE_SOURCE,), extra=(Measure("clause 6.8 width", Q_(std.GROOVE_MINIMUM_MM[inputs.pollution_degree], "mm")),))
 
 
 # --- shared -----------------------------------------------------------------------------------
@@ -332,16 +228,22 @@ def verdict(site: Site, declared, required) -> Verdict:
     return judge(declared.to("mm"), required.to("mm"), ">=", MARGINAL_WITHIN)
 
 
+def unassessed_verdict(site: Site) -> Verdict:
+    """A safety barrier that cannot be assessed blocks power-up (not assessed, guarding a hazard); functional insulation is guidance."""
+    return Verdict.INFO if site.guidance_only else Verdict.NOT_ASSESSED
+
+
 def not_assessed(site: Site, code: str, what: str, reason: str, keys: tuple, source) -> Finding:
-    why = f"{reason}; check this barrier against IEC 60664-1 directly"
-    return not_assessed_finding(NAME, code, site.barrier.name, f"{what} not assessed", why, keys, (source,), mains=True)
+    return finding(code=code, subject=site.barrier.name, title=words.not_assessed_title(what, site),
+                   verdict=unassessed_verdict(site), explanation=words.not_assessed_text(reason, site),
+                   keys=keys, sources=(source,), guards_hazard=not site.guidance_only)
 
 
-def no_voltage_finding(site: Site) -> Finding:
-    return finding(code="ISO-NO-VOLTAGE", subject=site.barrier.name, title="Barrier not assessed: no working voltage",
-                   verdict=Verdict.NOT_ASSESSED, mains=True, keys=(site.key("working_voltage"), ("mains",)), sources=(INPUTS_SOURCE,),
-                   explanation=("The record has no mains section and the barrier declares no working_voltage. Add a mains section "
-                                "(nominal, frequency, overvoltage_category) or give working_voltage on this barrier."))
+def no_voltage_finding(record, site: Site) -> Finding:
+    keys = (site.key("working_voltage"), site.key("working_dc"), site.key("between"), ("mains",))
+    return finding(code="ISO-NO-VOLTAGE", subject=site.barrier.name, title=words.not_assessed_title("Barrier", site),
+                   verdict=unassessed_verdict(site), keys=keys, sources=(INPUTS_SOURCE,), guards_hazard=not site.guidance_only,
+                   explanation=words.no_voltage_text(site, record.mains is not None))
 
 
 CALC = Calc(
@@ -349,9 +251,11 @@ CALC = Calc(
     title="Isolation",
     run=run,
     summary=("Checks the clearance and creepage declared across each isolation barrier against IEC 60664-1 edition 3 "
-             "(2020): rated impulse voltage (Table F.1), clearance (Table F.2, case A) with the altitude factor "
+             "(2020): rated impulse voltage (Table F.1), clearance for transients (Table F.2, case A) and for "
+             "steady-state and recurring peak voltages (Table F.8, case A), the larger, with the altitude factor "
              "(Table A.2), creepage (Tables F.3 and F.5) by pollution degree and material group, reinforced and "
-             "double insulation, and slots that are too narrow to count (clause 6.8)."),
+             "double insulation, and slots that are too narrow to count (clause 6.8). Between table rows the next "
+             "row up is taken unless the archive allows interpolation and names the clause it relies on."),
     codes=CODES,
     order=10,
 )

@@ -13,10 +13,10 @@ def maker(calc: str):
 
 
 def not_assessed(calc: str, code: str, subject: str, title: str, why: str, keys: tuple, sources: tuple = (),
-                 mains: bool = False) -> Finding:
+                 guards_hazard: bool = False) -> Finding:
     """A check that could not be made, saying why (and so what to add); on the mains it blocks power-up."""
     return Finding(code=code, calc=calc, subject=subject, title=title, verdict=Verdict.NOT_ASSESSED,
-                   explanation=f"Not assessed: {why}.", keys=keys, sources=sources, mains=mains)
+                   explanation=f"Not assessed: {why}.", keys=keys, sources=sources, guards_hazard=guards_hazard)
 
 
 def banded(value, wanted, bound, relation: str) -> Verdict:

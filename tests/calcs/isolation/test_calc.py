@@ -8,7 +8,7 @@ import pytest
 import yaml
 
 from tests.fixtures.demo import load_demo
-from dossier.calcs.isolation import CALC
+from dossier.calcs.isolation import CALC, run
 from dossier.findings import Verdict
 from dossier.record.model import Record
 from dossier.units import Q_, parse_quantity
@@ -72,7 +72,10 @@ EXPECTATIONS = {
 @pytest.mark.parametrize("case", load_cases())
 def test_worked_case(case):
     assert case["source"].startswith("IEC 60664-1"), "every worked case names its published source"
-    findings = by_code(CALC.run(case_record(case)))
+    from dossier.calcs.isolation.inputs import NEXT_ROW_UP, Reading
+
+    reading = Reading(True, case["interpolate_on"]) if "interpolate_on" in case else NEXT_ROW_UP
+    findings = by_code(run(case_record(case), reading))
     for key, expected in case["expect"].items():
         if key == "altitude_factor":
             assert extra(findings["ISO-CLEARANCE"], "altitude factor").magnitude == pytest.approx(expected)
@@ -179,7 +182,8 @@ def test_reinforced_clearance_names_the_edition():
 def test_no_mains_and_no_working_voltage_says_what_to_add():
     findings = CALC.run(record_with({"grade": "basic", "material_group": "I", "creepage": "2 mm", "clearance": "2 mm"}, mains=False))
     assert [f.code for f in findings] == ["ISO-NO-VOLTAGE"]
-    assert findings[0].verdict is Verdict.NOT_ASSESSED
+    # docs/verdicts.md: what cannot be assessed on a mains barrier blocks power-up like a fail
+    assert findings[0].verdict is Verdict.NOT_ASSESSED and findings[0].blocks_power_up
     assert "mains" in findings[0].explanation and "working_voltage" in findings[0].explanation
     assert findings[0].subject == "case barrier"
 
@@ -210,41 +214,46 @@ def test_cti_below_100_fails_creepage():
     assert findings["ISO-CLEARANCE"].verdict is Verdict.PASS
 
 
-def test_declared_group_that_contradicts_the_cti_is_pointed_out():
+def test_declared_group_that_contradicts_the_cti_takes_the_worse():
     findings = by_code(CALC.run(record_with({"grade": "basic", "material_group": "I", "cti": 175, "creepage": "5 mm", "clearance": "3 mm"})))
-    assert "does not fall in that group" in findings["ISO-INPUTS"].explanation
-    # the declared group is used: IEC 60664-1:2020 Table F.5 PD2 group I 1.25 mm, raised to the 1.5 mm clearance
-    assert findings["ISO-CREEPAGE"].limit.quantity.to("mm").magnitude == pytest.approx(1.5)
+    assert "the worse of the two, group IIIa" in findings["ISO-INPUTS"].explanation
+    # IEC 60664-1:2020 clause 4.8.1.3 (from memory): CTI 175 is group IIIa; Table F.5 PD2 group III at 250 V: 2.5 mm
+    assert findings["ISO-CREEPAGE"].limit.quantity.to("mm").magnitude == pytest.approx(2.5)
+    assert extra(findings["ISO-CREEPAGE"], "material group") == "IIIa"
 
 
 def test_beyond_the_tables_is_not_assessed_rather_than_guessed():
     findings = by_code(CALC.run(record_with({"grade": "basic", "material_group": "I", "creepage": "5 mm", "clearance": "3 mm"},
                                             environment={"altitude": "9000 m"})))
-    assert findings["ISO-CLEARANCE"].verdict is Verdict.NOT_ASSESSED
+    # IEC 60664-1:2020 Table A.2 ends at 8000 m: nothing is extrapolated, and the barrier blocks power-up
+    assert findings["ISO-CLEARANCE"].verdict is Verdict.NOT_ASSESSED and findings["ISO-CLEARANCE"].blocks_power_up
     assert "not assessed" in findings["ISO-CLEARANCE"].title
     assert "Table A.2" in findings["ISO-CLEARANCE"].explanation
-    # creepage is still judged, without a clearance floor: IEC 60664-1:2020 Table F.5 PD2 group I 1.25 mm
-    assert findings["ISO-CREEPAGE"].limit.quantity.to("mm").magnitude == pytest.approx(1.25)
 
 
 def test_a_working_voltage_above_the_table_is_not_assessed():
     barrier = {"grade": "basic", "material_group": "I", "working_voltage": "1200 V", "creepage": "5 mm", "clearance": "3 mm"}
     findings = by_code(CALC.run(record_with(barrier)))
-    assert findings["ISO-CREEPAGE"].verdict is Verdict.NOT_ASSESSED
+    # IEC 60664-1:2020 Table F.5 ends at 1000 V (the rows held here)
+    assert findings["ISO-CREEPAGE"].verdict is Verdict.NOT_ASSESSED and findings["ISO-CREEPAGE"].blocks_power_up
+    assert "not assessed" in findings["ISO-CREEPAGE"].title
     assert "Table F.5" in findings["ISO-CREEPAGE"].explanation
 
 
-def test_interpolated_values_are_flagged_for_checking():
+def test_a_reading_between_rows_is_named_with_the_key_to_change_it():
     findings = by_code(CALC.run(record_with({"grade": "reinforced", "material_group": "II", "creepage": "8 mm", "clearance": "8 mm"},
                                             {"nominal": "120 V", "overvoltage_category": "II"})))
-    assert "from memory, to verify" in findings["ISO-CLEARANCE"].explanation
+    assert "next row up" in findings["ISO-CLEARANCE"].explanation
+    assert "table_interpolation" in findings["ISO-CLEARANCE"].explanation
+    assert extra(findings["ISO-CLEARANCE"], "Table F.2 reading") == "next row up"
 
 
 def test_altitude_above_2000_m_is_stated():
     findings = by_code(CALC.run(record_with({"grade": "basic", "material_group": "I", "creepage": "5 mm", "clearance": "3 mm"},
                                             environment={"altitude": "2500 m"})))
-    assert "factor 1.07" in findings["ISO-CLEARANCE"].explanation
-    assert "interpolated" in findings["ISO-CLEARANCE"].explanation
+    # IEC 60664-1:2020 Table A.2: 2500 m lies between 2000 m (1.00) and 3000 m (1.14); the next row up is taken
+    assert "factor 1.14" in findings["ISO-CLEARANCE"].explanation
+    assert extra(findings["ISO-CLEARANCE"], "Table A.2 reading") == "next row up"
 
 
 def test_the_narrowest_credited_slot_is_judged():
