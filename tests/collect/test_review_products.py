@@ -82,7 +82,7 @@ def test_a_record_whose_calc_crashes_still_builds_with_a_calc_error_finding(tmp_
 
     monkeypatch.setattr(fuse, "input_current", crash)  # the protection calc, and the fuse choice, fail on this record
     archive = charger_archive(tmp_path / "archive", "A")
-    result = CliRunner().invoke(main, ["build", str(archive), "-o", str(tmp_path / "site"), "--pages-only", "--no-cache", "-q"])
+    result = CliRunner().invoke(main, ["build", str(archive), "-o", str(tmp_path / "site"), "--pages-only", "--no-cache", "--no-pdf", "-q"])
     assert result.exception is None or isinstance(result.exception, SystemExit), result.output
     assert result.exit_code == 0, result.output
     checklist = next((tmp_path / "site").rglob("checklist.md")).read_text(encoding="utf-8")
