@@ -9,8 +9,6 @@ from __future__ import annotations
 
 import datetime
 import hashlib
-import os
-import tempfile
 from dataclasses import dataclass
 from pathlib import Path
 
@@ -18,6 +16,7 @@ import yaml
 from pydantic import BaseModel, ConfigDict, Field, ValidationError
 
 from dossier.reading.archive import RevisionFile, build_dirs, load_revision, revision_files, revision_order
+from dossier.files import write_whole
 from dossier.problems import InputError, Location, Problem
 from dossier.reading.yaml_source import dotted, read_document
 
@@ -101,17 +100,7 @@ def save_ledger(archive: Path, ledger: Ledger) -> Path:
     """Write published.yaml atomically: a crash leaves the old file whole."""
     path = archive / LOCK_FILE
     body = yaml.safe_dump(ledger.model_dump(mode="json"), sort_keys=True, allow_unicode=True, default_flow_style=False)
-    handle, temporary = tempfile.mkstemp(dir=archive, prefix=".published-", suffix=".tmp")
-    try:
-        with os.fdopen(handle, "w", encoding="utf-8", newline="\n") as stream:
-            stream.write(HEADER + body)
-            stream.flush()
-            os.fsync(stream.fileno())  # on disk before it takes the old file's place
-        os.replace(temporary, path)
-    except BaseException:
-        Path(temporary).unlink(missing_ok=True)
-        raise
-    return path
+    return write_whole(path, HEADER + body)
 
 
 def frozen_problems(archive: Path, ledger: Ledger) -> list[Problem]:

@@ -5,7 +5,7 @@ from __future__ import annotations
 import inspect
 from dataclasses import dataclass, field
 from importlib.metadata import entry_points
-from typing import Callable, Iterable
+from typing import Callable, Iterable, Mapping
 
 from dossier.findings import Finding
 
@@ -18,17 +18,29 @@ class Calc:
 
     name    short stable name, also the entry-point name
     title   heading for reports and pages
-    run     record -> iterable of Finding; no file access, no global state
-    summary one paragraph for the docs
-    codes   every finding code it may emit, with a one-line meaning (documented automatically)
+    run      record -> iterable of Finding, or a CalcResult (findings plus products); no file access, no global state
+    summary  one paragraph for the docs
+    codes    every finding code it may emit, with a one-line meaning (documented automatically)
+    products every product it may hand on to later stages (charts, the checklist), with a one-line meaning
     """
 
     name: str
     title: str
-    run: Callable[..., Iterable[Finding]]
+    run: Callable[..., Iterable[Finding] | "CalcResult"]
     summary: str
     codes: dict[str, str] = field(default_factory=dict)
     order: int = 100
+    products: dict[str, str] = field(default_factory=dict)
+
+
+class CalcResult(list):
+    """What a calc's run may return instead of bare findings: the findings (it is the list of them, so code that
+    reads a calc's findings works either way), with the products computed on the way that later stages use as
+    they are (a curve to draw, a part to fit) instead of computing them again."""
+
+    def __init__(self, findings: Iterable[Finding] = (), products: Mapping[str, object] | None = None):
+        super().__init__(findings)
+        self.products = dict(products or {})
 
 
 class PluginError(Exception):
@@ -51,7 +63,16 @@ def validate(name: str, obj) -> Calc:
     _check_signature(name, obj.run)
     if not obj.codes:
         raise PluginError(name, "declares no finding codes")
+    _check_products(name, obj.products)
     return obj
+
+
+def _check_products(name: str, products) -> None:
+    if not isinstance(products, Mapping):
+        raise PluginError(name, f"its products must map each product's name to its meaning, found {type(products).__name__}")
+    for key, meaning in products.items():
+        if not (isinstance(key, str) and key and isinstance(meaning, str) and meaning):
+            raise PluginError(name, f"product {key!r} needs a non-empty name and a one-line meaning")
 
 
 def _check_signature(name: str, run) -> None:

@@ -2,7 +2,7 @@
 
 from __future__ import annotations
 
-from dataclasses import dataclass, field
+from dataclasses import dataclass
 
 
 @dataclass(frozen=True, order=True)
@@ -37,17 +37,3 @@ class InputError(Exception):
     def __init__(self, problems: list[Problem]):
         super().__init__(f"{len(problems)} problem(s)")
         self.problems = sorted(problems, key=lambda p: p.location)
-
-
-@dataclass
-class ProblemList:
-    """Collects problems so that a whole file is checked in one pass."""
-
-    problems: list[Problem] = field(default_factory=list)
-
-    def add(self, code: str, location: Location, **details) -> None:
-        self.problems.append(Problem(code, location, **details))
-
-    def raise_if_any(self) -> None:
-        if self.problems:
-            raise InputError(self.problems)

@@ -176,7 +176,7 @@ def test_a_failed_write_of_the_ledger_keeps_the_old_file_and_leaves_no_temporary
     def disk_full(*args):
         raise OSError(28, "No space left on device")
 
-    monkeypatch.setattr("dossier.ledger.os.fsync", disk_full)
+    monkeypatch.setattr("dossier.files.os.fsync", disk_full)
     with pytest.raises(OSError):
         save_ledger(archive, amend(archive, Target.parse("amp:A"), "typo in the notes", LATER))
     assert (archive / LOCK_FILE).read_bytes() == before

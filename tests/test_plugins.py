@@ -6,8 +6,8 @@ import pytest
 
 from tests.fixtures.entry_points import FakeEntryPoint
 from dossier.findings import Finding, Verdict
-from dossier.plugins import Calc, PluginError, load_calcs
-from dossier.review import review
+from dossier.plugins import Calc, CalcResult, PluginError, load_calcs
+from dossier.review import review, run_review
 
 
 def good_run(record):
@@ -34,6 +34,10 @@ def test_a_valid_third_party_calc_loads():
         (FakeEntryPoint("other", GOOD), "its Calc is named 'demo'; the entry point and the Calc must share one name"),
         (FakeEntryPoint("demo", Calc("demo", "D", lambda a, b: [], "s", {"X": "x"})), "run must take exactly one argument (the record), takes 2"),
         (FakeEntryPoint("demo", Calc("demo", "D", good_run, "s", {})), "declares no finding codes"),
+        (FakeEntryPoint("demo", Calc("demo", "D", good_run, "s", {"X": "x"}, products=["curve"])),
+         "its products must map each product's name to its meaning, found list"),
+        (FakeEntryPoint("demo", Calc("demo", "D", good_run, "s", {"X": "x"}, products={"curve": ""})),
+         "product 'curve' needs a non-empty name and a one-line meaning"),
     ],
 )
 def test_a_broken_plugin_is_named_at_load_time(point, reason):
@@ -70,3 +74,47 @@ def test_the_cli_names_a_broken_plugin_without_a_traceback(monkeypatch):
     result = CliRunner().invoke(main, ["check", str(DEMO / "sw-charger-12v" / "rev-A.yaml")])
     assert result.exit_code == 3
     assert "Error: calc plugin 'broken': could not be loaded: ImportError: no module named x" in result.output
+
+
+def producing_run(record):
+    return CalcResult(good_run(record), {"gap": 4.2})
+
+
+PRODUCER = Calc(name="producer", title="Producer", run=producing_run, summary="s", codes={"DEMO-OK": "fine"},
+                products={"gap": "a number later stages use"})
+
+
+def test_a_third_party_calc_hands_on_products_beside_its_findings():
+    reviewed = run_review(object(), [PRODUCER, GOOD])
+    assert [f.code for f in reviewed.findings] == ["DEMO-OK", "DEMO-OK"]
+    assert reviewed.product("producer", "gap") == 4.2
+    assert reviewed.product("demo", "gap") is None  # a calc of findings alone hands on nothing
+    assert list(producing_run(None)) == good_run(None)  # read as findings, a CalcResult is its findings
+
+
+def test_an_undeclared_product_is_reported_and_not_handed_on():
+    sloppy = Calc("producer", "Producer", producing_run, "s", {"DEMO-OK": "fine"})
+    reviewed = run_review(object(), [sloppy])
+    assert [f.code for f in reviewed.findings] == ["DEMO-OK", "CALC-ERROR"]
+    assert "handed on undeclared products gap" in reviewed.findings[1].explanation
+    assert reviewed.product("producer", "gap") is None
+
+
+def test_a_crashed_calc_hands_on_no_product():
+    def crash(record):
+        raise ZeroDivisionError("division by zero")
+
+    crashing = Calc("producer", "Producer", crash, "s", {"DEMO-OK": "fine"}, products={"gap": "g"})
+    reviewed = run_review(object(), [crashing])
+    assert [f.code for f in reviewed.findings] == ["CALC-ERROR"] and reviewed.products == {}
+
+
+def test_the_code_and_product_names_calcs_export_are_the_ones_they_declare():
+    from dossier.calcs import charge, isolation, magnetics, protection, thermal
+
+    exported = {isolation: (isolation.CLEARANCE, isolation.CREEPAGE), protection: (protection.FUSE_RECOMMENDED,),
+                thermal: (thermal.JUNCTION, thermal.HEATSINK), magnetics: (magnetics.TEMP_RISE,)}
+    for module, codes in exported.items():
+        assert set(codes) <= set(module.CALC.codes), f"{module.__name__} exports a code its calc does not declare"
+    assert charge.CURVE in charge.CALC.products and protection.FUSE in protection.CALC.products
+    assert (charge.NAME, protection.NAME) == (charge.CALC.name, protection.CALC.name)

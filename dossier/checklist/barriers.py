@@ -4,11 +4,12 @@ from __future__ import annotations
 
 from dossier.checklist.general import INSULATION_MINIMUM, INSULATION_TEST_VOLTAGE
 from dossier.checklist.items import Item, Origin, Phase, at_least, slug
+from dossier.calcs.isolation import CLEARANCE, CREEPAGE
 from dossier.citations import DIN_EN_50678
 from dossier.findings import common_practice
 from dossier.units import fmt
 
-DISTANCE_CODES = {"clearance": "ISO-CLEARANCE", "creepage": "ISO-CREEPAGE"}
+DISTANCE_CODES = {"clearance": CLEARANCE, "creepage": CREEPAGE}
 HOW_TO_MEASURE = {
     "clearance": "the shortest path through air between the two sides",
     "creepage": "the shortest path along insulating surfaces between the two sides, around slots and over barriers",

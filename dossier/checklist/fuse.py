@@ -2,7 +2,7 @@
 
 from __future__ import annotations
 
-from dossier.calcs.protection import recommended_fuse
+from dossier.calcs.protection import FUSE, FUSE_RECOMMENDED, NAME as PROTECTION
 from dossier.checklist.items import Item, Origin, Phase
 from dossier.findings import common_practice
 from dossier.standards.fuses import marking
@@ -19,16 +19,17 @@ def declared_text(fuse) -> str:
     return text
 
 
-def fuse_item(record, findings) -> list[Item]:
+def fuse_item(record, review) -> list[Item]:
+    """The fuse the protection calc recommends (its product, never computed again here), beside the declared one."""
     if record.mains is None:
         return []
     declared = record.protection.fuse
-    choice = recommended_fuse(record)
+    choice = review.product(PROTECTION, FUSE)
     if choice is None or choice.rating is None:
         return [_declared_only(declared)] if declared is not None else [_no_fuse()]
     if declared is not None and choice.declared_fits:
-        return [_declared_passes(declared, choice, _sources(findings))]
-    return [_recommended(declared, choice, _sources(findings))]
+        return [_declared_passes(declared, choice, _sources(review.findings))]
+    return [_recommended(declared, choice, _sources(review.findings))]
 
 
 def _declared_passes(declared, choice, sources) -> Item:
@@ -46,7 +47,7 @@ def _declared_passes(declared, choice, sources) -> Item:
 
 
 def _sources(findings) -> tuple:
-    finding = next((f for f in findings if f.code == "PROT-FUSE-RECOMMENDED"), None)
+    finding = next((f for f in findings if f.code == FUSE_RECOMMENDED), None)
     return finding.sources if finding is not None else ()
 
 

@@ -7,7 +7,7 @@ from pathlib import Path
 
 from dossier.checklist.load import Commissioning, commissioning_path, load_commissioning
 from dossier.checklist.outcome import Summary, outcomes, summarise
-from dossier.checklist.sheet import build_checklist
+from dossier.checklist.sheet import Checklist
 from dossier.checklist.status import ShownStatus, effective_status
 from dossier import markup
 
@@ -47,18 +47,17 @@ class CommissioningState:
         return "Not passed: " + "; ".join(parts) + "."
 
 
-def load_for_revision(loaded, findings) -> Commissioning | None:
+def load_for_revision(loaded, checklist: Checklist) -> Commissioning | None:
     """The commissioning file beside a loaded record, validated against its checklist; None when there is none."""
     path = commissioning_path(loaded.path.parent, loaded.record.revision)
     if path is None:
         return None
     shown = str(Path(loaded.sources.file).parent / path.name)  # named the way the record itself is shown
-    return load_commissioning(path, build_checklist(loaded.record, findings), shown_as=shown)
+    return load_commissioning(path, checklist, shown_as=shown)
 
 
-def commissioning_state(loaded, findings, commissioning: Commissioning | None = None) -> CommissioningState:
+def commissioning_state(loaded, checklist: Checklist, commissioning: Commissioning | None = None) -> CommissioningState:
     if commissioning is None:
         return CommissioningState(None, None, effective_status(loaded.record.status))
-    checklist = build_checklist(loaded.record, findings)
     summary = summarise(checklist, outcomes(checklist, commissioning))
     return CommissioningState(commissioning, summary, effective_status(loaded.record.status, summary, commissioning.entry.date))

@@ -7,7 +7,7 @@ from functools import lru_cache
 
 import jinja2
 
-from dossier.checklist.sheet import build_checklist
+from dossier.checklist.sheet import Checklist
 from dossier.checklist.view import SheetView, sheet_view
 from dossier import markup
 from dossier.templates import templates_dir
@@ -32,21 +32,20 @@ def _environment(autoescape: bool) -> jinja2.Environment:
     return env
 
 
-def view_for(loaded, findings, commissioning=None) -> SheetView:
-    checklist = build_checklist(loaded.record, findings)
+def view_for(loaded, checklist: Checklist, commissioning=None) -> SheetView:
     return sheet_view(checklist, loaded.record.status, commissioning)
 
 
-def checklist_markdown(loaded, findings, commissioning=None, *, print_links: dict[str, str] | None = None) -> str:
+def checklist_markdown(loaded, checklist: Checklist, commissioning=None, *, print_links: dict[str, str] | None = None) -> str:
     """The site page's Markdown body. print_links maps a label ('A4 PDF') to the printable sheet's address."""
-    text = _environment(False).get_template("page.md.j2").render(v=view_for(loaded, findings, commissioning), links=print_links or {})
+    text = _environment(False).get_template("page.md.j2").render(v=view_for(loaded, checklist, commissioning), links=print_links or {})
     return re.sub(r"\n{3,}", "\n\n", text).strip() + "\n"
 
 
-def checklist_html(loaded, findings, paper: str = "a4", commissioning=None) -> str:
+def checklist_html(loaded, checklist: Checklist, paper: str = "a4", commissioning=None) -> str:
     """A standalone printable page: its own print CSS, no site navigation."""
     if paper not in PAPER:
         raise ValueError(f"paper must be one of {', '.join(PAPER)}, not {paper!r}")
     css = (templates_dir() / "checklist" / "print.css").read_text(encoding="utf-8")
     template = _environment(True).get_template("sheet.html.j2")
-    return template.render(v=view_for(loaded, findings, commissioning), page_size=PAPER[paper], css=jinja2.utils.markupsafe.Markup(css))
+    return template.render(v=view_for(loaded, checklist, commissioning), page_size=PAPER[paper], css=jinja2.utils.markupsafe.Markup(css))

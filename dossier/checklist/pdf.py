@@ -3,8 +3,9 @@
 from __future__ import annotations
 
 import hashlib
-import os
 from pathlib import Path
+
+from dossier.files import write_whole
 
 SYSTEM_PACKAGES = "libpango-1.0-0 libpangoft2-1.0-0 fonts-dejavu-core"
 RENDER_VERSION = "checklist-pdf-1"  # raise when the PDF output changes for the same HTML
@@ -31,15 +32,6 @@ def no_fetching(weasyprint):
     return weasyprint.urls.URLFetcher(allowed_protocols=())
 
 
-def write_pdf(html: str, path: Path) -> Path:
-    """Render one standalone HTML page to a PDF file; returns the path written."""
-    weasyprint = _renderer()
-    path = Path(path)
-    path.parent.mkdir(parents=True, exist_ok=True)
-    weasyprint.HTML(string=html, base_url=str(path.parent), url_fetcher=no_fetching(weasyprint)).write_pdf(str(path))
-    return path
-
-
 class PdfCache:
     """Finished PDFs by the sha256 of their HTML: an unchanged sheet is never rendered twice."""
 
@@ -55,9 +47,7 @@ class PdfCache:
             return path.read_bytes()
         data = render_pdf(html)
         path.parent.mkdir(parents=True, exist_ok=True)
-        partial = path.with_suffix(f".{os.getpid()}.part")
-        partial.write_bytes(data)
-        os.replace(partial, path)
+        write_whole(path, data)
         return data
 
 
@@ -71,19 +61,3 @@ def _pdf_bytes(weasyprint, html: str) -> bytes:
     document.metadata.created = None
     document.metadata.modified = None
     return document.write_pdf()
-
-
-def pdf_name(build: str, revision: str, paper: str) -> str:
-    """'checklist-sw-charger-12v-rev-C-a4.pdf'."""
-    return f"checklist-{build}-rev-{revision}-{paper}.pdf"
-
-
-def write_checklist_pdfs(loaded, findings, folder: Path, commissioning=None) -> dict[str, Path]:
-    """The sheet on A4 and on US Letter, for the site build; returns paper -> path."""
-    from dossier.checklist.page import PAPER, checklist_html
-
-    record = loaded.record
-    return {
-        paper: write_pdf(checklist_html(loaded, findings, paper, commissioning), Path(folder) / pdf_name(record.id, record.revision, paper))
-        for paper in PAPER
-    }

@@ -8,7 +8,8 @@ from dossier.caution import POWER_UP_CAUTION
 from dossier.checklist import barriers, general, output_items, soak
 from dossier.checklist.fuse import fuse_item
 from dossier.checklist.items import Item, Phase
-from dossier.findings import Finding, Verdict
+from dossier.findings import Finding
+from dossier.review import Review
 
 
 @dataclass(frozen=True)
@@ -36,22 +37,24 @@ class Checklist:
         return [phase for phase in Phase if self.in_phase(phase)]
 
 
-def build_checklist(record, findings: list[Finding]) -> Checklist:
+def build_checklist(record, review: Review) -> Checklist:
+    """The checklist from the record and its review; made once per revision and handed to every page and sheet."""
     return Checklist(
         build=record.id,
         revision=record.revision,
         title=record.title,
         caution=POWER_UP_CAUTION,
-        blockers=tuple(f for f in findings if f.blocks_power_up),
-        items=tuple(_ordered(all_items(record, findings))),
+        blockers=tuple(f for f in review.findings if f.blocks_power_up),
+        items=tuple(_ordered(all_items(record, review))),
     )
 
 
-def all_items(record, findings) -> list[Item]:
+def all_items(record, review: Review) -> list[Item]:
     """Every item, listed in the order they are done within a phase."""
+    findings = review.findings
     return [
         general.visual_inspection(record),
-        *fuse_item(record, findings),
+        *fuse_item(record, review),
         *general.earth_continuity(record),
         general.insulation_to_metal(record),
         general.insulation_to_output(record),

@@ -9,6 +9,8 @@ from __future__ import annotations
 
 from dataclasses import dataclass
 
+from dossier.calcs.magnetics import TEMP_RISE
+from dossier.calcs.thermal import HEATSINK, JUNCTION
 from dossier.checklist.items import Item, Origin, Phase, at_least, at_most, slug
 from dossier.findings import common_practice
 from dossier.units import Q_, fmt
@@ -78,7 +80,7 @@ def _rise_item(ref: str, what: str, estimate, limit: RiseLimit | None) -> Item:
 
 
 def _magnetic(part, by_code) -> Item:
-    finding = by_code.get(("MAG-TEMP-RISE", part.ref))
+    finding = by_code.get((TEMP_RISE, part.ref))
     estimate = finding.value.quantity if finding is not None and finding.value is not None else None
     limit = None
     if finding is not None and finding.limit is not None:
@@ -87,7 +89,7 @@ def _magnetic(part, by_code) -> Item:
 
 
 def _heatsink(sink, record, by_code) -> Item:
-    finding = by_code.get(("THERM-HEATSINK", sink.ref))
+    finding = by_code.get((HEATSINK, sink.ref))
     ambient = record.environment.max_ambient
     estimate = _rise(finding.value.quantity, ambient) if finding is not None and finding.value is not None else None
     limits = [_touch_limit(finding, ambient)] + [_junction_limit(device, finding, ambient, by_code) for device in _devices_on(record, sink)]
@@ -113,7 +115,7 @@ def _touch_limit(finding, ambient) -> RiseLimit | None:
 
 def _junction_limit(device, sink_finding, ambient, by_code) -> RiseLimit | None:
     """The sink temperature at which the device's junction reaches its limit, from the thermal estimate's drop."""
-    junction = by_code.get(("THERM-JUNCTION", device.ref))
+    junction = by_code.get((JUNCTION, device.ref))
     if junction is None or junction.limit is None or junction.value is None or sink_finding is None or sink_finding.value is None:
         return None
     drop = junction.value.quantity.to("degC").magnitude - sink_finding.value.quantity.to("degC").magnitude

@@ -16,7 +16,8 @@ from dossier.ledger import Ledger, Publication, frozen_problems, load_ledger
 from dossier.plugins import Calc, load_calcs
 from dossier.problems import InputError, Location, Problem
 from dossier.reading.record import LoadedRecord
-from dossier.review import review
+from dossier.review import Review, run_review
+from dossier.checklist.sheet import Checklist, build_checklist
 from dossier.signoff.revision import revision_signoffs
 from dossier.signoff.state import SignoffState
 from dossier.collect.caches import Caches
@@ -32,10 +33,15 @@ CHECKLIST_SHEETS = {"a4": "checklist-a4.html", "letter": "checklist-letter.html"
 class Revision:
     file: RevisionFile
     loaded: LoadedRecord
-    findings: list[Finding]
+    review: Review
+    checklist: Checklist
     extras: Extras
     publication: Publication | None
     signoff: SignoffState
+
+    @property
+    def findings(self) -> list[Finding]:
+        return list(self.review.findings)
 
     @property
     def record(self):
@@ -135,8 +141,9 @@ def _collect_build(archive: Archive, folder: Path, cache, problems: list[Problem
 
 def _collect_revision(archive: Archive, rev: RevisionFile, cache) -> Revision:
     loaded = load_revision(rev, shown_as=f"{rev.build_id}/{rev.path.name}")
-    findings = review(loaded.record, archive.calcs)
-    signoff = revision_signoffs(loaded, findings)
+    review = run_review(loaded.record, archive.calcs)
+    signoff = revision_signoffs(loaded, review.findings)
+    checklist = build_checklist(loaded.record, review)
     caches = cache or Caches()
-    extras = revision_extras(loaded, findings, caches.drawings, CHECKLIST_SHEETS, caches.pdfs)
-    return Revision(rev, loaded, findings, extras, archive.ledger.entry(rev.build_id, rev.letter), signoff)
+    extras = revision_extras(loaded, review, checklist, caches.drawings, CHECKLIST_SHEETS, caches.pdfs)
+    return Revision(rev, loaded, review, checklist, extras, archive.ledger.entry(rev.build_id, rev.letter), signoff)

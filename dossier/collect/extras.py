@@ -12,11 +12,14 @@ from dataclasses import dataclass, field
 from xml.etree import ElementTree
 
 from dossier.checklist.overview import CommissioningState, commissioning_state, load_for_revision
+from dossier.calcs.charge import CURVE, NAME as CHARGE
 from dossier.checklist.page import checklist_html, checklist_markdown
+from dossier.checklist.sheet import Checklist
 from dossier.drawing.charts.charge import figures as charge_figures
 from dossier.drawing.figure import Figure
 from dossier.drawing.schematics import draw
 from dossier.findings import Finding
+from dossier.review import Review
 
 # An SVG shown on the site must not carry script: it can be opened on its own, outside an <img>.
 ACTIVE_ELEMENTS = frozenset({"script", "foreignobject", "iframe", "embed", "object", "handler", "listener"})
@@ -36,11 +39,13 @@ class Extras:
     failures: list[str] = field(default_factory=list)
 
 
-def revision_extras(loaded, findings: list[Finding], cache=None, print_links=None, pdf_cache=None) -> Extras:
+def revision_extras(loaded, review: Review, checklist: Checklist, cache=None, print_links=None, pdf_cache=None) -> Extras:
+    """Drawings from the review's findings, the chart from its products, and the pages of the one checklist."""
     extras = Extras()
-    _attempt(extras, "schematics", lambda: _schematics(extras, loaded.record, findings, cache))
-    _attempt(extras, "charge chart", lambda: extras.figures.extend(charge_figures(loaded.record)))
-    _checklist(extras, loaded, findings, print_links or {}, pdf_cache)
+    curve = review.product(CHARGE, CURVE)
+    _attempt(extras, "schematics", lambda: _schematics(extras, loaded.record, list(review.findings), cache))
+    _attempt(extras, "charge chart", lambda: extras.figures.extend(charge_figures(loaded.record, curve)))
+    _checklist(extras, loaded, checklist, print_links or {}, pdf_cache)
     extras.figures = _safe_figures(extras)
     return extras
 
@@ -58,14 +63,14 @@ def _schematics(extras: Extras, record, findings, cache) -> None:
     extras.notes.extend(result.notes)
 
 
-def _checklist(extras: Extras, loaded, findings, print_links: dict[str, str], pdf_cache) -> None:
+def _checklist(extras: Extras, loaded, checklist: Checklist, print_links: dict[str, str], pdf_cache) -> None:
     """The checklist page, its printable sheets and PDFs, and the commissioning record (an invalid one stops the build)."""
-    commissioning = load_for_revision(loaded, findings)
-    extras.commissioning = commissioning_state(loaded, findings, commissioning)
-    extras.sheets = {paper: checklist_html(loaded, findings, paper, commissioning) for paper in print_links}
+    commissioning = load_for_revision(loaded, checklist)
+    extras.commissioning = commissioning_state(loaded, checklist, commissioning)
+    extras.sheets = {paper: checklist_html(loaded, checklist, paper, commissioning) for paper in print_links}
     if pdf_cache is not None:
         _attempt(extras, "checklist PDF", lambda: extras.pdfs.update({p: pdf_cache.pdf_of(html) for p, html in extras.sheets.items()}))
-    extras.checklist = checklist_markdown(loaded, findings, commissioning, print_links=_print_labels(print_links, extras.pdfs) or None)
+    extras.checklist = checklist_markdown(loaded, checklist, commissioning, print_links=_print_labels(print_links, extras.pdfs) or None)
 
 
 def _print_labels(print_links: dict[str, str], pdfs: dict[str, bytes]) -> dict[str, str]:

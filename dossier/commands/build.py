@@ -22,7 +22,7 @@ from dossier.output.atomic import OutputRefused, check_output, swap_in
 from dossier.collect.caches import user_caches
 from dossier.collect.archive import Archive, Build, each_build, open_archive
 from dossier.output.fingerprint import marker_text, render_inputs, still_current
-from dossier.output.lock import building
+from dossier.output.lock import building, real_output
 from dossier.pages.tree import TreeSummary, write_tree
 from dossier.render.mkdocs_run import RenderError, run_mkdocs, source_epoch, write_config
 
@@ -54,6 +54,7 @@ def build_site(archive: Path, output: Path, *, pages_only: bool = False, calcs=N
     reuse, a site already rendered from the same page tree, and untouched since, is kept without rendering.
     """
     started = time.perf_counter()
+    output = real_output(output)
     check_output(output, archive)
     opened, problems = open_archive(archive, calcs)
     with building(output) as work:

@@ -8,11 +8,11 @@ from pathlib import Path
 
 from dossier.reading.archive import expand, load_revision
 from dossier.caution import MAINS_CAUTION
-from dossier.findings import Finding, Verdict
+from dossier.findings import Finding
 from dossier.plugins import load_calcs
 from dossier.problems import InputError
 from dossier.report import json_report, text_report
-from dossier.review import review
+from dossier.review import run_review
 
 EXIT_CLEAN, EXIT_FAILED, EXIT_INVALID = 0, 1, 2
 
@@ -52,14 +52,14 @@ def _check_one(rev, calcs, outcome: Outcome, verbose: bool) -> None:
         outcome.blocks.extend(text_report.problem_block(error.problems))
         outcome.json.append(json_report.invalid_json(str(rev.path), error.problems))
         return
-    findings = review(loaded.record, calcs)
+    reviewed = run_review(loaded.record, calcs)
+    findings = list(reviewed.findings)
     outcome.failed |= any(f.blocks_power_up for f in findings)
     title = f"{rev.path}  ({loaded.record.id} rev {loaded.record.revision}: {loaded.record.title})"
     outcome.blocks.extend(text_report.record_block(title, findings, loaded.locate, verbose))
     outcome.json.append(json_report.record_json(str(rev.path), findings, loaded.locate))
-    _check_commissioning(loaded, findings, outcome)
+    _check_commissioning(loaded, reviewed, outcome)
     _check_signoffs(loaded, findings, outcome)
-
 
 def _check_signoffs(loaded, findings, outcome: Outcome) -> None:
     """Sign-off files beside the record are validated like the record, and judged against its findings."""
@@ -76,18 +76,21 @@ def _check_signoffs(loaded, findings, outcome: Outcome) -> None:
     outcome.blocks.append("  sign-off: " + signoff_line(state))
 
 
-def _check_commissioning(loaded, findings, outcome: Outcome) -> None:
-    """A commissioning file beside the record is validated like the record itself."""
+def _check_commissioning(loaded, reviewed, outcome: Outcome) -> None:
+    """A commissioning file beside the record is validated like the record itself, against the checklist the
+    build makes from the same review (built once here, as there)."""
     from dossier.checklist.overview import commissioning_state, load_for_revision
+    from dossier.checklist.sheet import build_checklist
 
+    checklist = build_checklist(loaded.record, reviewed)
     try:
-        commissioning = load_for_revision(loaded, findings)
+        commissioning = load_for_revision(loaded, checklist)
     except InputError as error:
         outcome.invalid = True
         outcome.blocks.extend(text_report.problem_block(error.problems))
         return
     if commissioning is not None:
-        outcome.blocks.append("  commissioning: " + commissioning_state(loaded, findings, commissioning).overview_text())
+        outcome.blocks.append("  commissioning: " + commissioning_state(loaded, checklist, commissioning).overview_text())
 
 
 def render(outcome: Outcome, as_json: bool) -> str:

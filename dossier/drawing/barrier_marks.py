@@ -3,17 +3,16 @@ verdict from the isolation findings (codes ISO-CREEPAGE and ISO-CLEARANCE, subje
 
 from __future__ import annotations
 
+from dossier.calcs.isolation import CLEARANCE, CREEPAGE, NAME as ISOLATION
 from dossier.drawing.views import BarrierView, quantity_text
 from dossier.findings import Finding, worst
 
-CREEPAGE_CODE = "ISO-CREEPAGE"
-CLEARANCE_CODE = "ISO-CLEARANCE"
 NOT_CHECKED = "not checked"
 NOT_ASSESSED = "not assessed"
 
 
 def barrier_view(barrier, findings) -> BarrierView:
-    own = [f for f in findings if f.subject == barrier.name and f.code.startswith("ISO-")]
+    own = [f for f in findings if f.subject == barrier.name and f.calc == ISOLATION]
     return BarrierView(
         name=barrier.name,
         grade=barrier.grade,
@@ -21,8 +20,8 @@ def barrier_view(barrier, findings) -> BarrierView:
         parts=tuple(barrier.parts),
         creepage=quantity_text(barrier.creepage),
         clearance=quantity_text(barrier.clearance),
-        creepage_required=_required(own, CREEPAGE_CODE),
-        clearance_required=_required(own, CLEARANCE_CODE),
+        creepage_required=_required(own, CREEPAGE),
+        clearance_required=_required(own, CLEARANCE),
         verdict=verdict_text(own),
     )
 

@@ -10,10 +10,10 @@ from __future__ import annotations
 import dataclasses
 import hashlib
 import json
-import os
-import tempfile
 from pathlib import Path
 from typing import Callable
+
+from dossier.files import write_whole
 
 # Raise when any drawer changes what it draws, so old drawings are not served from a cache.
 DRAWER_VERSION = "schematics-1"
@@ -67,10 +67,7 @@ class DrawingCache:
     def _write(self, key: str, svg: str) -> None:
         target = self.path(key)
         target.parent.mkdir(parents=True, exist_ok=True)
-        handle, temporary = tempfile.mkstemp(dir=target.parent, suffix=".tmp")
-        with os.fdopen(handle, "w", encoding="utf-8") as stream:
-            stream.write(svg)
-        os.replace(temporary, target)
+        write_whole(target, svg)
 
 
 class NoCache:

@@ -48,8 +48,9 @@ def text_height(text: str, size: float = FONT_SIZE) -> float:
 
 
 def add(drawing: schemdraw.Drawing, element):
-    """Add an element; one not given a direction is drawn upright, whatever was drawn before it."""
-    if not isinstance(element, elm.Element2Term) and "theta" not in element._userparams:
+    """Add an element; one not given a direction is drawn upright, whatever was drawn before it.
+    (Before it is added, an element's params hold only what it was given and its own defaults.)"""
+    if not isinstance(element, elm.Element2Term) and "theta" not in element.params:
         element.theta(0)
     drawing.add(element)
     return element

@@ -27,8 +27,9 @@ def reviewed_calcs():
 
 
 @lru_cache(maxsize=1)
-def demo_findings():
-    return list(_demo_findings())
+def demo_findings() -> tuple:
+    """(name, loaded record, calc, finding) for every finding of the reviewed calcs on every demo revision."""
+    return tuple(_demo_findings())
 
 
 def _demo_findings():
@@ -36,7 +37,20 @@ def _demo_findings():
         loaded = load_revision(RevisionFile(build, revision, DEMO / build / f"rev-{revision}.yaml"))
         for calc in reviewed_calcs():
             for finding in calc.run(loaded.record):
-                yield pytest.param(loaded, calc, finding, id=f"{build}-{revision}-{finding.code}-{finding.subject}")
+                yield f"{build}-{revision}-{finding.code}-{finding.subject}", loaded, calc, finding
+
+
+def assert_each_finding(check) -> None:
+    """Run check(loaded, calc, finding) on every demo finding; fail naming each finding that broke it, and why."""
+    found = demo_findings()
+    assert found, "the demo revisions gave no findings to check"
+    broken = []
+    for name, loaded, calc, finding in found:
+        try:
+            check(loaded, calc, finding)
+        except (AssertionError, LookupError) as error:
+            broken.append(f"{name}: {type(error).__name__}: {error}".rstrip(": "))
+    assert not broken, f"{len(broken)} of {len(found)} findings:\n" + "\n".join(broken)
 
 
 def walk(record, path):
@@ -61,8 +75,11 @@ def test_every_code_is_documented_on_the_calcs_page(calc):
     assert not missing, f"docs/calcs/{calc.name}.md does not list {missing}"
 
 
-@pytest.mark.parametrize("loaded, calc, finding", demo_findings())
-def test_finding_is_declared_and_cites_a_source(loaded, calc, finding):
+def test_every_finding_is_declared_and_cites_a_source():
+    assert_each_finding(declared_and_cited)
+
+
+def declared_and_cited(loaded, calc, finding):
     assert finding.code in calc.codes
     assert finding.calc == calc.name
     assert finding.sources, "every finding names where its rule comes from"
@@ -70,8 +87,11 @@ def test_finding_is_declared_and_cites_a_source(loaded, calc, finding):
         assert finding.method, "a judged finding names its formula"
 
 
-@pytest.mark.parametrize("loaded, calc, finding", demo_findings())
-def test_keys_exist_and_the_first_locates_the_finding(loaded, calc, finding):
+def test_every_findings_keys_exist_and_the_first_locates_it():
+    assert_each_finding(keys_locate)
+
+
+def keys_locate(loaded, calc, finding):
     assert finding.keys
     for key in finding.keys:
         walk(loaded.record, key)
@@ -82,8 +102,11 @@ def test_keys_exist_and_the_first_locates_the_finding(loaded, calc, finding):
         assert first[:-1] in loaded.sources or first[:-2] in loaded.sources
 
 
-@pytest.mark.parametrize("loaded, calc, finding", demo_findings())
-def test_explanation_does_not_repeat_the_comparison(loaded, calc, finding):
+def test_no_explanation_repeats_the_comparison():
+    assert_each_finding(comparison_not_repeated)
+
+
+def comparison_not_repeated(loaded, calc, finding):
     # the comparison and margin text come from dossier.wording; a calc's explanation adds to them
     comparison, margin = comparison_text(finding), margin_text(finding)
     if finding.limit is not None:

@@ -85,20 +85,20 @@ def test_a_commissioning_that_did_not_pass_leaves_the_status_alone():
 
 
 def test_the_overview_says_who_powered_it_up_and_when():
-    loaded, findings = demo("sw-charger-12v", "C")
-    state = commissioning_state(loaded, list(findings), commissioning_of("sw-charger-12v", "C"))
+    loaded, _ = demo("sw-charger-12v", "C")
+    state = commissioning_state(loaded, checklist_of("sw-charger-12v", "C"), commissioning_of("sw-charger-12v", "C"))
     assert state.overview_markdown() == (
         "Powered up on **2026-05-12** by **Tamsin Okonkwo-Reyes**, witnessed by **Desmond Achterberg**. "
         "Every checklist item was done and in range. Status shown: **In its enclosure, commissioned 2026-05-12**.")
-    loaded, findings = demo("bench-psu-13v8", "A")
-    state = commissioning_state(loaded, list(findings), commissioning_of("bench-psu-13v8", "A"))
+    loaded, _ = demo("bench-psu-13v8", "A")
+    state = commissioning_state(loaded, checklist_of("bench-psu-13v8", "A"), commissioning_of("bench-psu-13v8", "A"))
     assert "Not passed: 1 value out of range." in state.overview_markdown()
-    assert commissioning_state(*demo("rotator-control", "A")).overview_markdown() == ""
+    assert commissioning_state(demo("rotator-control", "A")[0], checklist_of("rotator-control", "A")).overview_markdown() == ""
 
 
 def test_the_page_shows_the_checklist_as_filled_in_and_flags_the_value_out_of_range():
-    loaded, findings = demo("bench-psu-13v8", "A")
-    text = checklist_markdown(loaded, list(findings), commissioning_of("bench-psu-13v8", "A"))
+    loaded, _ = demo("bench-psu-13v8", "A")
+    text = checklist_markdown(loaded, checklist_of("bench-psu-13v8", "A"), commissioning_of("bench-psu-13v8", "A"))
     assert "Powered up on **2025-11-20** by **Desmond Achterberg**, witnessed by **Priya Vanterpool**" in text
     assert "Commissioning not passed" in text
     assert "<strong>soak-hs1</strong>: Temperature rise of heatsink HS1, measured 33.5 K, expected at most 30 K" in text
@@ -109,7 +109,7 @@ def test_the_page_shows_the_checklist_as_filled_in_and_flags_the_value_out_of_ra
 
 
 def test_a_status_advanced_on_the_page_names_the_records_own():
-    loaded, findings = demo("sw-charger-12v", "C")
-    text = checklist_markdown(with_record(loaded, status="on-bench"), list(findings), commissioning_of("sw-charger-12v", "C"))
+    loaded, _ = demo("sw-charger-12v", "C")
+    text = checklist_markdown(with_record(loaded, status="on-bench"), checklist_of("sw-charger-12v", "C"), commissioning_of("sw-charger-12v", "C"))
     assert "Status shown: **Commissioned 2026-05-12** (the record says on-bench; a passed commissioning advances it)." in text
     assert "Commissioning passed" in text

@@ -5,7 +5,7 @@ from __future__ import annotations
 import pytest
 from tests.fixtures.checklists import DEMO_REVISIONS, checklist_of, demo
 
-from dossier.calcs.protection import recommended_fuse
+from dossier.calcs.protection import FUSE, NAME as PROTECTION
 from dossier.checklist.items import Expected, Origin, Phase
 from dossier.checklist.output_items import e12_at_most, resistor_rating
 from dossier.checklist.sheet import build_checklist
@@ -67,10 +67,10 @@ def test_insulation_resistance_minimums_and_test_voltage():
 
 
 def test_a_class_ii_unit_has_no_earth_item_and_the_higher_insulation_minimum():
-    loaded, findings = demo("sw-charger-12v", "C")
+    loaded, reviewed = demo("sw-charger-12v", "C")
     protection = loaded.record.protection.model_copy(update={"earth": Earth(protective_class="II", enclosure="plastic")})
     record = loaded.record.model_copy(update={"protection": protection})
-    checklist = build_checklist(record, list(findings))
+    checklist = build_checklist(record, reviewed)
     assert checklist.item("pe-continuity") is None
     # DIN EN 50678:2021: class II at least 2.0 MOhm at 500 V DC.
     assert checklist.item("insulation-mains-metal").expected.low == Q_(2.0, "megaohm")
@@ -79,8 +79,8 @@ def test_a_class_ii_unit_has_no_earth_item_and_the_higher_insulation_minimum():
 
 def test_a_declared_fuse_that_passes_is_the_one_to_fit():
     # demo rev C declares T2A, which passes every protection check; the smallest that would do is smaller
-    loaded, _ = demo("sw-charger-12v", "C")
-    choice = recommended_fuse(loaded.record)
+    _, reviewed = demo("sw-charger-12v", "C")
+    choice = reviewed.product(PROTECTION, FUSE)
     assert choice.declared_fits
     entry = item("sw-charger-12v", "C", "mains-fuse")
     assert entry.title == "Mains fuse F1: fit T2A"
@@ -90,8 +90,8 @@ def test_a_declared_fuse_that_passes_is_the_one_to_fit():
 
 def test_a_declared_fuse_that_fails_gives_way_to_the_recommendation():
     # demo rev A declares F1A fast-acting glass, which blows at every switch-on
-    loaded, _ = demo("sw-charger-12v", "A")
-    choice = recommended_fuse(loaded.record)
+    _, reviewed = demo("sw-charger-12v", "A")
+    choice = reviewed.product(PROTECTION, FUSE)
     assert not choice.declared_fits
     entry = item("sw-charger-12v", "A", "mains-fuse")
     fit = marking(choice.rating, choice.speed)
@@ -103,10 +103,10 @@ def test_a_declared_fuse_that_fails_gives_way_to_the_recommendation():
 
 @pytest.mark.parametrize("build, revision", DEMO_REVISIONS)
 def test_clearance_and_creepage_at_every_barrier_come_from_the_isolation_findings(build, revision):
-    loaded, findings = demo(build, revision)
+    loaded, reviewed = demo(build, revision)
     for barrier in loaded.record.barriers:
         for kind, code in (("clearance", "ISO-CLEARANCE"), ("creepage", "ISO-CREEPAGE")):
-            finding = next(f for f in findings if f.code == code and f.subject == barrier.name)
+            finding = next(f for f in reviewed.findings if f.code == code and f.subject == barrier.name)
             entry = next(i for i in checklist_of(build, revision).items if i.key.startswith(kind) and f"'{barrier.name}'" in i.title)
             assert entry.expected.low == finding.limit.quantity
             assert entry.unit == "mm"
@@ -204,11 +204,11 @@ def test_capacitors_to_bleed_and_their_peak_voltage():
 
 
 def test_a_chargers_own_current_limit_and_compensation_are_used():
-    loaded, findings = demo("sw-charger-12v", "C")
+    loaded, reviewed = demo("sw-charger-12v", "C")
     output = loaded.record.output
     battery = output.battery.model_copy(update={"charge_current": Q_(4, "A"), "compensation": Q_(-18, "mV/K")})
     record = loaded.record.model_copy(update={"output": output.model_copy(update={"battery": battery})})
-    checklist = build_checklist(record, list(findings))
+    checklist = build_checklist(record, reviewed)
     current = checklist.item("output-current")
     assert current.title == "Charge current limit, 4 A"
     assert current.expected.contains(Q_(4.05, "A")) and not current.expected.contains(Q_(6, "A"))
@@ -217,11 +217,11 @@ def test_a_chargers_own_current_limit_and_compensation_are_used():
 
 
 def test_a_live_tab_without_a_pad_makes_the_heatsink_live():
-    loaded, findings = demo("sw-charger-12v", "C")
+    loaded, reviewed = demo("sw-charger-12v", "C")
     devices = loaded.record.devices
     bare = [d.model_copy(update={"insulated": False}) if d.ref == "Q1" else d for d in devices.semiconductors]
     record = loaded.record.model_copy(update={"devices": devices.model_copy(update={"semiconductors": bare})})
-    checklist = build_checklist(record, list(findings))
+    checklist = build_checklist(record, reviewed)
     live = checklist.item("tab-isolation-q1")
     assert live.title == "Heatsink HS1 is live through Q1's tab"
     assert not live.measured

@@ -11,13 +11,14 @@ from tests.fixtures.checklists import DEMO_REVISIONS, checklist_of, commissionin
 from dossier.caution import POWER_UP_CAUTION
 from dossier.checklist.outcome import outcomes, summarise
 from dossier.checklist.page import checklist_html, checklist_markdown
+from dossier.checklist.sheet import build_checklist
 from dossier.findings import Verdict
 from dossier.record.insulation import Barrier
 
 
 def page(build, revision, commissioning=None, **kwargs) -> str:
-    loaded, findings = demo(build, revision)
-    return checklist_markdown(loaded, list(findings), commissioning, **kwargs)
+    loaded, _ = demo(build, revision)
+    return checklist_markdown(loaded, checklist_of(build, revision), commissioning, **kwargs)
 
 
 @pytest.mark.parametrize("build, revision", DEMO_REVISIONS)
@@ -30,11 +31,11 @@ def test_every_page_opens_with_the_caution_and_lists_every_item(build, revision)
 
 @pytest.mark.parametrize("build, revision", DEMO_REVISIONS)
 def test_a_failing_finding_blocks_the_power_up(build, revision):
-    _, findings = demo(build, revision)
-    failing = [f for f in findings if f.verdict is Verdict.FAIL]
+    _, reviewed = demo(build, revision)
+    failing = [f for f in reviewed.findings if f.verdict is Verdict.FAIL]
     checklist = checklist_of(build, revision)
     assert checklist.blocked == bool(failing)
-    text, sheet = page(build, revision), checklist_html(*demo(build, revision)[:1], list(findings))
+    text, sheet = page(build, revision), checklist_html(demo(build, revision)[0], checklist)
     if failing:
         assert "Do not power up" in text and "Do not power up" in sheet
         for finding in failing:
@@ -71,32 +72,34 @@ def test_print_links_are_offered_when_given():
 
 
 def test_record_text_cannot_inject_markup():
-    loaded, findings = demo("sw-charger-12v", "C")
+    loaded, reviewed = demo("sw-charger-12v", "C")
     barrier = loaded.record.barriers[0].model_dump()
     hostile = Barrier.model_validate({**barrier, "name": "<script>alert(1)</script> *gap*"})
     changed = with_record(loaded, barriers=[hostile], title="<b>bold</b> title")
-    text = checklist_markdown(changed, list(findings))
+    checklist = build_checklist(changed.record, reviewed)
+    text = checklist_markdown(changed, checklist)
     assert "<script>" not in text and "<b>bold</b>" not in text
     assert "&lt;script&gt;" in text
-    sheet = checklist_html(changed, list(findings))
+    sheet = checklist_html(changed, checklist)
     assert "<script>" not in sheet and "&lt;script&gt;alert(1)&lt;/script&gt;" in sheet
 
 
 def test_the_printable_sheet_has_no_site_navigation_and_sets_the_paper():
-    loaded, findings = demo("bench-psu-13v8", "A")
-    a4, letter = checklist_html(loaded, list(findings), "a4"), checklist_html(loaded, list(findings), "letter")
+    loaded, _ = demo("bench-psu-13v8", "A")
+    checklist = checklist_of("bench-psu-13v8", "A")
+    a4, letter = checklist_html(loaded, checklist, "a4"), checklist_html(loaded, checklist, "letter")
     assert "@page { size: A4; }" in a4 and "@page { size: letter; }" in letter
     for sheet in (a4, letter):
         assert not re.search(r"<(nav|script|link|iframe)\b", sheet)
         assert "break-inside: avoid" in sheet
         assert sheet.count('<section class="item') == len(checklist_of("bench-psu-13v8", "A").items)
     with pytest.raises(ValueError, match="paper must be one of a4, letter"):
-        checklist_html(loaded, list(findings), "legal")
+        checklist_html(loaded, checklist, "legal")
 
 
 def test_the_blank_sheet_has_sign_off_lines_for_every_item():
-    loaded, findings = demo("rotator-control", "A")
-    sheet = checklist_html(loaded, list(findings))
+    loaded, _ = demo("rotator-control", "A")
+    sheet = checklist_html(loaded, checklist_of("rotator-control", "A"))
     items = len(checklist_of("rotator-control", "A").items)
     assert sheet.count("Done by <span class=\"line\"></span> date") == items
     assert sheet.count("Witness <span class=\"line\"></span> date") == items

@@ -160,7 +160,7 @@ def test_build_command_reports_what_it_wrote(tmp_path, monkeypatch):
     write_record(archive, "amp", "A")
     monkeypatch.setattr("dossier.plugins.load_calcs", lambda points=None: [TEST_CALC])
     monkeypatch.setattr("dossier.collect.archive.load_calcs", lambda: [TEST_CALC])
-    result = CliRunner().invoke(main, ["build", str(archive), "-o", str(tmp_path / "out"), "--pages-only", "--no-cache"])
+    result = CliRunner().invoke(main, ["build", str(archive), "-o", str(tmp_path / "out"), "--pages-only", "--no-cache", "--no-pdf"])
     assert result.exit_code == 0, result.output
     assert "wrote the page tree of 1 build" in result.output
     assert (tmp_path / "out" / "builds" / "amp" / "index.md").is_file()
@@ -180,10 +180,11 @@ def test_a_long_build_shows_progress_on_standard_error(tmp_path, monkeypatch):
     for number in range(20):
         write_record(archive, f"unit-{number:02d}", "A")
     monkeypatch.setattr("dossier.collect.archive.load_calcs", lambda: [TEST_CALC])
-    result = CliRunner().invoke(main, ["build", str(archive), "-o", str(tmp_path / "out"), "--pages-only", "--no-cache"])
+    command = ["build", str(archive), "-o", str(tmp_path / "out"), "--pages-only", "--no-cache", "--no-pdf"]  # progress only: no PDFs
+    result = CliRunner().invoke(main, command)
     assert result.exit_code == 0, result.output
     assert "reviewing builds" in result.stderr
-    quiet = CliRunner().invoke(main, ["build", str(archive), "-o", str(tmp_path / "out"), "--pages-only", "--no-cache", "--quiet"])
+    quiet = CliRunner().invoke(main, command + ["--quiet"])
     assert quiet.exit_code == 0 and "reviewing builds" not in quiet.stderr
 
 

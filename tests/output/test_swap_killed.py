@@ -129,3 +129,33 @@ def test_leftovers_of_other_outputs_and_other_files_are_never_touched(tmp_path):
     with output_lock(output):
         recover_leftovers(output)
     assert all(path.is_dir() for path in kept) and not stale.exists()
+
+
+def test_an_output_given_through_a_link_is_locked_as_its_target_and_the_link_is_kept(tmp_path):
+    from dossier.output.atomic import OutputRefused
+
+    archive = tmp_path / "archive"
+    write_record(archive, "amp")
+    site = tmp_path / "site"
+    build_site(archive, site, pages_only=True)
+    link = tmp_path / "site-link"
+    link.symlink_to(site)
+    with output_lock(site):
+        with pytest.raises(OutputRefused, match="another dossier build is writing"):
+            build_site(archive, link, pages_only=True)  # the same folder, named through a link
+    build_site(archive, link, pages_only=True)
+    assert link.is_symlink() and link.resolve() == site.resolve(), "the link is not replaced by a folder"
+    assert any(site.rglob("index.md")), "the site was built in the link's target"
+
+
+def test_a_lock_file_that_is_a_link_is_never_followed(tmp_path):
+    from dossier.output.atomic import OutputRefused
+    from dossier.output.lock import lock_path
+
+    output, victim = tmp_path / "site", tmp_path / "victim.txt"
+    victim.write_text("mine", encoding="utf-8")
+    lock_path(output).symlink_to(victim)
+    with pytest.raises(OutputRefused, match="is a symbolic link"):
+        with output_lock(output):
+            pass
+    assert victim.read_text(encoding="utf-8") == "mine" and lock_path(output).is_symlink()

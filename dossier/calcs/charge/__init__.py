@@ -12,12 +12,15 @@ from dossier.calcs.charge.curve import charge_current, charge_curve, compensated
 from dossier.calcs.charge.temperature import compensation_finding
 from dossier.calcs.charge.windows import judge_window, tolerance_band
 from dossier.findings import Finding, Measure, Verdict, judge
-from dossier.plugins import Calc
+from dossier.plugins import Calc, CalcResult
 from dossier.standards.battery import Chemistry, Window
 from dossier.standards.chemistries import chemistry
 from dossier.units import Q_, fmt
 
-__all__ = ["CALC", "charge_curve", "run"]
+__all__ = ["CALC", "CURVE", "charge_curve", "run"]
+
+NAME = "charge"
+CURVE = "curve"  # product: the ChargeCurve the time estimate was made from, for the chart
 
 BATTERY = ("output", "battery")
 WINDOW_METHOD = (
@@ -61,13 +64,14 @@ def charger_of(record) -> Charger | None:
     return Charger(output, output.battery, chemistry(output.battery.chemistry))
 
 
-def run(record) -> list[Finding]:
+def run(record) -> CalcResult:
     charger = charger_of(record)
     if charger is None:
-        return []
+        return CalcResult([])
+    curve = charge_curve(record)
     found = [setpoint_finding(charger), float_finding(charger), compensation_finding(charger),
-             current_finding(charger), rating_finding(charger), time_finding(record)]
-    return [finding for finding in found if finding is not None]
+             current_finding(charger), rating_finding(charger), time_finding(record, curve)]
+    return CalcResult([finding for finding in found if finding is not None], {CURVE: curve})
 
 
 def _temperature_note(charger) -> str:
@@ -218,8 +222,7 @@ def rating_finding(charger) -> Finding | None:
     )
 
 
-def time_finding(record) -> Finding:
-    curve = charge_curve(record)
+def time_finding(record, curve) -> Finding:
     plan, result = curve.plan, curve.estimate
     chem = chemistry(record.output.battery.chemistry)
     return Finding(
@@ -265,7 +268,7 @@ CODES = {
 }
 
 CALC = Calc(
-    name="charge",
+    name=NAME,
     title="Charge profile",
     run=run,
     summary=(
@@ -275,4 +278,5 @@ CALC = Calc(
     ),
     codes=CODES,
     order=60,
+    products={CURVE: "the sampled CC-then-CV charge curve (time, voltage, current) behind CHG-TIME"},
 )

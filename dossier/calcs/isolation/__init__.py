@@ -38,6 +38,9 @@ INPUTS_SOURCE = replace(IEC_60664_1, clause=(
     "Table F.1 (rated impulse voltage); Table F.3 (rationalised voltage); material groups by comparative tracking "
     "index (clause 4.8.1.3, clause number from memory)"))
 
+CLEARANCE = "ISO-CLEARANCE"
+CREEPAGE = "ISO-CREEPAGE"
+
 CODES = {
     "ISO-INPUTS": "what the barrier's requirements were derived from: working voltage, impulse voltage, material group",
     "ISO-CLEARANCE": "declared clearance against the clearance IEC 60664-1 requires",

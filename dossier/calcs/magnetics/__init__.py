@@ -10,6 +10,8 @@ from dossier.calcs.magnetics.windings import (
 )
 from dossier.plugins import Calc
 
+TEMP_RISE = "MAG-TEMP-RISE"
+
 CODES = {
     "MAG-CORE": "Effective area, path length, volume, window, mean turn and A_L of a core (IEC 60205 for a toroid).",
     "MAG-RATIO": "Turns ratio of a winding to the driven one, and its peak voltage at low, nominal and high line.",

@@ -12,9 +12,13 @@ from dossier.calcs.protection.fuse import FuseChoice, fuse_findings, recommended
 from dossier.calcs.protection.inrush import inrush_findings
 from dossier.calcs.protection.limiter import limiter_findings
 from dossier.calcs.protection.output import output_findings
-from dossier.plugins import Calc
+from dossier.plugins import Calc, CalcResult
 
-__all__ = ["CALC", "FuseChoice", "recommended_fuse", "run"]
+__all__ = ["CALC", "FUSE", "FUSE_RECOMMENDED", "FuseChoice", "recommended_fuse", "run"]
+
+NAME = "protection"
+FUSE_RECOMMENDED = "PROT-FUSE-RECOMMENDED"
+FUSE = "fuse"  # product: the FuseChoice, for the checklist's mains-fuse item
 
 CHECKS = (fuse_findings, inrush_findings, limiter_findings, earth_findings, output_findings)
 
@@ -40,15 +44,15 @@ CODES = {
 }
 
 
-def run(record) -> list:
+def run(record) -> CalcResult:
     findings = []
     for check in CHECKS:
         findings.extend(check(record))
-    return findings
+    return CalcResult(findings, {FUSE: recommended_fuse(record)} if record.mains is not None else {})
 
 
 CALC = Calc(
-    name="protection",
+    name=NAME,
     title="Protection",
     run=run,
     summary=(
@@ -58,4 +62,5 @@ CALC = Calc(
     ),
     codes=CODES,
     order=20,
+    products={FUSE: "the mains fuse to fit (rating, speed, melting I^2 t) and whether the declared one does"},
 )

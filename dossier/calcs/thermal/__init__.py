@@ -13,6 +13,9 @@ from dossier.findings import Finding, Measure, Verdict, common_practice
 from dossier.plugins import Calc
 from dossier.units import fmt
 
+JUNCTION = "THERM-JUNCTION"
+HEATSINK = "THERM-HEATSINK"
+
 NAME = "thermal"
 PAD_RANGES = common_practice("insulating pads about 1-4 K/W, greased bare mount about 0.1-0.5 K/W (makers' pad listings)")
 RDS_RISE_PRACTICE = common_practice(

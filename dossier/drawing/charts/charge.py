@@ -9,7 +9,7 @@ from __future__ import annotations
 
 from dataclasses import dataclass
 
-from dossier.calcs.charge.curve import ChargeCurve, charge_curve
+from dossier.calcs.charge.curve import ChargeCurve
 from dossier.drawing.charts.labels import free_row
 from dossier.drawing.charts.scale import Scale, at_most, fixed_intervals
 from dossier.drawing.figure import Figure
@@ -54,15 +54,14 @@ def axes_for(curve: ChargeCurve) -> Axes:
     )
 
 
-def charge_chart_svg(record) -> str | None:
-    """The chart as a complete SVG document, or None when the output is not a charger."""
-    curve = charge_curve(record)
+def charge_chart_svg(record, curve: ChargeCurve | None) -> str | None:
+    """The chart of the charge calc's curve as a complete SVG document, or None when there is no curve."""
     return None if curve is None else draw(record, curve)
 
 
-def figures(record) -> list[Figure]:
-    """The charge-curve figure for the site's charge section; none for other outputs."""
-    curve = charge_curve(record)
+def figures(record, curve: ChargeCurve | None) -> list[Figure]:
+    """The charge-curve figure for the site's charge section, drawn from the curve the charge calc handed on;
+    none when the output is not a charger or the calc could not make one."""
     if curve is None:
         return []
     return [Figure(key="charge-curve", title=_title(record, curve), svg=draw(record, curve), section="charge")]

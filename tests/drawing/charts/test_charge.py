@@ -17,6 +17,11 @@ from dossier.drawing.svg_writer import SvgWriter, id_safe, number
 SVG = "{http://www.w3.org/2000/svg}"
 
 
+def chart(record) -> str | None:
+    """The chart drawn from the curve the charge calc computes for the record."""
+    return charge_chart_svg(record, charge_curve(record))
+
+
 def parsed(svg: str):
     return ElementTree.fromstring(svg.encode("utf-8"))
 
@@ -27,7 +32,7 @@ def texts(root) -> list[str]:
 
 @pytest.fixture(scope="module")
 def demo_svg() -> str:
-    return charge_chart_svg(load_demo("sw-charger-12v", "C"))
+    return chart(load_demo("sw-charger-12v", "C"))
 
 
 def test_chart_is_well_formed_svg_with_a_title(demo_svg):
@@ -59,12 +64,12 @@ def test_ids_are_unique_and_belong_to_the_chart(demo_svg):
     ids = re.findall(r'\bid="([^"]+)"', demo_svg)
     assert ids and len(ids) == len(set(ids))
     assert all(i.startswith("charge-sw-charger-12v-rev-C-") for i in ids)
-    other = re.findall(r'\bid="([^"]+)"', charge_chart_svg(load_demo("sw-charger-12v", "B")))
+    other = re.findall(r'\bid="([^"]+)"', chart(load_demo("sw-charger-12v", "B")))
     assert not set(ids) & set(other)
 
 
 def test_output_is_deterministic(demo_svg):
-    assert charge_chart_svg(load_demo("sw-charger-12v", "C")) == demo_svg
+    assert chart(load_demo("sw-charger-12v", "C")) == demo_svg
 
 
 def test_curves_stay_inside_the_plot_area(demo_svg):
@@ -83,11 +88,12 @@ def test_tick_labels_cover_the_data():
 
 
 def test_figures_for_a_charger_and_for_other_builds():
-    [figure] = figures(load_demo("sw-charger-12v", "C"))
+    record = load_demo("sw-charger-12v", "C")
+    [figure] = figures(record, charge_curve(record))
     assert (figure.key, figure.section) == ("charge-curve", "charge")
     assert figure.svg.startswith("<?xml")
-    assert figures(load_demo("bench-psu-13v8")) == []
-    assert charge_chart_svg(load_demo("rotator-control")) is None
+    assert figures(load_demo("bench-psu-13v8"), None) == []
+    assert chart(load_demo("rotator-control")) is None
 
 
 @pytest.mark.parametrize("changes", [
@@ -97,12 +103,12 @@ def test_figures_for_a_charger_and_for_other_builds():
     {"chemistry": "gel", "absorption_voltage": "14.1 V", "capacity": "7 Ah", "charge_current": "1.4 A"},
 ], ids=["no-float", "nearly-full", "trickle", "small-gel"])
 def test_unusual_chargers_still_draw(changes):
-    root = parsed(charge_chart_svg(charger(**changes)))
+    root = parsed(chart(charger(**changes)))
     assert len(list(root.iter(f"{SVG}polyline"))) == 2
 
 
 def test_no_float_stage_is_labelled_as_the_end_of_charge():
-    assert "charge ended" in texts(parsed(charge_chart_svg(charger(float_voltage=DROP))))
+    assert "charge ended" in texts(parsed(chart(charger(float_voltage=DROP))))
 
 
 def test_fixed_intervals_give_round_covering_scales():
@@ -133,6 +139,6 @@ def test_writer_escapes_text_and_rounds_numbers():
 def test_a_long_heading_shrinks_to_fit_the_chart():
     long = charger(chemistry="flooded", capacity="110 Ah", charge_current="16.5 A", output={"current": "20 A"},
                    absorption_voltage="14.55 V", float_voltage="13.45 V", temperature="12.5 degC")
-    heading = next(parsed(charge_chart_svg(long)).iter(f"{SVG}text"))
-    demo_heading = next(parsed(charge_chart_svg(load_demo("sw-charger-12v", "C"))).iter(f"{SVG}text"))
+    heading = next(parsed(chart(long)).iter(f"{SVG}text"))
+    demo_heading = next(parsed(chart(load_demo("sw-charger-12v", "C"))).iter(f"{SVG}text"))
     assert float(heading.get("font-size")) < float(demo_heading.get("font-size")) <= 15

@@ -1,0 +1,29 @@
+"""Writing a file whole or not at all: the one way dossier replaces a file it keeps (ledger, caches)."""
+
+from __future__ import annotations
+
+import os
+import tempfile
+from pathlib import Path
+
+
+def write_whole(path: Path, content: str | bytes) -> Path:
+    """Write content to path so that a crash leaves the old file or the new one, never a part of either.
+
+    The content goes to a temporary file beside the target, is flushed to disk, and then takes the target's
+    place in one rename; a failed write removes the temporary file. Text is written as UTF-8 with the line
+    endings it has.
+    """
+    path = Path(path)
+    data = content.encode("utf-8") if isinstance(content, str) else content
+    handle, temporary = tempfile.mkstemp(dir=path.parent, prefix=f".{path.name}-", suffix=".tmp")
+    try:
+        with os.fdopen(handle, "wb") as stream:
+            stream.write(data)
+            stream.flush()
+            os.fsync(stream.fileno())  # on disk before it takes the old file's place
+        os.replace(temporary, path)
+    except BaseException:
+        Path(temporary).unlink(missing_ok=True)
+        raise
+    return path
