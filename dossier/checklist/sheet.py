@@ -10,6 +10,7 @@ from dossier.checklist.fuse import fuse_item
 from dossier.checklist.items import Item, Phase
 from dossier.findings import Finding
 from dossier.review import Review
+from dossier.wording import signoff_line
 
 
 @dataclass(frozen=True)
@@ -20,6 +21,8 @@ class Checklist:
     caution: str
     blockers: tuple[Finding, ...]
     items: tuple[Item, ...]
+    signoff: str = ""  # the sign-off state in words, e.g. 'cleared for first power-up, by ... on ...'
+    cleared: bool = False  # a current sign-off cleared the revision for first power-up
 
     @property
     def blocked(self) -> bool:
@@ -37,9 +40,12 @@ class Checklist:
         return [phase for phase in Phase if self.in_phase(phase)]
 
 
-def build_checklist(record, review: Review) -> Checklist:
-    """The checklist from the record and its review; made once per revision and handed to every page and sheet."""
+def build_checklist(record, review: Review, signoff=None) -> Checklist:
+    """The checklist from the record, its review and its sign-off state (dossier.signoff.state.SignoffState);
+    made once per revision and handed to every page and sheet."""
     return Checklist(
+        signoff=signoff_line(signoff) if signoff is not None else "",
+        cleared=signoff is not None and signoff.cleared_for_power_up,
         build=record.id,
         revision=record.revision,
         title=record.title,

@@ -90,6 +90,8 @@ class SheetView:
     status: ShownStatus
     filled: Filled | None = None
     commissioning_file: str = ""
+    signoff: str = ""
+    cleared: bool = False
 
 
 def sheet_view(checklist: Checklist, record_status: str, commissioning=None) -> SheetView:
@@ -105,6 +107,8 @@ def sheet_view(checklist: Checklist, record_status: str, commissioning=None) -> 
         status=effective_status(record_status, filled.summary, filled.date) if filled else effective_status(record_status),
         filled=filled,
         commissioning_file=f"commissioning-{checklist.revision}.yaml",
+        signoff=checklist.signoff or "not reviewed",
+        cleared=checklist.cleared,
     )
 
 

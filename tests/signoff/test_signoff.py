@@ -186,3 +186,22 @@ def test_the_sign_off_schema_describes_the_file(tmp_path):
     assert body["$schema"].endswith("2020-12/schema")
     assert set(body["required"]) >= {"build", "revision", "reviewer", "date", "reviewed_content", "clearance"}
     assert json.loads((ROOT / "docs" / "signoff.schema.json").read_text(encoding="utf-8")) == body, "regenerate docs/signoff.schema.json"
+
+
+def test_the_checklist_opens_with_not_cleared_or_names_the_sign_off_that_cleared(record, tmp_path):
+    from dossier.collect.archive import collect
+    from dossier.checklist.page import checklist_html, checklist_markdown
+
+    def sheets():
+        revision = collect(record.parent.parent).builds[0].current
+        return checklist_markdown(revision.loaded, revision.checklist), checklist_html(revision.loaded, revision.checklist)
+
+    page, sheet = sheets()
+    assert "Not cleared for first power-up" in page and "Sign-off: not reviewed" in page
+    assert "Not cleared for first power-up." in sheet
+    path, data = started(record)
+    data["clearance"] = "first-power-up"
+    save(path, accept_all(data))
+    page, sheet = sheets()
+    assert "Not cleared" not in page and "Signed off" in page
+    assert "cleared for first power-up, by Second Member" in page and "cleared for first power-up, by Second Member" in sheet
