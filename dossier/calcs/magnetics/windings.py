@@ -187,7 +187,7 @@ def _winding_temperature(ctx, rise):
     return make("MAG-WINDING-TEMP", ctx.ref, words.winding_temperature_title(ctx.ref), verdict,
                 values=(Measure("winding temperature", temperature),), limit=Measure(words.class_label(letter, limit), limit), relation="<=",
                 extra=(Measure("highest ambient", ambient), Measure("temperature rise", rise)),
-                method=words.winding_temperature_method(declared, letter),
+                method=words.winding_temperature_method(declared, letter), explanation="" if declared else words.CLASS_HINT,
                 keys=(ctx.key("insulation_class"), ("environment", "max_ambient")), sources=(IEC_60085, TEMPERATURE_RISE))
 
 

@@ -203,6 +203,10 @@ def winding_temperature_method(declared: bool, letter: str) -> str:
             f"so within 10 K of the class temperature is marginal) against the class temperature (IEC 60085); {how}")
 
 
+CLASS_HINT = ("No insulation class is declared, so class A (105 degC), the lowest in use, is taken. "
+              "Declare magnetics[].insulation_class (e.g. B for 130 degC) to judge against the winding's own class.")
+
+
 def class_label(letter: str, temperature) -> str:
     return f"thermal class {letter} ({fmt(temperature)})"
 
