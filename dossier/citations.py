@@ -14,18 +14,26 @@ IEC_60127_1 = Source(
 IEC_60205 = Source(
     title="IEC 60205, Calculation of the effective parameters of magnetic piece parts",
     publisher="International Electrotechnical Commission",
+    edition="edition 4.0, 2016",
+    clause="clause 5.1, ring cores: C1 = sum l/A, C2 = sum l/A^2, l_e = C1^2/C2, A_e = C1/C2, V_e = C1^3/C2^2 (sub-clause from memory)",
 )
 IEC_60028 = Source(
     title="IEC 60028, International standard of resistance for copper",
     publisher="International Electrotechnical Commission",
+    edition="edition 2, 1925",
+    clause="annealed copper at 20 degC: resistivity 1/58 ohm mm^2/m, temperature coefficient 0.00393 /K",
 )
 ASTM_B258 = Source(
     title="ASTM B258, Standard Specification for Standard Nominal Diameters and Cross-Sectional Areas of AWG Sizes of Solid Round Wires Used as Electrical Conductors",
     publisher="ASTM International",
+    edition="ASTM B258-18",
+    clause="Table 1, nominal diameters of AWG sizes: d = 0.005 in x 92^((36 - n) / 39) (formula from memory; AWG 18 and 26 confirmed)",
 )
 IEC_60317 = Source(
     title="IEC 60317 series, Specifications for particular types of winding wires",
     publisher="International Electrotechnical Commission",
+    edition="IEC 60317-0-1, edition 4.0, 2013 (edition from memory)",
+    clause="table of dimensions of enamelled round copper wire: maximum overall diameter by grade 1, 2 and 3 (values from memory)",
 )
 IEC_60384_14 = Source(
     title="IEC 60384-14, Fixed capacitors for use in electronic equipment - Part 14: Sectional specification - Fixed capacitors for electromagnetic interference suppression and connection to the supply mains",
@@ -40,6 +48,7 @@ BU_403 = Source(
     title="BU-403: Charging Lead Acid",
     publisher="Battery University (Cadex Electronics)",
     kind="reference",
+    clause="page 'BU-403: Charging Lead Acid' as published on batteryuniversity.com (page date not confirmed): absorption, float, compensation and charge-current figures",
 )
 IET_INSERVICE_COP = Source(
     title="Code of Practice for In-service Inspection and Testing of Electrical Equipment",
@@ -128,4 +137,24 @@ EN_50106 = Source(
     publisher="CENELEC",
     edition="2008",
     clause="Annex A.1, earth continuity test: at least 10 A from a source of no more than 12 V; at most 0.1 ohm plus the supply cord's resistance, or 0.2 ohm with the cord",
+)
+IGSE = Source(
+    title=("Accurate prediction of ferrite core loss with nonsinusoidal waveforms using only Steinmetz parameters "
+           "(K. Venkatachalam, C. R. Sullivan, T. Abdallah, H. Tacca)"),
+    publisher="IEEE Workshop on Computers in Power Electronics (COMPEL)",
+    edition="2002",
+    clause="improved generalised Steinmetz equation (iGSE): P_v = (1/T) integral k_i |dB/dt|^alpha (delta-B)^(beta - alpha) dt",
+    kind="reference",
+)
+IEC_60085 = Source(
+    title="IEC 60085, Electrical insulation - Thermal evaluation and designation",
+    publisher="International Electrotechnical Commission",
+    edition="edition 4.0, 2007",
+    clause="Table 1, thermal classes: 105 (A), 120 (E), 130 (B), 155 (F), 180 (H), 200 (N), 220 (R) degC",
+)
+BU_410 = Source(
+    title="BU-410: Charging at High and Low Temperatures",
+    publisher="Battery University (Cadex Electronics)",
+    clause="Table 1, permissible charge temperatures: lead-acid -20 to 50 degC (from memory; page date not confirmed)",
+    kind="reference",
 )

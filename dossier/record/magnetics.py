@@ -49,8 +49,17 @@ class CoreMaterial(Section):
     steinmetz: Steinmetz | None = Field(None, description="Steinmetz parameters for core loss, from the maker's loss curves.")
     max_temperature: Temperature | None = Field(None, description="Highest temperature the core (and its winding) may reach.")
     max_field: FieldStrength | None = Field(None, description="Highest DC field strength N I / l_e the material takes before its permeability falls too far, e.g. 4000 A/m.")
+    remanence: FluxDensity | None = Field(None, description="Remanent flux density B_r at the hot temperature, from the maker's data; a unipolar drive's flux starts there. "
+                                                           "When not given: 0.2 T for ferrite and iron powder, 1.0 T for silicon steel (harsher; from memory).")
 
     _positive = field_validator("saturation_flux", "max_field")(_positive)
+
+    @field_validator("remanence")
+    @classmethod
+    def _not_negative(cls, value):
+        if value is not None and value.magnitude < 0:
+            raise _bad("value_out_of_range", "zero or more", _text(value))
+        return value
 
 
 class Core(Section):
@@ -64,6 +73,9 @@ class Core(Section):
     mean_turn_length: Length | None = Field(None, description="Mean length of one turn (declared cores; a toroid's is computed).")
     surface_area: Area | None = Field(None, description="Outside surface of the wound component, for the temperature-rise estimate (declared cores).")
     al: InductanceFactor | None = Field(None, description="Inductance factor A_L, e.g. 2500 nH (per turn squared).")
+    configuration: Literal["pot", "powder", "lamination", "c-core", "single-coil", "tape-wound"] | None = Field(
+        None, description="Core configuration as McLyman tabulates it, for the current-density limit J = K_j A_p^x. When not given: "
+                          "a ferrite or powder toroid is 'powder', a steel toroid 'tape-wound', a declared core the lowest K_j of the table (harsher).")
     material: CoreMaterial = Field(description="The core material's magnetic limits and losses.")
 
     _positive = field_validator(
@@ -89,7 +101,14 @@ class Core(Section):
 
 
 class Excitation(Section):
-    waveform: Literal["square", "sine"] = Field(description="square (bipolar, as from a bridge) or sine.")
+    waveform: Literal["square", "sine"] = Field(description="square (bipolar, as from a bridge, unless polarity says unipolar) or sine.")
+    polarity: Literal["bipolar", "unipolar"] = Field(
+        "bipolar", description="Square wave only: bipolar (plus and minus, as from a bridge) or unipolar (one direction, reset "
+                               "between pulses, as in a forward converter).")
+    supply: Literal["mains", "fixed"] | None = Field(
+        None, description="mains: the voltage is taken from the bus rectified from the mains, declared at nominal line, and scales "
+                          "with the mains tolerance; fixed: it does not follow the mains. When not given and the record has mains, "
+                          "mains is taken (harsher).")
     voltage: Voltage = Field(description="Amplitude for a square wave, RMS for a sine, across the winding named.")
     frequency: Frequency = Field(description="Switching or mains frequency of the drive.")
     winding: str = Field("", description="Winding the voltage is across; default the first.")
@@ -138,6 +157,9 @@ class Magnetic(Section):
     frequency: Frequency | None = Field(None, description="Operating frequency when the excitation is derived from the converter stage, e.g. 40 kHz.")
     cooling: Literal["natural", "forced-air"] = Field("natural", description="natural (convection) or forced-air (a fan blows on it).")
     excitation: Excitation | None = Field(None, description="Declared drive: waveform, voltage, frequency (and the winding it is across).")
+    insulation_class: Literal["A", "E", "B", "F", "H", "N", "R"] | None = Field(
+        None, description="Thermal class of the winding insulation system (IEC 60085): A 105, E 120, B 130, F 155, H 180, N 200, "
+                          "R 220 degC. When not given, class A (105 degC) is taken (harsher).")
 
     _positive = field_validator("frequency")(_positive)
 

@@ -59,6 +59,9 @@ class Chemistry:
     compensation      acceptable temperature coefficient of the setpoints per cell (V/K, both negative)
     typical_compensation  the coefficient used to move the windows with battery temperature
     charge_rate       constant-current limit as a fraction of capacity per hour (1/h, i.e. C-rate)
+    charge_temperature  battery temperatures (degC) it may be charged at, or None when not known; the windows
+                      move with temperature only inside it
+    valve_regulated   sealed (AGM, gel): charged hot it can run away thermally
     """
 
     key: str
@@ -70,6 +73,8 @@ class Chemistry:
     typical_compensation: object
     charge_rate: Window
     curve: CurveModel
+    charge_temperature: Window | None = None
+    valve_regulated: bool = False
 
     def absorption_at(self, temperature) -> Window:
         return self.absorption.shifted(self.drift(temperature))
@@ -78,8 +83,15 @@ class Chemistry:
         return self.float_charge.shifted(self.drift(temperature)) if self.float_charge else None
 
     def drift(self, temperature):
-        """How far the per-cell windows move from their 25 degC values at this battery temperature."""
-        return self.typical_compensation * kelvin_from_reference(temperature)
+        """How far the per-cell windows move from their 25 degC values, the temperature held inside the charging range."""
+        return self.typical_compensation * kelvin_from_reference(self.clamped(temperature))
+
+    def clamped(self, temperature):
+        """The temperature held inside the charging range: beyond it the windows (and a charger's compensation) stop."""
+        if self.charge_temperature is None:
+            return temperature
+        low, high = self.charge_temperature.low.to("degC"), self.charge_temperature.high.to("degC")
+        return min(max(temperature.to("degC"), low), high)
 
 
 def kelvin_from_reference(temperature):

@@ -8,7 +8,7 @@ the makers' charging guides named beside them, recalled from memory; the sources
 
 from __future__ import annotations
 
-from dossier.citations import BU_403, GEL_VRLA_HANDBOOK, LINDEN_BATTERIES, TROJAN_USERS_GUIDE, YUASA_NP_MANUAL
+from dossier.citations import BU_403, BU_410, GEL_VRLA_HANDBOOK, LINDEN_BATTERIES, TROJAN_USERS_GUIDE, YUASA_NP_MANUAL
 from dossier.findings import common_practice
 from dossier.standards.battery import Chemistry, CurveModel, Window
 from dossier.units import Q_
@@ -27,6 +27,12 @@ TYPICAL_COMPENSATION = Q_(-3, "mV/K")  # per cell, BU-403
 def compensation(*sources) -> Window:
     """Per cell: makers go up to -5 mV/K; BU-403 gives about -3 mV/K, taken down to -2.5 for its rounding."""
     return Window(Q_(-5, "mV/K"), Q_(-2.5, "mV/K"), (BU_403, *sources))
+
+
+# Charging temperature range of lead-acid: -20 to 50 degC (BU-410, Table 1; from memory). Makers' guides for valve-regulated
+# batteries give about the same upper end and warn that charging hot invites thermal runaway (from memory).
+def charge_temperature(*sources) -> Window:
+    return Window(Q_(-20, "degC"), Q_(50, "degC"), (BU_410, *sources))
 
 
 LEAD_ACID_CURVE = CurveModel(
@@ -51,6 +57,7 @@ FLOODED = Chemistry(
     typical_compensation=TYPICAL_COMPENSATION,
     charge_rate=charge_rate(0.10, 0.30, BU_403),
     curve=LEAD_ACID_CURVE,
+    charge_temperature=charge_temperature(TROJAN_USERS_GUIDE),
 )
 
 AGM = Chemistry(
@@ -63,6 +70,8 @@ AGM = Chemistry(
     typical_compensation=TYPICAL_COMPENSATION,
     charge_rate=charge_rate(0.10, 0.30, BU_403, LINDEN_BATTERIES),
     curve=LEAD_ACID_CURVE,
+    charge_temperature=charge_temperature(YUASA_NP_MANUAL),
+    valve_regulated=True,
 )
 
 GEL = Chemistry(
@@ -75,6 +84,8 @@ GEL = Chemistry(
     typical_compensation=TYPICAL_COMPENSATION,
     charge_rate=charge_rate(0.10, 0.20, BU_403, GEL_VRLA_HANDBOOK),
     curve=LEAD_ACID_CURVE,
+    charge_temperature=charge_temperature(GEL_VRLA_HANDBOOK),
+    valve_regulated=True,
 )
 
 CHEMISTRIES = (FLOODED, AGM, GEL)

@@ -1,7 +1,7 @@
 """Round winding wire: AWG sizes (ASTM B258) and enamelled-wire overall diameters (IEC 60317-0-1 grades).
 
-AWG diameters come from the formula of ASTM B258 (dossier.units.awg_diameter); AWG_CHECK holds values of the
-standard's table to check it against. ENAMEL_TABLE gives the maximum overall diameter of grade 1, 2 and 3
+AWG diameters come from the formula of ASTM B258 (dossier.units.awg_diameter); the tests check it against the
+standard's Table 1. ENAMEL_TABLE gives the maximum overall diameter of grade 1, 2 and 3
 enamelled round copper wire by nominal conductor diameter, for fill-factor estimates.
 """
 
@@ -13,22 +13,7 @@ from dataclasses import dataclass
 
 from dossier.units import Q_, awg_diameter
 
-__all__ = ["AWG_CHECK", "ENAMEL_TABLE", "Overall", "awg_diameter", "copper_area", "overall_diameter"]
-
-# ASTM B258, table of nominal diameters, inches. 18 and 26 confirmed; the others from memory.
-AWG_CHECK = {
-    10: (0.1019, "from memory"),
-    12: (0.0808, "from memory"),
-    14: (0.0641, "from memory"),
-    16: (0.0508, "from memory"),
-    18: (0.0403, "confirmed"),
-    20: (0.0320, "from memory"),
-    22: (0.0253, "from memory"),
-    24: (0.0201, "from memory"),
-    26: (0.0159, "confirmed"),
-    28: (0.0126, "from memory"),
-    30: (0.0100, "from memory"),
-}
+__all__ = ["ENAMEL_TABLE", "Overall", "awg_diameter", "copper_area", "overall_diameter"]
 
 # IEC 60317-0-1, maximum overall diameter (mm) of enamelled round copper wire by nominal conductor diameter (mm),
 # grade 1, 2, 3. Every value here is from memory: not seen in a copy of the standard; check before relying on it.

@@ -16,10 +16,17 @@ def test_awg_18_and_26_in_millimetres():
     assert awg_diameter(26).to("mm").magnitude == pytest.approx(0.404, abs=0.001)
 
 
-@pytest.mark.parametrize("gauge", sorted(wire.AWG_CHECK))
-def test_awg_formula_matches_the_table_to_its_last_digit(gauge):
-    # ASTM B258 table, inches to four decimals; 18 and 26 confirmed, the others from memory (see wire.AWG_CHECK).
-    inches, _status = wire.AWG_CHECK[gauge]
+# ASTM B258-18, Table 1, nominal diameters in inches to four decimals: AWG 18 and 26 confirmed, the others from memory.
+ASTM_B258_TABLE_1 = [
+    (10, 0.1019, "from memory"), (12, 0.0808, "from memory"), (14, 0.0641, "from memory"), (16, 0.0508, "from memory"),
+    (18, 0.0403, "confirmed"), (20, 0.0320, "from memory"), (22, 0.0253, "from memory"), (24, 0.0201, "from memory"),
+    (26, 0.0159, "confirmed"), (28, 0.0126, "from memory"), (30, 0.0100, "from memory"),
+]
+
+
+@pytest.mark.parametrize("gauge, inches, status", ASTM_B258_TABLE_1)
+def test_awg_formula_matches_the_table_to_its_last_digit(gauge, inches, status):
+    # ASTM B258-18, Table 1 (status of each value beside it): the formula rounds to the table's four decimals.
     assert awg_diameter(gauge).to("inch").magnitude == pytest.approx(inches, abs=0.00005)
 
 
@@ -115,3 +122,23 @@ def test_skin_depth_falls_with_the_root_of_frequency():
     # delta is proportional to 1 / sqrt f: four times the frequency halves it
     ratio = (copper.skin_depth(Q_(10, "kHz")) / copper.skin_depth(Q_(40, "kHz"))).to("").magnitude
     assert ratio == pytest.approx(2.0)
+
+
+# IEC 60317-0-1 (edition 4.0, 2013), table of dimensions of enamelled round copper wire: maximum overall diameter
+# (mm) of grade 1, 2 and 3 by nominal conductor diameter. Every row from memory: not seen in a copy of the standard.
+IEC_60317_0_1_MAXIMUM_OVERALL = [
+    (0.100, 0.117, 0.125, 0.132), (0.125, 0.144, 0.153, 0.162), (0.160, 0.182, 0.194, 0.205),
+    (0.200, 0.226, 0.239, 0.252), (0.250, 0.281, 0.297, 0.312), (0.315, 0.349, 0.367, 0.384),
+    (0.400, 0.439, 0.459, 0.478), (0.500, 0.544, 0.566, 0.587), (0.630, 0.679, 0.704, 0.728),
+    (0.710, 0.762, 0.789, 0.814), (0.800, 0.855, 0.884, 0.911), (0.900, 0.959, 0.989, 1.018),
+    (1.000, 1.062, 1.094, 1.124), (1.250, 1.316, 1.349, 1.381), (1.600, 1.670, 1.706, 1.740),
+    (2.000, 2.074, 2.112, 2.148),
+]
+
+
+@pytest.mark.parametrize("nominal, grade_1, grade_2, grade_3", IEC_60317_0_1_MAXIMUM_OVERALL)
+def test_every_enamel_table_row_is_pinned(nominal, grade_1, grade_2, grade_3):
+    # IEC 60317-0-1 ed. 4.0 (2013), table of dimensions, grades 1-3 (from memory): each row as the code uses it
+    for grade, expected in ((1, grade_1), (2, grade_2), (3, grade_3)):
+        assert wire.overall_diameter(Q_(nominal, "mm"), grade).diameter.to("mm").magnitude == pytest.approx(expected, abs=1e-9)
+    assert len(wire.ENAMEL_TABLE) == len(IEC_60317_0_1_MAXIMUM_OVERALL)

@@ -9,7 +9,7 @@ from __future__ import annotations
 from dataclasses import dataclass
 
 from dossier.calcs.charge.curve import charge_current, charge_curve, compensated
-from dossier.calcs.charge.temperature import compensation_finding
+from dossier.calcs.charge.temperature import compensation_finding, range_finding
 from dossier.calcs.charge.windows import judge_window, tolerance_band
 from dossier.findings import Finding, Measure, Verdict, judge
 from dossier.plugins import Calc, CalcResult
@@ -70,6 +70,7 @@ def run(record) -> CalcResult:
         return CalcResult([])
     curve = charge_curve(record)
     found = [setpoint_finding(charger), float_finding(charger), compensation_finding(charger),
+             range_finding(charger, record.environment.max_ambient),
              current_finding(charger), rating_finding(charger), time_finding(record, curve)]
     return CalcResult([finding for finding in found if finding is not None], {CURVE: curve})
 
@@ -262,6 +263,7 @@ CODES = {
     "CHG-SETPOINT": "Absorption (constant-voltage) setpoint at the expected battery temperature against the chemistry's window.",
     "CHG-FLOAT": "Float setpoint against the chemistry's float window; information when the charger has no float stage.",
     "CHG-COMPENSATION": "Temperature compensation: the declared coefficient, and the battery temperatures over which the setpoints stay in their windows.",
+    "CHG-TEMPERATURE": "Coldest and warmest battery temperature while charging against the chemistry's charging range; above it fails (a valve-regulated battery charged hot can run away thermally).",
     "CHG-CURRENT": "Constant-current limit against the battery's capacity (the chemistry's C-rate range).",
     "CHG-RATING": "Constant-current limit set for the battery against the charger's current rating.",
     "CHG-TIME": "Estimated time to full from a CC-then-CV model (information).",

@@ -81,10 +81,15 @@ class ChargeCurve:
 
 
 def compensated(voltage, battery, temperature):
-    """A setpoint given at 25 degC, moved to a battery temperature by the charger's compensation (if any)."""
+    """A setpoint given at 25 degC, moved to a battery temperature by the charger's compensation (if any).
+
+    The compensation is clamped at the chemistry's charging range: outside it the charger must not charge, so the
+    setpoint is not driven further (a -18 mV/K charger at -30 degC would otherwise ask for almost 1 V more).
+    """
     if battery.compensation is None:
         return voltage.to("V")
-    return (voltage + battery.compensation * kelvin_from_reference(temperature)).to("V")
+    held = chemistry(battery.chemistry).clamped(temperature)
+    return (voltage + battery.compensation * kelvin_from_reference(held)).to("V")
 
 
 def _volts(voltage, battery, temperature) -> float | None:

@@ -14,6 +14,8 @@ from __future__ import annotations
 import math
 from dataclasses import dataclass
 
+from dossier.calcs.charge import words
+from dossier.calcs.charge.curve import compensated
 from dossier.calcs.charge.windows import nearer_edge
 from dossier.findings import Finding, Measure, Verdict, common_practice
 from dossier.standards.battery import REFERENCE_TEMPERATURE
@@ -71,7 +73,15 @@ def charger_band(charger) -> Band:
     if battery.float_voltage is not None and float_window is not None:
         pairs.append(_pair(battery.float_voltage, float_window))
     charger_slope = battery.compensation.to("V/K").magnitude if battery.compensation is not None else 0.0
-    return band(pairs, charger_slope, charger.window_slope.to("V/K").magnitude)
+    return inside_range(band(pairs, charger_slope, charger.window_slope.to("V/K").magnitude), charger.chemistry.charge_temperature)
+
+
+def inside_range(found: Band, charging) -> Band:
+    """The band cut to the chemistry's charging range: no setpoint is in its window where the battery must not charge."""
+    if charging is None:
+        return found
+    low, high = charging.low.to("degC").magnitude, charging.high.to("degC").magnitude
+    return Band(max(found.coldest, low), min(found.warmest, high))
 
 
 def _pair(setpoint, window) -> tuple[float, float, float]:
@@ -115,14 +125,26 @@ def _with_compensation(charger) -> Finding:
         relation=relation,
         explanation=" ".join(part for part in (_coefficient_text(per_cell, verdict), room_text) if part),
         keys=(("output", "battery", "compensation"),),
-        sources=chem.compensation.sources,
+        sources=chem.compensation.sources + _range_sources(chem),
+        extra=_compensated_measures(charger),
     )
+
+
+def _range_sources(chem) -> tuple:
+    return chem.charge_temperature.sources if chem.charge_temperature is not None else ()
+
+
+def _compensated_measures(charger) -> tuple:
+    """The absorption setpoint as the charger sets it at the coldest and warmest expected battery temperature (clamped)."""
+    battery = charger.battery
+    span = sorted(set(expected_span(battery)))
+    return tuple(Measure(words.compensated_label("absorption", t), compensated(battery.absorption_voltage, battery, Q_(t, "degC")))
+                 for t in span)
 
 
 def _coefficient_text(per_cell, verdict) -> str:
     if per_cell.magnitude >= 0:
-        return (f"The coefficient {fmt(per_cell)} per cell raises the setpoints as the battery warms; it must be negative, "
-                "or a warm battery is driven harder and can run away thermally.")
+        return words.rising_coefficient(per_cell)
     return ""
 
 
@@ -137,11 +159,9 @@ def _without_compensation(charger) -> Finding:
         values=(Measure("room in the windows beyond the expected battery temperatures", _kelvin(room)),),
         limit=Measure("allowance for battery-temperature drift", Q_(DRIFT_ALLOWANCE_K, "K")),
         relation=">=",
-        explanation=text + " A fixed setpoint suits a battery kept near one temperature; otherwise fit compensation "
-        f"(about {fmt(chem.typical_compensation * battery.cells)} for this battery, a sensor on the battery) "
-        "or declare lowest_temperature and highest_temperature so the range is checked.",
+        explanation=words.without_compensation(text, chem.typical_compensation * battery.cells),
         keys=(("output", "battery"),),
-        sources=chem.compensation.sources + (DRIFT_SOURCE,),
+        sources=chem.compensation.sources + _range_sources(chem) + (DRIFT_SOURCE,),
     )
 
 
@@ -149,11 +169,11 @@ def _room_judgement(charger) -> tuple[Verdict, str]:
     found = charger_band(charger)
     span = expected_span(charger.battery)
     if found.empty:
-        return Verdict.FAIL, "No battery temperature puts every setpoint inside its window at once."
+        return Verdict.FAIL, words.NO_COMMON_TEMPERATURE
     room = found.room(span)
-    text = f"The setpoints stay inside the {charger.chemistry.label} windows for battery temperatures {_band_text(found)}. "
+    text = words.inside_band(charger.chemistry.label, words.band_text(found.coldest, found.warmest))
     if room < 0:
-        return Verdict.FAIL, text + f"Part of the expected range, {_span_text(span)}, is outside that."
+        return Verdict.FAIL, text + words.outside_band(span)
     if room < DRIFT_ALLOWANCE_K:
         return Verdict.MARGINAL, text + _tight_side_text(found, span, room)
     return Verdict.PASS, text
@@ -161,10 +181,7 @@ def _room_judgement(charger) -> tuple[Verdict, str]:
 
 def _tight_side_text(found: Band, span: tuple[float, float], room: float) -> str:
     colder = span[0] - found.coldest <= found.warmest - span[1]
-    side, effect = ("below", "undercharged") if colder else ("above", "overcharged")
-    if room < 0.05:
-        return f"There is no room {side} the expected {_span_text(span)}: a battery any {'colder' if colder else 'warmer'} is {effect}."
-    return f"That leaves only {fmt(_kelvin(room))} {side} the expected {_span_text(span)} before the battery is {effect}."
+    return words.tight_side(colder, span, room, fmt(_kelvin(room)))
 
 
 def _not_wanted(charger) -> Finding:
@@ -173,7 +190,7 @@ def _not_wanted(charger) -> Finding:
         title=f"Temperature compensation declared for {charger.chemistry.label}",
         verdict=Verdict.MARGINAL,
         values=(Measure("declared coefficient", charger.battery.compensation),),
-        explanation=f"The {charger.chemistry.title} window takes no temperature compensation; check the maker's charging guide.",
+        explanation=words.not_wanted(charger.chemistry.title),
         keys=(("output", "battery", "compensation"),),
         sources=charger.chemistry.absorption.sources,
     )
@@ -187,23 +204,37 @@ def _kelvin(value: float):
     return Q_(round(value, 3), "K")
 
 
-def _band_text(found: Band) -> str:
-    if math.isinf(found.coldest) and math.isinf(found.warmest):
-        return "at any temperature"
-    if math.isinf(found.coldest):
-        return f"up to {found.warmest:.0f} °C"
-    if math.isinf(found.warmest):
-        return f"from {found.coldest:.0f} °C up"
-    return f"from {found.coldest:.0f} to {found.warmest:.0f} °C"
-
-
-def _span_text(span: tuple[float, float]) -> str:
-    if span[0] == span[1]:
-        return f"{span[0]:g} °C"
-    return f"{span[0]:g} to {span[1]:g} °C"
-
-
 METHOD = (
     "setpoint(T) = setpoint(25 degC) + k_charger (T - 25 degC); window(T) = window(25 degC) + cells x k_cell (T - 25 degC); "
     "the band is the battery temperatures where every setpoint is inside its window"
 )
+
+
+def range_finding(charger, ambient) -> Finding | None:
+    """The coldest and warmest battery temperature while charging against the chemistry's charging range."""
+    charging = charger.chemistry.charge_temperature
+    if charging is None:
+        return None
+    battery = charger.battery
+    coldest, warmest = expected_span(battery)
+    basis = words.HIGHEST_DECLARED
+    if battery.highest_temperature is None:
+        warmest, basis = max(warmest, ambient.to("degC").magnitude), words.highest_assumed(ambient)
+    low, high = charging.low.to("degC"), charging.high.to("degC")
+    verdict, text, limit, relation = _range_verdict(charger, coldest, warmest, low, high)
+    return Finding(
+        code="CHG-TEMPERATURE", calc="charge", subject="battery", title=words.range_title(charger.chemistry.label),
+        verdict=verdict, values=(Measure("warmest battery temperature", Q_(warmest, "degC")),
+                                 Measure("coldest battery temperature", Q_(coldest, "degC"))),
+        limit=limit, relation=relation, method=words.range_method(basis), explanation=text,
+        keys=(("output", "battery", "highest_temperature"), ("output", "battery", "lowest_temperature"), ("environment", "max_ambient")),
+        sources=charging.sources, extra=(Measure("charging range low", low), Measure("charging range high", high)),
+    )
+
+
+def _range_verdict(charger, coldest: float, warmest: float, low, high):
+    if warmest > high.magnitude:
+        return Verdict.FAIL, words.too_hot(warmest, high, charger.chemistry.valve_regulated), Measure("charging range high", high), "<="
+    if coldest < low.magnitude:
+        return Verdict.FAIL, words.too_cold(coldest, low), Measure("charging range low", low), ">="
+    return Verdict.PASS, words.inside_range((coldest, warmest), low, high), Measure("charging range high", high), "<="

@@ -14,14 +14,15 @@ TEMP_RISE = "MAG-TEMP-RISE"
 
 CODES = {
     "MAG-CORE": "Effective area, path length, volume, window, mean turn and A_L of a core (IEC 60205 for a toroid).",
-    "MAG-RATIO": "Turns ratio of a winding to the driven one, and its peak voltage at low, nominal and high line.",
+    "MAG-RATIO": "Turns ratio of a winding to the driven one, and its peak voltage (at low, nominal and high line where the drive follows the mains).",
     "MAG-FLUX": "Peak flux density (Faraday's law; a choke's from L I / N A_e) against saturation at the hot temperature.",
-    "MAG-CORE-LOSS": "Core loss by the Steinmetz equation where its parameters are given.",
-    "MAG-CURRENT-DENSITY": "Current density in a winding against the usual band for its cooling.",
+    "MAG-CORE-LOSS": "Core loss from the Steinmetz parameters: the Steinmetz equation for a sine flux, the improved generalised Steinmetz equation (iGSE) for square-wave, unipolar and triangular flux.",
+    "MAG-CURRENT-DENSITY": "Current density in a winding against McLyman's J = K_j A_p^x for the core's size (natural cooling), or a flat figure with forced air.",
     "MAG-RESISTANCE": "DC resistance of a winding at 20 degC and hot, and its copper loss (IEC 60028 copper).",
     "MAG-SKIN": "Wire diameter against two skin depths at the operating frequency, with a hint to use more strands.",
     "MAG-FILL": "Window fill by insulated wire and tape against what can be wound by hand; a winding that does not fit fails.",
     "MAG-TEMP-RISE": "Temperature rise from total loss per outside surface (empirical handbook relation).",
+    "MAG-WINDING-TEMP": "Winding temperature (highest ambient plus rise) against the thermal class of its insulation (IEC 60085).",
     "MAG-CHOKE": "A choke's inductance, stored energy, ripple current and peak field N I / l_e against the material's limit.",
     "MAG-INPUT": "A check that could not be made for want of a value, naming the key to add.",
 }
@@ -47,8 +48,8 @@ CALC = Calc(
     run=run,
     summary=(
         "Checks hand-wound transformers and chokes: core parameters (IEC 60205 for toroids), turns ratios and winding "
-        "voltages at low, nominal and high line, peak flux density against saturation, core loss (Steinmetz), current "
-        "density, resistance and copper loss (IEC 60028 copper), skin depth, window fill with enamel and tape build-up "
+        "voltages at low, nominal and high line, peak flux density against saturation, core loss (Steinmetz; iGSE for non-sinusoidal flux), current "
+        "density (McLyman's K_j), winding temperature against the insulation class (IEC 60085), resistance and copper loss (IEC 60028 copper), skin depth, window fill with enamel and tape build-up "
         "(IEC 60317, ASTM B258), temperature rise, and a choke's inductance, energy and field."
     ),
     codes=CODES,

@@ -9,17 +9,23 @@ from dossier.calcs.magnetics.core import CoreGeometry, geometry
 from dossier.calcs.magnetics.currents import winding_current
 from dossier.calcs.magnetics.fill import Fill, lay
 from dossier.calcs.magnetics.voltages import Drive, drive_of
-from dossier.citations import MCLYMAN
+from dossier.citations import MCLYMAN, MOHAN_POWER_ELECTRONICS
 from dossier.units import Q_
-from dossier.wording import measure_text
 
 DEFAULT_HOT = Q_(100, "degC")
 
-FARADAY = replace(MCLYMAN, clause="Faraday's law with waveform factor 4.0 (square) and 4.44 (sine); from memory")
-STEINMETZ = replace(MCLYMAN, clause="core loss as k f^alpha B^beta from the maker's loss curves; from memory")
-TEMPERATURE_RISE = replace(MCLYMAN, clause="temperature rise T_r = 450 psi^0.826 (psi in W/cm^2), chapter on efficiency, regulation and temperature rise; from memory")
-CHOKE = replace(MCLYMAN, clause="inductor design: L = A_L N^2, energy L I^2 / 2, field N I / l_e; from memory")
-SKIN = replace(MCLYMAN, clause="skin effect in copper, penetration depth 6.62 / sqrt(f) cm at 20 degC, taken here at the hot temperature; from memory")
+MCLYMAN_3 = replace(MCLYMAN, edition="3rd edition, 2004")
+FARADAY = replace(MCLYMAN_3, clause="Faraday's law with waveform factor 4.0 (square) and 4.44 (sine); from memory")
+STEINMETZ = replace(MCLYMAN_3, clause="core loss as k f^alpha B^beta from the maker's loss curves; from memory")
+TEMPERATURE_RISE = replace(MCLYMAN_3, clause="temperature rise T_r = 450 psi^0.826 (psi in W/cm^2), chapter on efficiency, regulation and temperature rise; from memory")
+CHOKE = replace(MCLYMAN_3, clause="inductor design: L = A_L N^2, energy L I^2 / 2, field N I / l_e; from memory")
+CURRENT_DENSITY = replace(MCLYMAN_3, clause=(
+    "J = K_j A_p^x (A/cm^2, A_p in cm^4), chapter 5 'Transformer Design Trade-Offs', table of K_j and x by core "
+    "configuration for 25 and 50 degC rise (table number and values from memory)"))
+FORWARD_RESET = replace(MOHAN_POWER_ELECTRONICS, clause=(
+    "forward converter: the core is reset every cycle and its flux swings one way, from the remanence, by V t_on / (N A_e) "
+    "(from memory)"))
+SKIN = replace(MCLYMAN_3, clause="skin effect in copper, penetration depth 6.62 / sqrt(f) cm at 20 degC, taken here at the hot temperature; from memory")
 
 
 @dataclass(frozen=True)
@@ -80,8 +86,3 @@ _finding = maker("magnetics")
 def make(code: str, subject: str, title: str, verdict, **details):
     """A magnetics finding."""
     return _finding(code=code, subject=subject, title=title, verdict=verdict, **details)
-
-
-def listing(measures) -> str:
-    """The measures as one sentence, for findings whose numbers are the point."""
-    return "; ".join(measure_text(m) for m in measures) + "."

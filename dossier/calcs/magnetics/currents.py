@@ -5,6 +5,8 @@ from __future__ import annotations
 import math
 from dataclasses import dataclass
 
+from dossier.calcs.protection.input import input_current
+
 POWER_ROLES = ("transformer", "mains-transformer")
 
 
@@ -23,7 +25,7 @@ def winding_current(record, magnetic, winding, drive) -> WindingCurrent | None:
     if winding.role == "secondary" and drive.waveform == "square" and _sole_secondary(magnetic):
         return _secondary(record.output, winding)
     if winding.role == "primary" and winding.name == drive.winding:
-        return _primary(record.output, drive)
+        return _primary(record, magnetic, drive)
     return None
 
 
@@ -38,10 +40,24 @@ def _secondary(output, winding) -> WindingCurrent:
     return WindingCurrent(output.current, "output current: a square current through a bridge")
 
 
-def _primary(output, drive) -> WindingCurrent:
-    """Input power over the primary's RMS voltage at low line, where it is highest."""
-    power = output.power if output.power is not None else output.voltage * output.current
-    efficiency = 1.0 if output.efficiency is None else float(output.efficiency.to("").magnitude)
-    assumed = "" if output.efficiency is not None else " (no efficiency declared: 100 % taken, which understates it)"
-    current = (power / efficiency / drive.rms["low"]).to("A")
-    return WindingCurrent(current, f"output power / efficiency / primary RMS voltage at low line{assumed}")
+def _primary(record, magnetic, drive) -> WindingCurrent | None:
+    """The protection calc's input current: a mains transformer's primary carries it; a converter's takes its power.
+
+    A mains transformer's primary is in series with the mains, so it carries the mains input current at low line,
+    power factor included. A converter transformer's primary takes the same input power (output power / efficiency)
+    at its own RMS voltage at low line.
+    """
+    running = input_current(record)
+    if running is None:
+        return None
+    assumed = _assumed_words(running.assumed)
+    if magnetic.role == "mains-transformer" and drive.waveform == "sine" and drive.follows_mains:
+        return WindingCurrent(running.rms.to("A"), "the mains input current at low line (as the protection calc works it out: "
+                                                   f"power factor {running.power_factor:g}, efficiency {running.efficiency:g}){assumed}")
+    current = (running.input_power / drive.rms["low"]).to("A")
+    return WindingCurrent(current, f"input power ({running.input_power.magnitude:.4g} W at efficiency {running.efficiency:g}, as the "
+                                   f"protection calc takes it) / primary RMS voltage at low line{assumed}")
+
+
+def _assumed_words(assumed) -> str:
+    return "" if not assumed else f"; typical value taken for {', '.join(assumed)} (declare it to make this exact)"

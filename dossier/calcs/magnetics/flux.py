@@ -2,13 +2,15 @@
 
 from __future__ import annotations
 
-from dossier.calcs.magnetics.context import CHOKE, FARADAY, STEINMETZ, listing, make
-from dossier.calcs.magnetics.losses import choke_figures, core_loss, transformer_flux
+from dossier.calcs.magnetics import words
+from dossier.calcs.magnetics.context import CHOKE, FARADAY, FORWARD_RESET, STEINMETZ, make
+from dossier.calcs.magnetics.losses import choke_figures, core_loss, flux_swing, remanence, transformer_flux
 from dossier.calcs.magnetics.saturation import family_of, rule_for
+
 from dossier.calcs.magnetics.voltages import LINES, winding_voltages
-from dossier.citations import IEC_60205
+from dossier.citations import IEC_60205, IGSE
 from dossier.findings import Measure, Verdict, common_practice, judge
-from dossier.units import Q_, fmt
+from dossier.units import Q_
 
 MAKER_DATA = common_practice("a core's effective parameters A_e, l_e and A_L as its maker's data sheet gives them")
 FIELD_HEADROOM = 0.10
@@ -21,8 +23,8 @@ def core_finding(ctx):
               Measure("effective volume V_e", core.volume.to("cm**3"))]
     values += [Measure(label, q) for label, q in (("window area A_w", core.window_area), ("bare mean turn", core.mean_turn_length), ("A_L", core.al)) if q is not None]
     sources = (IEC_60205,) if ctx.magnetic.core.shape == "toroid" else (MAKER_DATA,)
-    return make("MAG-CORE", ctx.ref, f"Core of {ctx.ref}: effective parameters", Verdict.INFO, values=tuple(values),
-                method=core.method, explanation=f"{listing(values[1:])} A_L: {core.al_basis}.", keys=(ctx.key("core"),), sources=sources)
+    return make("MAG-CORE", ctx.ref, words.core_title(ctx.ref), Verdict.INFO, values=tuple(values),
+                method=core.method, explanation=words.core_text(values[1:], core.al_basis), keys=(ctx.key("core"),), sources=sources)
 
 
 def ratio_findings(ctx):
@@ -33,14 +35,19 @@ def ratio_findings(ctx):
     return [_ratio(ctx, i, w, reference, voltages) for i, w in enumerate(ctx.magnetic.windings) if w is not reference]
 
 
+def _lines(ctx) -> tuple:
+    """The line conditions worth naming: all three when the drive follows the mains, else one figure."""
+    return LINES if ctx.drive.varies_with_line else (None,)
+
+
 def _ratio(ctx, position, winding, reference, voltages):
     ratio = Q_(reference.turns / winding.turns)
-    values = [Measure(f"turns ratio {reference.name} : {winding.name}", ratio)]
-    values += [Measure(f"peak voltage at {line} line", voltages[winding.name][line]) for line in LINES]
+    values = [Measure(words.ratio_label(reference.name, winding.name), ratio)]
+    values += [Measure(words.peak_label(line), voltages[winding.name][line or "high"]) for line in _lines(ctx)]
     if winding.centre_tap:
-        values += [Measure(f"each half, peak at {line} line", voltages[f"{winding.name}/half"][line]) for line in LINES]
-    return make("MAG-RATIO", ctx.subject(winding), f"Turns ratio and voltages of {ctx.subject(winding)}", Verdict.INFO,
-                values=tuple(values), explanation=listing(values), method=f"voltage across '{reference.name}' scaled by turns; drive: {ctx.drive.basis}",
+        values += [Measure(words.half_label(line), voltages[f"{winding.name}/half"][line or "high"]) for line in _lines(ctx)]
+    return make("MAG-RATIO", ctx.subject(winding), words.ratio_title(ctx.subject(winding)), Verdict.INFO,
+                values=tuple(values), explanation=words.listing(values), method=words.ratio_method(reference.name, ctx.drive.basis),
                 keys=(ctx.winding_key(position, "turns"), ctx.drive.key), sources=(FARADAY,))
 
 
@@ -51,47 +58,49 @@ def flux_findings(ctx):
     if peak is None:
         return []
     drive = ctx.drive
-    formula = "V / (4 f N A_e)" if drive.waveform == "square" else "V_rms / (4.44 f N A_e)"
-    when = " at high line" if ctx.magnetic.excitation is None else ""
-    extra = tuple(Measure(f"peak at {line} line", transformer_flux(ctx, line)) for line in ("low", "nominal"))
-    return [_flux(ctx, peak, f"Peak flux density in {ctx.ref}{when}", extra + (Measure("frequency", drive.frequency),),
-                  f"B_pk = {formula} at {fmt(drive.frequency)}, {drive.winding} turns; drive: {drive.basis}", drive.key)]
+    unipolar = drive.polarity == "unipolar"
+    extra = [Measure(f"peak at {line} line", transformer_flux(ctx, line)) for line in ("low", "nominal") if drive.varies_with_line]
+    extra.append(Measure("frequency", drive.frequency))
+    basis = None
+    if unipolar:
+        value, basis = remanence(ctx)
+        extra += [Measure("flux swing delta-B", flux_swing(ctx, "high")), Measure("remanence B_r", value)]
+    method = words.flux_method(drive.waveform, drive.polarity, drive, drive.winding, basis)
+    sources = (FARADAY, FORWARD_RESET) if unipolar else (FARADAY,)
+    return [_flux(ctx, peak, words.flux_title(ctx.ref, drive.varies_with_line), tuple(extra), method, drive.key, sources)]
 
 
 def _choke_flux(ctx):
     figures = choke_figures(ctx)
     if figures is None:
         return []
-    return [_flux(ctx, figures.peak_flux, f"Peak flux density in {ctx.ref} at peak current",
-                  (Measure("peak current", figures.peak_current),), "B_pk = L I_pk / (N A_e)", ctx.key("windings", 0, "current"))]
+    return [_flux(ctx, figures.peak_flux, words.choke_flux_title(ctx.ref), (Measure("peak current", figures.peak_current),),
+                  "B_pk = L I_pk / (N A_e)", ctx.key("windings", 0, "current"), (FARADAY,))]
 
 
-def _flux(ctx, peak, title, extra, method, drive_key):
+def _flux(ctx, peak, title, extra, method, drive_key, sources):
     material = ctx.magnetic.core.material
     family, how = family_of(material, ctx.frequency)
     rule = rule_for(family)
     verdict = judge(peak, material.saturation_flux.to("T"), "<=", rule.headroom)
     return make("MAG-FLUX", ctx.ref, title, verdict, values=(Measure("peak flux density", peak),),
-                limit=Measure(_saturation_label(ctx), material.saturation_flux.to("T")), relation="<=",
-                method=f"{method}; {family} ({how}): marginal within {rule.headroom:.0%} of saturation",
+                limit=Measure(words.saturation_label(material.saturation_temperature), material.saturation_flux.to("T")), relation="<=",
+                method=words.saturation_method(method, family, how, rule.headroom),
                 extra=extra, explanation=rule.advice if verdict in (Verdict.FAIL, Verdict.MARGINAL) else "",
-                keys=(ctx.key("core", "material", "saturation_flux"), drive_key), sources=(FARADAY, rule.source))
-
-
-def _saturation_label(ctx) -> str:
-    at = ctx.magnetic.core.material.saturation_temperature
-    return f"saturation at {fmt(at)}" if at is not None else "saturation (temperature not stated)"
+                keys=(ctx.key("core", "material", "saturation_flux"), drive_key), sources=sources + (rule.source,))
 
 
 def core_loss_findings(ctx):
     found = core_loss(ctx)
     if found is None:
         return []
-    extra = (Measure("loss per volume", found.density), Measure("peak flux density used", found.flux), Measure("frequency", ctx.frequency))
-    return [make("MAG-CORE-LOSS", ctx.ref, f"Core loss of {ctx.ref}", Verdict.INFO,
-                 values=(Measure("core loss", found.loss),), extra=extra, explanation=listing(extra),
-                 method="Steinmetz: P = k f^alpha B^beta V_e" + (" at the ripple flux" if ctx.magnetic.role == "choke" else " at nominal line"),
-                 keys=(ctx.key("core", "material", "steinmetz"),), sources=(STEINMETZ,))]
+    extra = (Measure("loss per volume", found.density), Measure("peak flux density used", found.flux),
+             Measure("flux swing delta-B", found.swing), Measure("frequency", ctx.frequency))
+    sources = (STEINMETZ,) if found.method == "sine" else (STEINMETZ, IGSE)
+    keys = (ctx.key("core", "material", "steinmetz"),) + ((ctx.drive.key,) if ctx.drive else ())
+    return [make("MAG-CORE-LOSS", ctx.ref, words.core_loss_title(ctx.ref), Verdict.INFO,
+                 values=(Measure("core loss", found.loss),), extra=extra, explanation=words.listing(extra),
+                 method=words.core_loss_method(found.method, ctx.magnetic.role == "choke"), keys=keys, sources=sources)]
 
 
 def choke_findings(ctx):
@@ -110,10 +119,9 @@ def choke_findings(ctx):
 def _choke_field(ctx, figures, extra):
     limit = ctx.magnetic.core.material.max_field
     common = dict(values=(Measure("peak field N I / l_e", figures.field),), extra=extra, keys=(ctx.key("windings", 0, "current"),),
-                  method="L = A_L N^2; H = N I_pk / l_e; ripple dI = V D / (f L) from the declared excitation",
-                  sources=(CHOKE, FIELD_PRACTICE))
-    title = f"Choke {ctx.ref}: inductance, energy and field"
+                  method=words.CHOKE_METHOD, sources=(CHOKE, FIELD_PRACTICE))
+    title = words.choke_title(ctx.ref)
     if limit is None:
-        return make("MAG-CHOKE", ctx.ref, title, Verdict.INFO, explanation=f"{listing(extra)} Declare core.material.max_field to check the field.", **common)
+        return make("MAG-CHOKE", ctx.ref, title, Verdict.INFO, explanation=f"{words.listing(extra)} {words.CHOKE_FIELD_HINT}", **common)
     return make("MAG-CHOKE", ctx.ref, title, judge(figures.field, limit.to("kA/m"), "<=", FIELD_HEADROOM),
                 limit=Measure("material's field limit", limit.to("kA/m")), relation="<=", **common)

@@ -2,6 +2,7 @@
 
 from __future__ import annotations
 
+from dossier.calcs.magnetics import words
 from dossier.calcs.magnetics.context import CHOKE, FARADAY, TEMPERATURE_RISE, make
 from dossier.citations import IEC_60028
 from dossier.findings import Verdict
@@ -17,40 +18,39 @@ def input_findings(ctx):
 
 def _missing(ctx, subject, what, key, hint, source):
     """An optional value is missing: information, naming the key to add."""
-    return make("MAG-INPUT", subject, f"{what} of {subject} not checked", Verdict.INFO, explanation=hint, keys=(key,), sources=(source,))
+    return make("MAG-INPUT", subject, words.not_checked_title(what, subject), Verdict.INFO, explanation=hint, keys=(key,), sources=(source,))
 
 
 def _drive(ctx):
     if ctx.drive is not None or ctx.magnetic.role not in DRIVEN_ROLES:
         return None
     return _missing(ctx, ctx.ref, "Flux density and winding voltages", ctx.key(),
-                    "The record does not say what drives it: declare an excitation (waveform, voltage, frequency, winding), "
-                    "or for a converter transformer give the converter stage's topology.", FARADAY)
+                    words.DRIVE_HINT, FARADAY)
 
 
 def _frequency(ctx):
     if ctx.drive is None or ctx.drive.frequency is not None:
         return None
     return _missing(ctx, ctx.ref, "Flux density", ctx.key(),
-                    "The operating frequency is not known: add 'frequency' (e.g. 40 kHz) to this magnetic.", FARADAY)
+                    words.FREQUENCY_HINT, FARADAY)
 
 
 def _choke(ctx):
     if ctx.magnetic.role != "choke" or (ctx.core.al is not None and ctx.currents[0] is not None):
         return None
     return _missing(ctx, ctx.ref, "Inductance and field", ctx.key("core"),
-                    "A choke needs core.al (or the material's initial_permeability) and its winding's current.", CHOKE)
+                    words.CHOKE_HINT, CHOKE)
 
 
 def _surface(ctx):
     if ctx.magnetic.core.shape == "toroid" or ctx.magnetic.core.surface_area is not None:
         return None
     return _missing(ctx, ctx.ref, "Temperature rise", ctx.key("core"),
-                    "Declare core.surface_area (outside surface of the wound part) to estimate the temperature rise.", TEMPERATURE_RISE)
+                    words.SURFACE_HINT, TEMPERATURE_RISE)
 
 
 def _current(ctx, position, winding):
     if ctx.currents[position] is not None:
         return None
     return _missing(ctx, ctx.subject(winding), "Current density and copper loss", ctx.winding_key(position),
-                    "Declare the winding's RMS current ('current: 1.2 A'); it could not be derived from the output rating.", IEC_60028)
+                    words.CURRENT_HINT, IEC_60028)

@@ -5,6 +5,7 @@ from __future__ import annotations
 from dataclasses import dataclass
 
 from dossier.calcs.magnetics import formulas as m
+from dossier.calcs.magnetics.saturation import family_of
 from dossier.standards.copper import REFERENCE_TEMPERATURE, resistance
 from dossier.units import Q_
 
@@ -27,6 +28,12 @@ class CoreLoss:
     density: object
     flux: object
     line: str
+    swing: object = None
+    method: str = "sine"
+
+
+# Remanence taken when the material declares none: harsher than power grades' data (from memory).
+DEFAULT_REMANENCE = {"ferrite": Q_(0.2, "T"), "iron-powder": Q_(0.2, "T"), "silicon-steel": Q_(1.0, "T")}
 
 
 def reference_turns(ctx) -> float:
@@ -34,14 +41,51 @@ def reference_turns(ctx) -> float:
 
 
 def transformer_flux(ctx, line: str):
-    """Peak flux density from Faraday's law at one line condition; None without a drive or frequency."""
+    """Peak flux density from Faraday's law at one line condition; None without a drive or frequency.
+
+    A unipolar drive's flux starts from the remanence and rises by the whole swing: B_pk = B_r + delta-B.
+    """
+    swing = flux_swing(ctx, line)
+    if swing is None:
+        return None
+    if ctx.drive.polarity == "unipolar":
+        return (remanence(ctx)[0] + swing).to("T")
+    return (swing / 2).to("T")
+
+
+def flux_swing(ctx, line: str):
+    """Peak-to-peak flux density delta-B at one line condition (Faraday's law); None without a drive or frequency."""
     drive = ctx.drive
     if drive is None or drive.frequency is None:
         return None
     turns, area = reference_turns(ctx), ctx.core.effective_area
     if drive.waveform == "sine":
-        return m.flux_sine(drive.rms[line], drive.frequency, turns, area)
-    return m.flux_square(drive.amplitude[line], drive.frequency, turns, area, drive.duty)
+        return 2 * m.flux_sine(drive.rms[line], drive.frequency, turns, area)
+    if drive.polarity == "unipolar":
+        return m.flux_unipolar_swing(drive.amplitude[line], drive.frequency, turns, area, drive.duty)
+    return 2 * m.flux_square(drive.amplitude[line], drive.frequency, turns, area, drive.duty)
+
+
+def remanence(ctx) -> tuple:
+    """(B_r, how it was found): the material's, else a harsher figure for its family."""
+    material = ctx.magnetic.core.material
+    if material.remanence is not None:
+        return material.remanence.to("T"), "declared"
+    family, _ = family_of(material, ctx.frequency)
+    return DEFAULT_REMANENCE[family], f"not declared: {DEFAULT_REMANENCE[family].magnitude:g} T taken for {family} (harsher reading; from memory)"
+
+
+def flux_segments(shape: str, duty: float) -> tuple:
+    """(share of the period, change in units of delta-B) for each straight part of the flux waveform.
+
+    bipolar square: up during D/2, down during D/2, flat in the dead times; unipolar: up during D, reset down
+    in the same time (at most the rest of the period); triangle (a choke's ripple): up during D, down during 1 - D.
+    """
+    if shape == "unipolar":
+        return ((duty, 1.0), (min(duty, 1 - duty), -1.0))
+    if shape == "triangle":
+        return ((duty, 1.0), (1 - duty, -1.0))
+    return ((duty / 2, 1.0), (duty / 2, -1.0))
 
 
 def choke_figures(ctx) -> ChokeFigures | None:
@@ -74,20 +118,35 @@ def _ripple(ctx, inductance):
 
 
 def core_loss(ctx) -> CoreLoss | None:
-    """Steinmetz core loss at nominal line (a choke: at its ripple flux); None without parameters."""
+    """Core loss at nominal line (a choke: at its ripple flux); None without parameters.
+
+    A sine flux by the Steinmetz equation; any other by the improved generalised Steinmetz equation (iGSE) from the
+    flux waveform the drive gives.
+    """
     steinmetz = ctx.magnetic.core.material.steinmetz
-    flux = _ac_flux(ctx)
-    if steinmetz is None or flux is None:
+    found = _swing_and_shape(ctx)
+    if steinmetz is None or found is None:
         return None
-    density = m.steinmetz_density(steinmetz.k, steinmetz.alpha, steinmetz.beta, ctx.frequency, flux)
-    return CoreLoss((density * ctx.core.volume).to("W"), density.to("mW / cm ** 3"), flux, "nominal")
+    swing, shape = found
+    k, alpha, beta = steinmetz.k, steinmetz.alpha, steinmetz.beta
+    if shape == "sine":
+        density = m.steinmetz_density(k, alpha, beta, ctx.frequency, swing / 2)
+    else:
+        density = m.igse_density(k, alpha, beta, ctx.frequency, swing, flux_segments(shape, ctx.drive.duty))
+    return CoreLoss((density * ctx.core.volume).to("W"), density.to("mW / cm ** 3"), (swing / 2).to("T"), "nominal", swing.to("T"), shape)
 
 
-def _ac_flux(ctx):
-    if ctx.magnetic.role != "choke":
-        return transformer_flux(ctx, "nominal")
-    figures = choke_figures(ctx)
-    return figures.ac_flux if figures else None
+def _swing_and_shape(ctx):
+    """(delta-B, waveform shape) of the flux the core loss is worked out at; None when not known."""
+    if ctx.magnetic.role == "choke":
+        figures = choke_figures(ctx)
+        if figures is None or figures.ac_flux is None:
+            return None
+        return 2 * figures.ac_flux, "triangle"
+    swing = flux_swing(ctx, "nominal")
+    if swing is None:
+        return None
+    return swing, ("sine" if ctx.drive.waveform == "sine" else ctx.drive.polarity)
 
 
 def winding_resistance(ctx, position: int, temperature=REFERENCE_TEMPERATURE):

@@ -5,8 +5,10 @@ The drive is taken from the record where it can be:
 - a converter transformer's primary sees the bus (the rectified mains peak) switched by the converter
   stage: a half-bridge gives plus and minus half the bus, a full bridge the whole bus, both as a square wave;
 - otherwise the magnetic declares its excitation (waveform, voltage, frequency, winding).
-A declared excitation wins over a derived one. The rectified peak is taken without diode drops or ripple,
-which is the worst case for flux density and reverse voltage at high line.
+A declared excitation wins over a derived one. It is read as the voltage at nominal line; when it comes from the
+bus rectified from the mains (`excitation.supply: mains`, or not said and the record has mains: the harsher
+reading) it is scaled by the mains tolerance to low and high line. The rectified peak is taken without diode
+drops or ripple, which is the worst case for flux density and reverse voltage at high line.
 """
 
 from __future__ import annotations
@@ -34,6 +36,8 @@ class Drive:
     duty       fraction of the period the voltage is applied (square wave), 1.0 for a full square wave
     basis      how the drive was found, in words for the explanation
     key        record key path the drive came from, for locating it
+    polarity   'bipolar' (plus and minus) or 'unipolar' (one direction, reset between pulses)
+    follows_mains  whether the drive scales with the mains (so low and high line differ when the tolerance is not 0)
     """
 
     winding: str
@@ -44,6 +48,12 @@ class Drive:
     duty: float
     basis: str
     key: tuple
+    polarity: str = "bipolar"
+    follows_mains: bool = True
+
+    @property
+    def varies_with_line(self) -> bool:
+        return self.amplitude["low"] != self.amplitude["high"]
 
 
 def winding_voltages(record, magnetic) -> dict:
@@ -88,16 +98,36 @@ def _declared(record, magnetic) -> Drive:
     winding = excitation.winding or magnetic.windings[0].name
     duty = 1.0 if excitation.duty is None else float(excitation.duty.to("").magnitude)
     index = record.magnetics.index(magnetic) if magnetic in record.magnetics else 0
+    polarity = excitation.polarity if excitation.waveform == "square" else "bipolar"
+    follows, scale, supply_words = _supply(record, excitation)
     return Drive(
         winding=winding,
         waveform=excitation.waveform,
-        amplitude=_same(_peak(excitation.waveform, excitation.voltage)),
-        rms=_same(_rms(excitation.waveform, excitation.voltage, duty)),
+        amplitude=_scaled(_peak(excitation.waveform, excitation.voltage), scale),
+        rms=_scaled(_rms(excitation.waveform, excitation.voltage, duty), scale),
         frequency=excitation.frequency,
         duty=duty,
-        basis=f"declared excitation: {excitation.waveform} wave across '{winding}'",
+        basis=f"declared excitation: {_shape_words(excitation.waveform, polarity)} across '{winding}'{supply_words}",
         key=("magnetics", index, "excitation"),
+        polarity=polarity,
+        follows_mains=follows,
     )
+
+
+def _supply(record, excitation) -> tuple[bool, dict, str]:
+    """Whether a declared excitation follows the mains, its scale by line condition, and words saying which reading."""
+    if record.mains is None or excitation.supply == "fixed":
+        return False, _same(1.0), ""
+    nominal = record.mains.nominal
+    scale = {line: float((value / nominal).to("").magnitude) for line, value in line_rms(record.mains).items()}
+    if excitation.supply == "mains":
+        return True, scale, "; taken from the mains-derived bus, scaled by the mains tolerance"
+    return True, scale, ("; taken as following the mains and scaled by its tolerance (harsher reading: "
+                         "set excitation.supply to fixed if it does not)")
+
+
+def _shape_words(waveform: str, polarity: str) -> str:
+    return f"{polarity} square wave" if waveform == "square" else "sine wave"
 
 
 def _from_mains(record, magnetic) -> Drive:
@@ -155,6 +185,10 @@ def _rms(waveform: str, voltage, duty: float):
 
 def _same(value) -> dict:
     return {line: value for line in LINES}
+
+
+def _scaled(value, scale: dict) -> dict:
+    return {line: value * scale[line] for line in LINES}
 
 
 def _turns_of(magnetic, name: str) -> float:

@@ -4,19 +4,24 @@ from __future__ import annotations
 
 import math
 
-from dossier.calcs.magnetics.context import SKIN, TEMPERATURE_RISE, listing, make
+from dossier.calcs.magnetics import words
+from dossier.calcs.magnetics.context import CURRENT_DENSITY, SKIN, TEMPERATURE_RISE, make
+from dossier.calcs.magnetics.density import (
+    FORCED_AIR_LIMIT, HARSHEST_CLASS, UNSIZED_LIMIT, class_temperature, core_size_limit,
+)
 from dossier.calcs.magnetics.fill import HAND_FILL_LIMIT, wound_surface
 from dossier.calcs.magnetics.losses import copper_losses, core_loss, winding_loss, winding_resistance
 from dossier.calcs.magnetics.formulas import current_density, temperature_rise
-from dossier.citations import IEC_60028, IEC_60317
+from dossier.calcs.magnetics.saturation import family_of
+from dossier.citations import ASTM_B258, IEC_60028, IEC_60085, IEC_60317
 from dossier.findings import Measure, Verdict, common_practice, judge
 from dossier.standards.copper import skin_depth
+from dossier.standards.wire import copper_area
 from dossier.units import Q_, fmt
 
-DENSITY_LIMIT = {
-    "natural": (Q_(5, "A/mm**2"), common_practice("2-5 A/mm^2 for small naturally cooled transformers")),
-    "forced-air": (Q_(8, "A/mm**2"), common_practice("up to about 8 A/mm^2 with forced air (from memory)")),
-}
+FORCED_AIR_PRACTICE = common_practice("up to about 8 A/mm^2 with forced air (from memory)")
+UNSIZED_PRACTICE = common_practice("2-5 A/mm^2 for small naturally cooled transformers")
+HOT_SPOT_ALLOWANCE_K = 10.0  # the hot spot inside a winding runs hotter than its surface mean (common practice; from memory)
 SKIN_LIMIT = Q_(2.0)
 SKIN_PRACTICE = common_practice("wire diameter at most two skin depths at the operating frequency")
 FILL_PRACTICE = common_practice("hand winding: insulated wire and tape filling at most 0.40 of a toroid's hole, 0.55 of a bobbin's window")
@@ -27,21 +32,49 @@ def density_findings(ctx):
 
 
 def _density(ctx, position, winding):
-    current, layout = ctx.currents[position], ctx.fill.layouts[position]
-    density = current_density(current.value, layout.copper_area)
-    limit, source = DENSITY_LIMIT[ctx.magnetic.cooling]
-    return make("MAG-CURRENT-DENSITY", ctx.subject(winding), f"Current density in {ctx.subject(winding)}", judge(density, limit, "<=", 0.1),
+    current, area = ctx.currents[position], copper_area(winding.wire, winding.strands)
+    density = current_density(current.value, area)
+    limit, basis, source, extra, sized = _density_limit(ctx)
+    verdict = judge(density, limit, "<=", 0.1)
+    if not sized and verdict is Verdict.PASS:
+        verdict = Verdict.MARGINAL
+    hint = words.density_hint(math.ceil(winding.strands * (density / limit).to("").magnitude)) if density > limit else ""
+    if not sized:
+        hint = " ".join(part for part in (hint, words.UNSIZED_CORE) if part)
+    return make("MAG-CURRENT-DENSITY", ctx.subject(winding), words.density_title(ctx.subject(winding)), verdict,
                 values=(Measure("current density", density),), limit=Measure(f"{ctx.magnetic.cooling} cooling", limit), relation="<=",
-                extra=(Measure("RMS current", current.value), Measure("copper area", layout.copper_area), Measure("strands", Q_(winding.strands))),
-                method=f"J = I / A_copper; current: {current.basis}", explanation=_density_hint(density, limit, winding),
-                keys=(ctx.winding_key(position, "wire"), ctx.winding_key(position, "current")), sources=(source,))
+                extra=(Measure("RMS current", current.value), Measure("copper area", area), Measure("strands", Q_(winding.strands))) + extra,
+                method=words.density_method(current.basis, basis), explanation=hint,
+                keys=(ctx.winding_key(position, "wire"), ctx.winding_key(position, "current"), ctx.key("core")), sources=(source,))
 
 
-def _density_hint(density, limit, winding) -> str:
-    if density <= limit:
-        return ""
-    strands = math.ceil(winding.strands * (density / limit).to("").magnitude)
-    return f"Thicker wire or more strands in parallel: {strands} strands of this wire would bring it within the limit."
+def _density_limit(ctx):
+    """(limit, words, source, extra measures, whether the core's size set it)."""
+    if ctx.magnetic.cooling == "forced-air":
+        return FORCED_AIR_LIMIT, "forced air, flat figure", FORCED_AIR_PRACTICE, (), True
+    family, _ = family_of(ctx.magnetic.core.material, ctx.frequency)
+    found = core_size_limit(ctx.magnetic.core, ctx.core, family, allowed_rise(ctx))
+    if found is None:
+        return UNSIZED_LIMIT, "upper end of the usual band (core size not known)", UNSIZED_PRACTICE, (), False
+    extra = (Measure("area product A_p", found.area_product), Measure("K_j", Q_(found.kj)), Measure("exponent x", Q_(found.exponent)))
+    basis = words.kj_basis(found.configuration, found.how, found.rise, found.kj, found.exponent, found.area_product)
+    return found.limit, basis, CURRENT_DENSITY, extra, True
+
+
+def insulation_class(ctx) -> tuple[str, bool]:
+    """(class letter, whether declared): the declared class, else the lowest in use (harsher)."""
+    declared = ctx.magnetic.insulation_class
+    return (declared, True) if declared is not None else (HARSHEST_CLASS, False)
+
+
+def allowed_rise(ctx):
+    """Rise the winding may take: the class temperature (or the core's limit, if lower) less the highest ambient."""
+    letter, _ = insulation_class(ctx)
+    ceiling = class_temperature(letter)
+    material_limit = ctx.magnetic.core.material.max_temperature
+    if material_limit is not None and material_limit.to("degC") < ceiling:
+        ceiling = material_limit.to("degC")
+    return Q_(ceiling.magnitude - ctx.record.environment.max_ambient.to("degC").magnitude, "K")
 
 
 def resistance_findings(ctx):
@@ -54,10 +87,9 @@ def _resistance(ctx, position, winding):
     loss = winding_loss(ctx, position)
     if loss is not None:
         extra.append(Measure(f"copper loss at {fmt(ctx.hot)}", loss))
-    return make("MAG-RESISTANCE", ctx.subject(winding), f"DC resistance of {ctx.subject(winding)}", Verdict.INFO,
-                values=(Measure("resistance at 20 degC", cold),), extra=tuple(extra), explanation=listing(extra),
-                method=f"R = rho N l_turn / A, rho = 1/58 ohm mm^2/m at 20 degC rising 0.393 %/K; hot: {ctx.hot_basis}",
-                keys=(ctx.winding_key(position, "wire"),), sources=(IEC_60028,))
+    return make("MAG-RESISTANCE", ctx.subject(winding), words.resistance_title(ctx.subject(winding)), Verdict.INFO,
+                values=(Measure("resistance at 20 degC", cold),), extra=tuple(extra), explanation=words.listing(extra),
+                method=words.resistance_method(ctx.hot_basis), keys=(ctx.winding_key(position, "wire"),), sources=(IEC_60028, ASTM_B258))
 
 
 def skin_findings(ctx):
@@ -70,19 +102,18 @@ def _skin(ctx, position, winding):
     depth = skin_depth(ctx.frequency, ctx.hot)
     ratio = (winding.wire / depth).to("")
     verdict = Verdict.PASS if ratio <= SKIN_LIMIT else Verdict.MARGINAL
-    return make("MAG-SKIN", ctx.subject(winding), f"Skin depth against the wire of {ctx.subject(winding)}", verdict,
+    return make("MAG-SKIN", ctx.subject(winding), words.skin_title(ctx.subject(winding)), verdict,
                 values=(Measure("wire diameter / skin depth", ratio),), limit=Measure("two skin depths", SKIN_LIMIT), relation="<=",
                 extra=(Measure(f"skin depth at {fmt(ctx.frequency)}, {fmt(ctx.hot)}", depth), Measure("wire diameter", winding.wire.to("mm"))),
-                method="delta = sqrt(rho / (pi f mu_0))", explanation=_strand_hint(winding, depth) if verdict is not Verdict.PASS else "",
+                method=words.SKIN_METHOD, explanation=_strand_hint(winding, depth) if verdict is not Verdict.PASS else "",
                 keys=(ctx.winding_key(position, "wire"),), sources=(SKIN, SKIN_PRACTICE))
 
 
 def _strand_hint(winding, depth) -> str:
     thinner = math.floor((2 * depth).to("mm").magnitude * 20) / 20
     if thinner <= 0:
-        return "Use litz wire: even very thin strands are thicker than two skin depths."
-    count = math.ceil(winding.strands * (winding.wire.to("mm").magnitude / thinner) ** 2)
-    return f"Use more, thinner strands: for example {count} strands of {thinner:.2f} mm keep at least the copper area."
+        return words.litz_hint()
+    return words.strand_hint(math.ceil(winding.strands * (winding.wire.to("mm").magnitude / thinner) ** 2), thinner)
 
 
 def fill_findings(ctx):
@@ -96,15 +127,14 @@ def fill_findings(ctx):
     extra = [Measure("window area", fill.window_area), Measure("area taken by wire and tape", fill.occupied)]
     if fill.hole_left is not None:
         extra.append(Measure("hole left after winding", fill.hole_left))
-    return [make("MAG-FILL", ctx.ref, f"Window fill of {ctx.ref}", verdict, values=(Measure("fill factor", fill.factor),),
+    return [make("MAG-FILL", ctx.ref, words.fill_title(ctx.ref), verdict, values=(Measure("fill factor", fill.factor),),
                  limit=Measure("can be wound by hand", limit), relation="<=", extra=tuple(extra),
                  method=_fill_method(fill), explanation=_overflow(ctx, limit) if verdict is Verdict.FAIL else "",
-                 keys=(ctx.key("windings"),), sources=(IEC_60317, FILL_PRACTICE))]
+                 keys=(ctx.key("windings"),), sources=(IEC_60317, ASTM_B258, FILL_PRACTICE))]
 
 
 def _fill_method(fill) -> str:
-    bases = sorted({layout.overall_basis for layout in fill.layouts})
-    return "insulated wire (overall diameter) and tape over the window area; overall diameters: " + "; ".join(bases)
+    return words.fill_method(sorted({layout.overall_basis for layout in fill.layouts}))
 
 
 def _overflow(ctx, limit) -> str:
@@ -116,10 +146,8 @@ def _overflow(ctx, limit) -> str:
         if running > limit * fill.window_area:
             first = layout.name
             break
-    text = f"Does not fit: {fmt(over)} more than can be wound by hand; the window is full from winding '{first}' on."
-    if fill.hole_left is not None and fill.hole_left.magnitude <= 0:
-        text += f" The windings close the hole: they need {fmt(-fill.hole_left)} more diameter than it has."
-    return text
+    closed = fill.hole_left is not None and fill.hole_left.magnitude <= 0
+    return words.overflow_text(over, first, -fill.hole_left if closed else None)
 
 
 def temperature_findings(ctx):
@@ -132,18 +160,38 @@ def temperature_findings(ctx):
         return []
     total = sum(losses, Q_(0, "W"))
     rise = temperature_rise(total, surface)
-    return [_temperature(ctx, total, surface, rise, found is not None)]
+    return [_temperature(ctx, total, surface, rise, found is not None), _winding_temperature(ctx, rise)]
 
 
 def _temperature(ctx, total, surface, rise, with_core):
     material, ambient = ctx.magnetic.core.material, ctx.record.environment.max_ambient.to("degC")
-    extra = (Measure("total loss", total), Measure("outside surface", surface), Measure("highest ambient", ambient))
+    extra = (Measure("total loss", total), Measure("outside surface", surface), Measure("loss density", (total / surface).to("mW/cm**2")),
+             Measure("highest ambient", ambient))
     common = dict(values=(Measure("temperature rise", rise),), extra=extra, keys=(ctx.key("core", "material", "max_temperature"),),
-                  method="copper loss at the hot temperature" + (" plus core loss" if with_core else ", no core loss known") + "; T_r = 450 (P / A)^0.826",
-                  sources=(TEMPERATURE_RISE,))
-    title = f"Temperature rise of {ctx.ref}"
+                  method=words.rise_method(with_core), sources=(TEMPERATURE_RISE,))
+    title = words.rise_title(ctx.ref)
     if material.max_temperature is None:
-        return make("MAG-TEMP-RISE", ctx.ref, title, Verdict.INFO, explanation=f"{listing(extra)} Declare core.material.max_temperature to judge the rise.", **common)
+        return make("MAG-TEMP-RISE", ctx.ref, title, Verdict.INFO, explanation=f"{words.listing(extra)} {words.RISE_HINT}", **common)
     allowed = Q_(material.max_temperature.to("degC").magnitude - ambient.magnitude, "K")
     return make("MAG-TEMP-RISE", ctx.ref, title, judge(rise, allowed, "<=", 0.15), relation="<=",
-                limit=Measure(f"{fmt(material.max_temperature.to('degC'))} less the ambient", allowed), **common)
+                limit=Measure(words.rise_limit_label(material.max_temperature.to("degC")), allowed), **common)
+
+
+def _winding_temperature(ctx, rise):
+    """Highest ambient plus the rise against the insulation class; marginal within the hot-spot allowance."""
+    letter, declared = insulation_class(ctx)
+    ambient = ctx.record.environment.max_ambient.to("degC")
+    temperature = Q_(ambient.magnitude + rise.to("K").magnitude, "degC")
+    limit = class_temperature(letter)
+    verdict = _class_verdict(temperature.magnitude, limit.magnitude)
+    return make("MAG-WINDING-TEMP", ctx.ref, words.winding_temperature_title(ctx.ref), verdict,
+                values=(Measure("winding temperature", temperature),), limit=Measure(words.class_label(letter, limit), limit), relation="<=",
+                extra=(Measure("highest ambient", ambient), Measure("temperature rise", rise)),
+                method=words.winding_temperature_method(declared, letter), explanation="" if declared else words.CLASS_HINT,
+                keys=(ctx.key("insulation_class"), ("environment", "max_ambient")), sources=(IEC_60085, TEMPERATURE_RISE))
+
+
+def _class_verdict(temperature: float, limit: float) -> Verdict:
+    if temperature > limit:
+        return Verdict.FAIL
+    return Verdict.MARGINAL if temperature > limit - HOT_SPOT_ALLOWANCE_K else Verdict.PASS

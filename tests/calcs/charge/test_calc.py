@@ -11,7 +11,7 @@ from dossier.findings import Verdict
 from dossier.review import review
 from dossier.units import Q_
 
-CHARGE_CODES = {"CHG-SETPOINT", "CHG-FLOAT", "CHG-COMPENSATION", "CHG-CURRENT", "CHG-RATING", "CHG-TIME"}
+CHARGE_CODES = {"CHG-SETPOINT", "CHG-FLOAT", "CHG-COMPENSATION", "CHG-TEMPERATURE", "CHG-CURRENT", "CHG-RATING", "CHG-TIME"}
 
 
 def test_the_calc_declares_every_code_it_can_emit():
@@ -140,9 +140,9 @@ def test_a_limit_set_above_the_chargers_rating_fails():
 
 
 def test_time_to_full_is_information_with_the_phases():
+    # the figure itself is worked by hand in test_temperature_range.py::test_time_to_full_worked_by_hand
     finding = findings_by_code(load_demo("sw-charger-12v", "C"))["CHG-TIME"]
     assert finding.verdict is Verdict.INFO
-    assert finding.value.quantity.to("h").magnitude == pytest.approx(8.66, abs=0.01)
     assert {m.label for m in finding.extra} >= {"constant-current phase", "constant-voltage phase", "charge efficiency"}
 
 

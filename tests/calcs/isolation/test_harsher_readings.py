@@ -13,6 +13,7 @@ import pytest
 from dossier.calcs import isolation
 from dossier.calcs.isolation import CALC
 from dossier.checklist.sheet import build_checklist
+from dossier.review import Review
 from dossier.commands.check import render, run_check
 from dossier.findings import Verdict
 from dossier.reading.settings import ArchiveSettings
@@ -44,7 +45,7 @@ def test_creepage_is_not_passed_when_the_clearance_cannot_be_assessed():
     assert "not assessed" in found["ISO-CREEPAGE"].title
     assert "never less than the clearance" in found["ISO-CREEPAGE"].explanation
     # docs/verdicts.md: not assessed on a mains barrier blocks power-up like a fail
-    checklist = build_checklist(record, findings)
+    checklist = build_checklist(record, Review(tuple(findings)))
     assert checklist.blocked
     assert {f.code for f in checklist.blockers} >= {"ISO-CLEARANCE", "ISO-CREEPAGE"}
 
@@ -53,7 +54,7 @@ def test_functional_insulation_not_assessed_stays_guidance():
     barrier = {"grade": "functional", "material_group": "I", "creepage": "40 mm", "clearance": "30 mm"}
     record, findings = findings_for(barrier, {"nominal": "600 V", "overvoltage_category": "IV"}, environment={"altitude": "9000 m"})
     assert all(f.verdict is Verdict.INFO for f in findings)
-    assert not build_checklist(record, findings).blocked
+    assert not build_checklist(record, Review(tuple(findings))).blocked
 
 
 # --- 14.2: between table rows, the next row up unless the archive names its clause ----------------
@@ -129,7 +130,7 @@ def test_a_recurring_peak_is_judged_against_the_steady_state_table():
     assert mm(extra(clearance, "Table F.2 clearance")) == pytest.approx(3.0)
     assert mm(extra(clearance, "Table F.8 clearance")) == pytest.approx(3.8)
     assert extra(clearance, "peak voltage for Table F.8").to("V").magnitude == pytest.approx(3200)
-    assert build_checklist(record, findings).blocked
+    assert build_checklist(record, Review(tuple(findings))).blocked
 
 
 def test_a_mains_barrier_with_no_working_voltage_defaults_to_the_mains_and_says_so():
@@ -149,7 +150,7 @@ def test_a_dc_rail_barrier_with_no_working_voltage_is_not_assessed_and_blocks():
     assert finding.verdict is Verdict.NOT_ASSESSED and finding.blocks_power_up and "not assessed" in finding.title
     assert ("barriers", 0, "working_dc") in finding.keys
     assert "working_dc" in finding.explanation
-    assert build_checklist(record, findings).blocked
+    assert build_checklist(record, Review(tuple(findings))).blocked
 
 
 # --- 23.5: a declared group never overrides a worse CTI -------------------------------------------
