@@ -3,7 +3,16 @@
 from __future__ import annotations
 
 from dossier.findings import Finding, Verdict
-from dossier.plugins import Calc
+from dossier.plugins import Calc, load_calcs
+from dossier.standards.chemistries import registry as chemistry_registry
+
+
+def load_plugins() -> list[Calc]:
+    """Every installed plugin, checked before any record is read: the calcs, and the battery chemistries a
+    record may name. A broken one raises PluginError or ChemistryError naming it (the command exits 3);
+    it is never reported as a problem in the user's record."""
+    chemistry_registry()
+    return load_calcs()
 
 
 def review(record, calcs: list[Calc]) -> list[Finding]:

@@ -13,10 +13,10 @@ from typing import Callable, Iterator
 from dossier.reading.archive import RevisionFile, build_dirs, load_revision, revision_files
 from dossier.findings import Finding
 from dossier.ledger import Ledger, Publication, frozen_problems, load_ledger
-from dossier.plugins import Calc, load_calcs
+from dossier.plugins import Calc
 from dossier.problems import InputError, Location, Problem
 from dossier.reading.record import LoadedRecord
-from dossier.review import review
+from dossier.review import load_plugins, review
 from dossier.collect.caches import Caches
 from dossier.collect.extras import Extras, revision_extras
 from dossier.collect.parallel import collect_in_workers, worker_count
@@ -79,11 +79,12 @@ def open_archive(root: Path, calcs: list[Calc] | None = None) -> tuple[Archive, 
     """The archive's settings and publication ledger (no builds yet), and the problems found so far."""
     if not root.is_dir():
         raise InputError([Problem("path_missing", Location(str(root)), expected="an archive folder", found="no folder at this path")])
+    calcs = calcs if calcs is not None else load_plugins()
     problems: list[Problem] = []
     settings = _gathered(problems, lambda: load_settings(root), ArchiveSettings())
     ledger = _gathered(problems, lambda: load_ledger(root), Ledger())
     problems.extend(frozen_problems(root, ledger))
-    return Archive(root, settings, calcs if calcs is not None else load_calcs(), ledger), problems
+    return Archive(root, settings, calcs, ledger), problems
 
 
 def each_build(archive: Archive, problems: list[Problem], cache=None, jobs: int | None = None) -> Iterator[Build]:

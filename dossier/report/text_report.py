@@ -1,11 +1,28 @@
-"""The readable table `dossier check` prints."""
+"""The readable report `dossier check` prints, made from the same result as the JSON one."""
 
 from __future__ import annotations
 
+from dossier.caution import MAINS_CAUTION
 from dossier.findings import Finding, Verdict, counts
+from dossier.report.result import CheckResult, RecordCheck
 from dossier.wording import comparison_text, margin_text, problem_line, sources_text
 
 MARKS = {Verdict.FAIL: "FAIL", Verdict.MARGINAL: "MARG", Verdict.PASS: "ok  ", Verdict.INFO: "info"}
+
+
+def check_text(result: CheckResult, verbose: bool) -> str:
+    lines: list[str] = []
+    for record in result.records:
+        lines.extend(record_lines(record, verbose))
+    return "\n".join(lines + ["", f"Caution: {MAINS_CAUTION}"])
+
+
+def record_lines(record: RecordCheck, verbose: bool) -> list[str]:
+    lines = record_block(record.title, record.findings, record.locate, verbose) if record.findings is not None else []
+    lines.extend(problem_block(record.problems))
+    if record.commissioning is not None and record.commissioning.commissioning is not None:
+        lines.append("  commissioning: " + record.commissioning.overview_text())
+    return lines
 
 
 def finding_lines(finding: Finding, locate) -> list[str]:

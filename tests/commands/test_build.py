@@ -159,7 +159,7 @@ def test_build_command_reports_what_it_wrote(tmp_path, monkeypatch):
     archive = tmp_path / "archive"
     write_record(archive, "amp", "A")
     monkeypatch.setattr("dossier.plugins.load_calcs", lambda points=None: [TEST_CALC])
-    monkeypatch.setattr("dossier.collect.archive.load_calcs", lambda: [TEST_CALC])
+    monkeypatch.setattr("dossier.collect.archive.load_plugins", lambda: [TEST_CALC])
     result = CliRunner().invoke(main, ["build", str(archive), "-o", str(tmp_path / "out"), "--pages-only", "--no-cache"])
     assert result.exit_code == 0, result.output
     assert "wrote the page tree of 1 build" in result.output
@@ -179,7 +179,7 @@ def test_a_long_build_shows_progress_on_standard_error(tmp_path, monkeypatch):
     archive = tmp_path / "archive"
     for number in range(20):
         write_record(archive, f"unit-{number:02d}", "A")
-    monkeypatch.setattr("dossier.collect.archive.load_calcs", lambda: [TEST_CALC])
+    monkeypatch.setattr("dossier.collect.archive.load_plugins", lambda: [TEST_CALC])
     result = CliRunner().invoke(main, ["build", str(archive), "-o", str(tmp_path / "out"), "--pages-only", "--no-cache"])
     assert result.exit_code == 0, result.output
     assert "reviewing builds" in result.stderr

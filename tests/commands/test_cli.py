@@ -68,7 +68,7 @@ def test_json_output_has_the_documented_shape():
     body = json.loads(result.output)
     assert body["shape"] == 1 and body["exit_code"] == result.exit_code
     (record,) = body["records"]
-    assert set(record) == {"file", "valid", "counts", "findings"}
+    assert set(record) == {"file", "valid", "counts", "findings", "problems"} and record["problems"] == []
     assert set(record["counts"]) == {"fail", "marginal", "pass", "info"}
     for finding in record["findings"]:
         assert {"code", "calc", "subject", "title", "verdict", "values", "limit", "relation", "method", "explanation", "keys", "sources"} == set(finding)
