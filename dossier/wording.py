@@ -7,7 +7,7 @@ import re
 
 from dossier.findings import Finding, Measure, Source, Verdict
 from dossier.problems import Problem
-from dossier.units import fmt
+from dossier.units import fmt, fmt_apart
 
 PROBLEM_TEXT = {
     "missing": "required key is missing",
@@ -78,9 +78,12 @@ def _found(problem: Problem) -> str:
     return f"found {problem.found}" if problem.found else ""
 
 
-def measure_text(measure: Measure | None) -> str:
+def measure_text(measure: Measure | None, limit: Measure | None = None) -> str:
+    """'declared 2.5 mm'; given the finding's limit, with the digits it takes to tell the two apart."""
     if measure is None:
         return ""
+    if limit is not None:
+        return f"{measure.label} {quantities_apart(measure.quantity, limit.quantity)[0]}"
     return f"{measure.label} {quantity_text(measure.quantity)}"
 
 
@@ -96,7 +99,15 @@ def comparison_text(finding: Finding) -> str:
         return ""
     if finding.limit is None:
         return quantity_text(finding.value.quantity)
-    return f"{quantity_text(finding.value.quantity)} {_relation(finding.relation)} {quantity_text(finding.limit.quantity)} ({finding.limit.label})"
+    value, limit = quantities_apart(finding.value.quantity, finding.limit.quantity)
+    return f"{value} {_relation(finding.relation)} {limit} ({finding.limit.label})"
+
+
+def quantities_apart(value, limit) -> tuple[str, str]:
+    """A value and its limit as text, with enough digits to show that they differ when they do."""
+    if hasattr(value, "units") and hasattr(limit, "units"):
+        return fmt_apart(value, limit)
+    return quantity_text(value), quantity_text(limit)
 
 
 def _relation(relation: str) -> str:
@@ -182,7 +193,8 @@ def limit_text(finding: Finding) -> str:
     if finding.limit is None:
         return ""
     bound = {">=": "at least", "<=": "at most"}.get(finding.relation, finding.relation)
-    return f"{bound} {quantity_text(finding.limit.quantity)} ({finding.limit.label})"
+    limit = quantities_apart(finding.value.quantity, finding.limit.quantity)[1] if finding.value is not None else quantity_text(finding.limit.quantity)
+    return f"{bound} {limit} ({finding.limit.label})"
 
 
 NO_FAILING_TEXT = "No check fails and none is marginal."
