@@ -7,7 +7,8 @@ from dossier.findings import Finding, Verdict, counts
 from dossier.report.result import CheckResult, RecordCheck
 from dossier.wording import comparison_text, margin_text, problem_line, sources_text
 
-MARKS = {Verdict.FAIL: "FAIL", Verdict.MARGINAL: "MARG", Verdict.PASS: "ok  ", Verdict.INFO: "info"}
+# The verdict's own word, as the summary line and the JSON say it; capitals so a line's verdict stands out.
+MARKS = {verdict: verdict.value.upper().ljust(max(len(v.value) for v in Verdict)) for verdict in Verdict}
 
 
 def check_text(result: CheckResult, verbose: bool) -> str:

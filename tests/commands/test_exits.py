@@ -115,3 +115,20 @@ def test_diff_of_a_missing_record_exits_2_with_a_located_line(archive):
 def test_new_refused_exits_2(archive):
     result = run("new", "amp", "--archive", archive)
     assert result.exit_code == 2 and "dossier new:" in result.stderr and "already exists" in result.stderr
+
+
+@pytest.mark.parametrize("named", ["rev-A.yaml", "."])
+def test_a_relative_path_inside_a_build_folder_resolves_to_its_folder(named, archive, monkeypatch):
+    monkeypatch.chdir(archive / "amp")
+    result = run("check", named)
+    assert result.exit_code in (0, 1), result.output
+    assert "id_mismatch" not in result.output and "does not match the build folder" not in result.output
+    assert "amp rev A" in result.stdout
+
+
+def test_the_text_report_marks_each_verdict_with_the_word_the_summary_and_json_use(archive):
+    text = run("check", "--all", archive / "amp" / "rev-A.yaml").stdout
+    (record,) = json.loads(run("check", "--format", "json", archive / "amp" / "rev-A.yaml").stdout)["records"]
+    marks = {line.split()[0] for line in text.splitlines() if line.startswith("  ") and not line.startswith("   ") and line.split()[1][:1].isupper()}
+    assert marks and {mark.lower() for mark in marks} <= {finding["verdict"] for finding in record["findings"]}
+    assert "ok" not in {mark.lower() for mark in marks}
