@@ -24,7 +24,10 @@ docs: $(STAMP)
 	$(BIN)/dossier build demo/archive --pages-only -o docs/archive
 	$(BIN)/mkdocs build --strict -d site
 
+# Says first which system tools (PDF, browser) are missing and what to install; their tests then skip,
+# or fail under CI (CI=true), whose .ci/run installs them.
 test: $(STAMP)
+	$(BIN)/python -m tests.fixtures.prerequisites
 	$(BIN)/python -m pytest
 
 bench: $(STAMP)

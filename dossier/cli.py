@@ -10,19 +10,21 @@ import click
 from dossier import __version__
 
 
-class Refused(click.ClickException):
-    """Bad input from the user: a message and exit status 2, never a traceback."""
+class Commands(click.Group):
+    """Every command ends the same way on an error it does not handle itself: the words and the exit status
+    from dossier.commands.exits, never a traceback."""
 
-    exit_code = 2
+    def invoke(self, ctx: click.Context):
+        from dossier.commands.exits import HANDLED, message_of, status_of
+
+        try:
+            return super().invoke(ctx)
+        except HANDLED as error:
+            click.echo(message_of(error, f"dossier {ctx.invoked_subcommand}"), err=True)
+            ctx.exit(status_of(error))
 
 
-class BrokenPlugin(click.ClickException):
-    """An installed calc plugin cannot be used: not the record's fault, so its own exit status."""
-
-    exit_code = 3
-
-
-@click.group(context_settings={"help_option_names": ["-h", "--help"]})
+@click.group(cls=Commands, context_settings={"help_option_names": ["-h", "--help"]})
 @click.version_option(__version__, prog_name="dossier")
 def main() -> None:
     """Checked, versioned build records for hand-built mains equipment.
@@ -39,17 +41,18 @@ def main() -> None:
 def check(paths: tuple[Path, ...], output_format: str, verbose: bool) -> None:
     """Validate records and run every calc.
 
-    Exit status: 0 clean, 1 a check failed, 2 a record is invalid or unreadable, 3 a calc plugin is broken.
+    Exit status: 0 clean, 1 a check failed, 2 a record or the commissioning file beside it is invalid or
+    unreadable, 3 a calc or chemistry plugin is broken.
     """
-    from dossier.commands.check import render, run_check
-    from dossier.plugins import PluginError
+    from dossier.commands.check import run_check
+    from dossier.commands.exits import check_status
+    from dossier.report.json_report import check_json
+    from dossier.report.text_report import check_text
 
-    try:
-        outcome = run_check(list(paths), verbose)
-    except PluginError as error:
-        raise BrokenPlugin(str(error)) from None
-    click.echo(render(outcome, output_format == "json"))
-    sys.exit(outcome.exit_code)
+    result = run_check(list(paths))
+    status = check_status(result)
+    click.echo(check_json(result, int(status)) if output_format == "json" else check_text(result, verbose))
+    sys.exit(status)
 
 
 @main.command()
@@ -75,12 +78,9 @@ def new(build_id: str, archive: Path) -> None:
     Also writes record.schema.json beside the builds (kept current on every run), which the record's
     first line names, so an editor with a YAML language server checks the record as it is typed.
     """
-    from dossier.commands.new import NewBuildRefused, scaffold
+    from dossier.commands.new import scaffold
 
-    try:
-        path = scaffold(archive, build_id)
-    except NewBuildRefused as refused:
-        raise Refused(str(refused)) from None
+    path = scaffold(archive, build_id)
     click.echo(f"wrote {path}")
 
 
@@ -120,13 +120,8 @@ def serve(archive: Path, host: str, port: int) -> None:
 def diff(old: Path, new: Path) -> None:
     """Show what changed from record OLD to record NEW: values (old -> new, with units) and findings."""
     from dossier.commands.diff import diff_text
-    from dossier.problems import InputError
-    from dossier.wording import problem_line
 
-    try:
-        click.echo(diff_text(old, new))
-    except InputError as error:
-        raise Refused("\n".join(problem_line(p) for p in error.problems)) from None
+    click.echo(diff_text(old, new))
 
 
 @main.command()
@@ -161,14 +156,7 @@ def sign_off(record: Path, reviewer: str) -> None:
     """
     import datetime
 
-    from dossier.commands.signoff import SignoffRefused, start_signoff
-    from dossier.problems import InputError
-    from dossier.wording import problem_line
+    from dossier.commands.signoff import start_signoff
 
-    try:
-        path = start_signoff(record, reviewer, datetime.date.today())
-    except InputError as error:
-        raise Refused("\n".join(problem_line(p) for p in error.problems)) from None
-    except SignoffRefused as refused:
-        raise Refused(str(refused)) from None
+    path = start_signoff(record, reviewer, datetime.date.today())
     click.echo(f"wrote {path}")

@@ -13,14 +13,15 @@ from dataclasses import dataclass
 from pathlib import Path
 
 import yaml
-from pydantic import BaseModel, ConfigDict, Field, ValidationError
+from pydantic import BaseModel, ConfigDict, Field
 
 from dossier.reading.archive import RevisionFile, build_dirs, load_revision, revision_files, revision_order
 from dossier.files import write_whole
 from dossier.problems import InputError, Location, Problem
-from dossier.reading.yaml_source import dotted, read_document
+from dossier.reading.model_file import load_model_file
 
 LOCK_FILE = "published.yaml"
+LEDGER_EXAMPLE = "format: 1, builds: ..."
 DIGEST = r"^[0-9a-f]{64}$"
 HEADER = (
     "# Published revisions of this archive and the sha256 of their content, written by `dossier publish`.\n"
@@ -82,18 +83,7 @@ def load_ledger(archive: Path) -> Ledger:
     path = archive / LOCK_FILE
     if not path.is_file():
         return Ledger()
-    document = read_document(path, str(path))
-    if document.data is None:
-        return Ledger()
-    try:
-        return Ledger.model_validate(document.data)
-    except ValidationError as error:
-        raise InputError([_located(item, document) for item in error.errors()]) from None
-
-
-def _located(item: dict, document) -> Problem:
-    path = tuple(item["loc"])
-    return Problem(item["type"], document.sources.locate(path), key=dotted(path), expected=item["msg"], found=repr(item.get("input"))[:60])
+    return load_model_file(path, Ledger, LEDGER_EXAMPLE, when_empty=Ledger()).model
 
 
 def save_ledger(archive: Path, ledger: Ledger) -> Path:

@@ -5,7 +5,9 @@ from __future__ import annotations
 from dataclasses import dataclass, field
 
 from dossier.findings import Finding, Verdict
-from dossier.plugins import Calc, CalcResult
+from dossier.plugins import Calc, CalcResult, load_calcs
+from dossier.standards.chemistries import registry as chemistry_registry
+
 
 CALC_ERROR = "CALC-ERROR"
 
@@ -35,6 +37,14 @@ def run_review(record, calcs: list[Calc]) -> Review:
         if handed_on:
             products[calc.name] = handed_on
     return Review(tuple(findings), products)
+
+
+def load_plugins() -> list[Calc]:
+    """Every installed plugin, checked before any record is read: the calcs, and the battery chemistries a
+    record may name. A broken one raises PluginError or ChemistryError naming it (the command exits 3);
+    it is never reported as a problem in the user's record."""
+    chemistry_registry()
+    return load_calcs()
 
 
 def review(record, calcs: list[Calc]) -> list[Finding]:

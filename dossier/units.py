@@ -166,10 +166,75 @@ def _gauge_number(text: str) -> int:
 
 
 def fmt(quantity, digits: int = 3) -> str:
-    """A quantity as short text with a sensible number of significant digits."""
+    """A quantity as a practitioner writes it: a few significant digits, never in exponent form, and in the
+    unit the value came in unless that makes it read badly (0.035 kA is 35 A, 5000000 µH is 5 H)."""
+    quantity = readable_unit(quantity)
     magnitude = quantity.magnitude
-    text = f"{magnitude:.{digits}g}" if isinstance(magnitude, float) else str(magnitude)
+    text = number_text(magnitude, digits) if isinstance(magnitude, float) else str(magnitude)
     unit = f"{quantity.units:~P}"
     if unit in ("", "dimensionless"):
         return text
     return f"{text} {unit}"
+
+
+def fmt_apart(first, second, digits: int = 3, most: int = 6) -> tuple[str, str]:
+    """Two quantities (a value and its limit) with as many digits as it takes to show they differ:
+    14.85 V against 14.8 V is not printed '14.8 V' twice."""
+    for shown in range(digits, most + 1):
+        if not _print_alike(first, second, shown):
+            break
+    return fmt(first, shown), fmt(second, shown)
+
+
+def _print_alike(first, second, digits: int) -> bool:
+    if not (hasattr(first, "units") and hasattr(second, "units")) or first == second:
+        return False
+    try:
+        return fmt(first, digits) == fmt(second.to(first.units), digits)
+    except pint.DimensionalityError:
+        return False
+
+
+def number_text(value: float, digits: int = 3) -> str:
+    """A number rounded to significant digits and written out in full: 3000, 0.0021, 14.85; never 3e+03."""
+    if value == 0 or not math.isfinite(value):
+        return f"{value:g}".replace("-0", "0")
+    exponent = math.floor(math.log10(abs(value)))
+    decimals = digits - 1 - exponent
+    rounded = round(value, decimals)
+    text = f"{rounded:.{max(decimals, 0)}f}"
+    if "." in text:
+        text = text.rstrip("0").rstrip(".")
+    return "0" if text in ("-0", "") else text
+
+
+# Units that take an SI prefix in the trade; lengths, areas, temperatures, times in hours stay as written.
+PREFIXED_UNITS = ("volt", "ampere", "watt", "ohm", "henry", "farad", "hertz", "volt_ampere", "joule", "coulomb", "siemens", "tesla")
+ENGINEERING_PREFIXES = {-12: "pico", -9: "nano", -6: "micro", -3: "milli", 0: "", 3: "kilo", 6: "mega", 9: "giga"}
+
+
+def readable_unit(quantity):
+    """The quantity in a better prefix of its unit when its number would read badly in the one it has:
+    below 0.01 or from 100000 up, or below 1 in an already prefixed unit (0.5 kV is 500 V)."""
+    parts = _prefixed_unit(quantity)
+    magnitude = abs(getattr(quantity, "magnitude", 0) or 0)
+    if parts is None or not math.isfinite(magnitude) or magnitude == 0:
+        return quantity
+    prefix, base = parts
+    if 0.01 <= magnitude < 100_000 and not (prefix and magnitude < 1):
+        return quantity
+    in_base = abs(quantity.to(base).magnitude)
+    step = min(max(math.floor(math.log10(in_base) / 3) * 3, -12), 9)
+    return quantity.to(ENGINEERING_PREFIXES[step] + base)
+
+
+def _prefixed_unit(quantity) -> tuple[str, str] | None:
+    """(prefix, unit) for a quantity in one trade unit to the first power, e.g. ('kilo', 'ampere'); else None."""
+    units = getattr(quantity, "_units", None)
+    if units is None or len(units) != 1:
+        return None
+    (name, power), = units.items()
+    if power != 1:
+        return None
+    prefix, base, _suffix = registry().parse_unit_name(name)[0]
+    return (prefix, base) if base in PREFIXED_UNITS and prefix in ENGINEERING_PREFIXES.values() else None

@@ -2,9 +2,12 @@
 
 from __future__ import annotations
 
+import difflib
+import re
+
 from dossier.findings import Finding, Measure, Source, Verdict
 from dossier.problems import Problem
-from dossier.units import fmt
+from dossier.units import fmt, fmt_apart
 
 PROBLEM_TEXT = {
     "missing": "required key is missing",
@@ -26,7 +29,7 @@ PROBLEM_TEXT = {
     "yaml_tag": "YAML tags are not allowed",
     "merge_key": "YAML merge keys are not supported",
     "bad_key": "key must be plain text",
-    "not_a_mapping": "a record must be a mapping",
+    "not_a_mapping": "no keys at the top of the file",
     "revision_mismatch": "revision does not match the file name",
     "id_mismatch": "id does not match the build folder",
     "attachment_missing": "attachment not found",
@@ -75,9 +78,12 @@ def _found(problem: Problem) -> str:
     return f"found {problem.found}" if problem.found else ""
 
 
-def measure_text(measure: Measure | None) -> str:
+def measure_text(measure: Measure | None, limit: Measure | None = None) -> str:
+    """'declared 2.5 mm'; given the finding's limit, with the digits it takes to tell the two apart."""
     if measure is None:
         return ""
+    if limit is not None:
+        return f"{measure.label} {quantities_apart(measure.quantity, limit.quantity)[0]}"
     return f"{measure.label} {quantity_text(measure.quantity)}"
 
 
@@ -93,7 +99,15 @@ def comparison_text(finding: Finding) -> str:
         return ""
     if finding.limit is None:
         return quantity_text(finding.value.quantity)
-    return f"{quantity_text(finding.value.quantity)} {_relation(finding.relation)} {quantity_text(finding.limit.quantity)} ({finding.limit.label})"
+    value, limit = quantities_apart(finding.value.quantity, finding.limit.quantity)
+    return f"{value} {_relation(finding.relation)} {limit} ({finding.limit.label})"
+
+
+def quantities_apart(value, limit) -> tuple[str, str]:
+    """A value and its limit as text, with enough digits to show that they differ when they do."""
+    if hasattr(value, "units") and hasattr(limit, "units"):
+        return fmt_apart(value, limit)
+    return quantity_text(value), quantity_text(limit)
 
 
 def _relation(relation: str) -> str:
@@ -190,7 +204,8 @@ def limit_text(finding: Finding) -> str:
     if finding.limit is None:
         return ""
     bound = {">=": "at least", "<=": "at most"}.get(finding.relation, finding.relation)
-    return f"{bound} {quantity_text(finding.limit.quantity)} ({finding.limit.label})"
+    limit = quantities_apart(finding.value.quantity, finding.limit.quantity)[1] if finding.value is not None else quantity_text(finding.limit.quantity)
+    return f"{bound} {limit} ({finding.limit.label})"
 
 
 NO_FAILING_TEXT = "No check fails and none is marginal."
@@ -242,3 +257,106 @@ def accepted_text(decision, state) -> str:
     entry = state.deciding.entry
     who = f" Responsibility taken by {decision.responsible}." if decision.responsible else ""
     return f"Accepted by {entry.reviewer} on {entry.date.isoformat()}: {decision.reason}.{who}"
+
+
+# Problems found while validating a file against its model (dossier.reading.model_file), the same words
+# for every file kind: records, archive.yaml, published.yaml, commissioning files.
+
+EMPTY_FILE_TEXT = "an empty file"
+
+EXPECTED_BY_KIND = {
+    "missing": "this key",
+    "extra_forbidden": "a known key",
+    "string_too_long": "at most {max_length} characters",
+    "string_too_short": "at least {min_length} character(s)",
+    "too_short": "at least {min_length} item(s)",
+    "too_long": "at most {max_length} item(s)",
+    "greater_than": "a number above {gt}",
+    "greater_than_equal": "a number of at least {ge}",
+    "less_than": "a number below {lt}",
+    "less_than_equal": "a number of at most {le}",
+    "string_pattern_mismatch": "text matching {pattern}",
+    "string_type": "text",
+    "int_type": "a whole number",
+    "int_parsing": "a whole number",
+    "int_from_float": "a whole number",
+    "float_type": "a number",
+    "float_parsing": "a number",
+    "bool_type": "true or false",
+    "bool_parsing": "true or false",
+    "list_type": "a list",
+    "dict_type": "a mapping",
+    "model_type": "a mapping",
+    "model_attributes_type": "a mapping",
+    "date_type": "a date (YYYY-MM-DD)",
+    "date_parsing": "a date (YYYY-MM-DD)",
+    "date_from_datetime_parsing": "a date (YYYY-MM-DD)",
+    "date_from_datetime_inexact": "a date (YYYY-MM-DD)",
+}
+LONGEST_FOUND = 60
+
+
+def either(options: list[str]) -> str:
+    """'a', 'a or b', 'a, b or c'."""
+    return options[0] if len(options) == 1 else ", ".join(options[:-1]) + " or " + options[-1]
+
+
+def validation_expected(kind: str, context: dict, message: str) -> str:
+    """What a key should have held, from a validation error's kind and context."""
+    if "expected" in context:
+        return str(context["expected"])
+    template = EXPECTED_BY_KIND.get(kind)
+    if template:
+        try:
+            return template.format(**context)
+        except KeyError:
+            pass
+    return message.removeprefix("Value error, ")
+
+
+def validation_found(kind: str, context: dict, value: object, key_path: tuple) -> str:
+    """What a key held instead: nothing for a missing key, the key's own name for an unknown key."""
+    if "found" in context:
+        return str(context["found"])
+    if kind == "missing":
+        return "nothing"
+    if kind == "extra_forbidden":
+        return repr(str(key_path[-1])) if key_path else "an unknown key"
+    if isinstance(value, dict):
+        return "a mapping"
+    if isinstance(value, list):
+        return "a list"
+    text = repr(value)
+    return text if len(text) <= LONGEST_FOUND else text[: LONGEST_FOUND - 3] + "..."
+
+
+def did_you_mean(name: str, known: list[str]) -> str:
+    close = difflib.get_close_matches(name, known, n=1, cutoff=0.6)
+    return f"did you mean '{close[0]}'?" if close else ""
+
+
+def unknown_key_hint(name: str, known: list[str], previous: tuple[str, object] | None) -> str:
+    """A close known key, or, when the 'key' reads like a value (a number, or a number with a unit), the
+    likely cause: a comma inside an unquoted value in a { } mapping, which YAML reads as a new key."""
+    if _looks_like_a_value(name):
+        example = f'{previous[0]}: "{previous[1]}, {name}"' if previous and isinstance(previous[1], str) else f'value: "6.3 V, {name}"'
+        return f"this looks like part of a value, not a key: put a value holding a comma in quotes, e.g. {example}"
+    return did_you_mean(name, known)
+
+
+def _looks_like_a_value(name: str) -> bool:
+    return re.match(r"^\s*[-+]?(\d+(\.\d*)?|\.\d+)", name) is not None
+
+
+# One wording for each kind of validation problem, whichever of pydantic's codes names it.
+WRONG_TYPE_KINDS = (
+    "string_type", "int_type", "int_parsing", "int_from_float", "float_type", "float_parsing", "bool_type", "bool_parsing",
+    "list_type", "dict_type", "model_type", "model_attributes_type", "date_type", "date_parsing",
+    "date_from_datetime_parsing", "date_from_datetime_inexact",
+)
+OUT_OF_RANGE_KINDS = ("greater_than", "greater_than_equal", "less_than", "less_than_equal")
+LENGTH_KINDS = ("string_too_long", "string_too_short", "too_short", "too_long")
+PROBLEM_TEXT.update({kind: "wrong type of value" for kind in WRONG_TYPE_KINDS})
+PROBLEM_TEXT.update({kind: "value out of range" for kind in OUT_OF_RANGE_KINDS})
+PROBLEM_TEXT.update({kind: "wrong length" for kind in LENGTH_KINDS})
+PROBLEM_TEXT["enum"] = PROBLEM_TEXT["literal_error"]

@@ -8,8 +8,23 @@ import pytest
 
 from dossier.plugins import load_calcs
 from tests.fixtures.bad_input import BAD_INPUT_TRIED
+from tests.fixtures.prerequisites import require, summary
 from tests.fixtures.demo import DEMO
 from tests.fixtures.site_kit import demo_site, drawing_cache  # noqa: F401  (fixtures for every site test)
+
+
+def pytest_configure(config):
+    config.addinivalue_line("markers", "needs(*tools): system tools the test needs (poppler, pango, chromium); see tests/fixtures/prerequisites.py")
+
+
+def pytest_report_header(config):
+    return summary()
+
+
+@pytest.hookimpl(tryfirst=True)
+def pytest_runtest_setup(item):
+    for marker in item.iter_markers("needs"):
+        require(*marker.args)
 
 
 def pytest_terminal_summary(terminalreporter):

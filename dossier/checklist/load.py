@@ -5,24 +5,21 @@ Every problem is found in one pass and reported with its file, line, column and 
 
 from __future__ import annotations
 
-import dataclasses
-import difflib
 from dataclasses import dataclass
 from pathlib import Path
-
-from pydantic import ValidationError
 
 from dossier.reading.archive import COMMISSIONING_FILE
 from dossier.checklist.items import Item
 from dossier.checklist.commissioning import CommissioningFile
 from dossier.checklist.sheet import Checklist
 from dossier.problems import InputError, Location, Problem
-from dossier.reading.record import _problem as record_problem
-from dossier.reading.record import known_keys
-from dossier.reading.yaml_source import SourceMap, read_document
+from dossier.reading.model_file import load_model_file
+from dossier.reading.yaml_source import SourceMap
 from dossier.units import DIMENSION_NAMES, Q_, UnitProblem, dimensionality_of, fmt, parse_quantity
+from dossier.wording import did_you_mean
 
 OFFSET_UNITS = ("degC", "degF")
+COMMISSIONING_EXAMPLE = "build: ..., revision: ..."
 RISE = "a temperature rise in K (the reading less the room temperature)"
 
 
@@ -49,37 +46,17 @@ def commissioning_path(build_dir: Path, revision: str) -> Path | None:
 
 
 def load_commissioning(path: Path, checklist: Checklist, shown_as: str | None = None) -> Commissioning:
-    document = read_document(path, shown_as)
-    if not isinstance(document.data, dict):
-        found = "an empty file" if document.data is None else type(document.data).__name__
-        raise InputError([Problem("not_a_mapping", Location(document.sources.file, 1, 1), expected="a mapping of keys (build: ..., revision: ...)", found=found)])
-    entry = _validated(document.data, document.sources)
-    problems = list(_placement_problems(entry, checklist, path, document.sources))
+    loaded = load_model_file(path, CommissioningFile, COMMISSIONING_EXAMPLE, shown_as)
+    entry, sources = loaded.model, loaded.sources
+    problems = list(_placement_problems(entry, checklist, path, sources))
     values = {}
     for key, result in entry.results.items():
-        value = _checked_result(key, result, checklist, document.sources, problems)
+        value = _checked_result(key, result, checklist, sources, problems)
         if value is not None:
             values[key] = value
     if problems:
         raise InputError(problems)
-    return Commissioning(entry, values, document.sources, path)
-
-
-def _validated(data: dict, sources: SourceMap) -> CommissioningFile:
-    try:
-        return CommissioningFile.model_validate(data)
-    except ValidationError as error:
-        raise InputError([_problem(item, sources) for item in error.errors()]) from None
-
-
-def _problem(item: dict, sources: SourceMap) -> Problem:
-    """The record's mapping of a pydantic error, with key suggestions from this file's model."""
-    problem = record_problem(item, sources)
-    path = tuple(item["loc"])
-    if item["type"] != "extra_forbidden":
-        return problem
-    close = difflib.get_close_matches(str(path[-1]), known_keys(CommissioningFile, path[:-1]), n=1, cutoff=0.6)
-    return dataclasses.replace(problem, hint=f"did you mean '{close[0]}'?" if close else "")
+    return Commissioning(entry, values, sources, path)
 
 
 def _placement_problems(entry: CommissioningFile, checklist: Checklist, path: Path, sources: SourceMap):
@@ -111,14 +88,13 @@ def _checked_result(key: str, result, checklist: Checklist, sources: SourceMap, 
 
 
 def _unknown_item(key: str, checklist: Checklist, sources: SourceMap) -> Problem:
-    close = difflib.get_close_matches(key, [item.key for item in checklist.items], n=1, cutoff=0.6)
     return Problem(
         "unknown_item",
         sources.locate(("results", key), at_key=True),
         key=f"results.{key}",
         expected=f"an item id printed on the checklist of {checklist.build} rev {checklist.revision}",
         found=repr(key),
-        hint=f"did you mean '{close[0]}'?" if close else "",
+        hint=did_you_mean(key, [item.key for item in checklist.items]),
     )
 
 

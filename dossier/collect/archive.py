@@ -13,10 +13,10 @@ from typing import Callable, Iterator
 from dossier.reading.archive import RevisionFile, build_dirs, load_revision, revision_files
 from dossier.findings import Finding
 from dossier.ledger import Ledger, Publication, frozen_problems, load_ledger
-from dossier.plugins import Calc, load_calcs
+from dossier.plugins import Calc
 from dossier.problems import InputError, Location, Problem
 from dossier.reading.record import LoadedRecord
-from dossier.review import Review, run_review
+from dossier.review import Review, load_plugins, run_review
 from dossier.checklist.sheet import Checklist, build_checklist
 from dossier.signoff.revision import revision_signoffs
 from dossier.signoff.state import SignoffState
@@ -89,17 +89,17 @@ def open_archive(root: Path, calcs: list[Calc] | None = None) -> tuple[Archive, 
     """The archive's settings and publication ledger (no builds yet), and the problems found so far."""
     if not root.is_dir():
         raise InputError([Problem("path_missing", Location(str(root)), expected="an archive folder", found="no folder at this path")])
+    calcs = calcs if calcs is not None else load_plugins()
     problems: list[Problem] = []
     settings = _gathered(problems, lambda: load_settings(root), ArchiveSettings())
     ledger = _gathered(problems, lambda: load_ledger(root), Ledger())
     problems.extend(frozen_problems(root, ledger))
-    calcs = calcs if calcs is not None else load_calcs()
-    return Archive(root, settings, [_as_settings_ask(calc, settings) for calc in calcs], ledger), problems
+    return Archive(root, settings, configured_calcs(calcs, settings), ledger), problems
 
 
-def _as_settings_ask(calc: Calc, settings: ArchiveSettings) -> Calc:
+def configured_calcs(calcs: list[Calc], settings: ArchiveSettings) -> list[Calc]:
     """The isolation calc reads the archive's table_interpolation setting; the others take none."""
-    return isolation.configured(settings) if calc is isolation.CALC else calc
+    return [isolation.configured(settings) if calc is isolation.CALC else calc for calc in calcs]
 
 
 def each_build(archive: Archive, problems: list[Problem], cache=None, jobs: int | None = None) -> Iterator[Build]:

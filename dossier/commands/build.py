@@ -16,9 +16,10 @@ from typing import Callable, Iterator
 
 import click
 
+from dossier.commands.exits import HANDLED, Exit, message_of, status_of
 from dossier.reading.archive import build_dirs
 from dossier.problems import InputError
-from dossier.output.atomic import OutputRefused, check_output, swap_in
+from dossier.output.atomic import check_output, swap_in
 from dossier.collect.caches import user_caches
 from dossier.collect.archive import Archive, Build, each_build, open_archive
 from dossier.output.fingerprint import marker_text, render_inputs, still_current
@@ -26,7 +27,6 @@ from dossier.output.lock import building, real_output
 from dossier.pages.tree import TreeSummary, write_tree
 from dossier.render.mkdocs_run import RenderError, run_mkdocs, source_epoch, write_config
 
-EXIT_BUILT, EXIT_RENDER_FAILED, EXIT_REFUSED, EXIT_BROKEN_PLUGIN = 0, 1, 2, 3
 PROGRESS_FROM = 20  # builds; smaller archives build in a few seconds and need no progress bar
 DOCS, SITE = "pages", "site"
 
@@ -91,20 +91,18 @@ def _render_and_swap(opened: Archive, tree: TreeSummary, work: Path, output: Pat
 
 def run_build(archive: Path, output: Path | None, pages_only: bool, quiet: bool, use_cache: bool, pdfs: bool = True, jobs: int | None = None) -> int:
     """The command: messages on standard error, the outcome on standard output, an exit status."""
-    from dossier.plugins import PluginError
-
     target = output if output is not None else default_output(archive)
     total = len(build_dirs(archive)) if archive.is_dir() else 0
     show_progress = not quiet and total >= PROGRESS_FROM
     try:
         with _progress(total, show_progress) as advance:
             built = build_site(archive, target, pages_only=pages_only, cache=user_caches(use_cache, pdfs), progress=advance, announce=_announcer(show_progress), jobs=jobs, reuse=use_cache)
-    except (InputError, OutputRefused, PluginError, RenderError, OSError) as error:
+    except HANDLED as error:
         return _failed(error, target)
     for warning in built.warnings:
         click.echo(f"warning: {warning}", err=True)
     click.echo(_outcome(built, pages_only))
-    return EXIT_BUILT
+    return Exit.DONE
 
 
 def _outcome(built: Built, pages_only: bool) -> str:
@@ -118,23 +116,18 @@ def _outcome(built: Built, pages_only: bool) -> str:
 
 
 def _failed(error: Exception, target: Path) -> int:
-    """Say why nothing was written, and the exit status for it."""
-    from dossier.wording import counted, problem_line
+    """Say why nothing was written; the exit status is the one every command gives for this error."""
+    from dossier.wording import counted
 
-    if isinstance(error, InputError):
-        for problem in error.problems:
-            click.echo(problem_line(problem), err=True)
-        click.echo(f"dossier build: nothing written; {counted(len(error.problems), 'problem')} to put right first.", err=True)
-        return EXIT_REFUSED
-    if isinstance(error, RenderError):
-        click.echo(error.output, err=True)
-        click.echo(f"dossier build: {error}; the previous site at {target} is untouched.", err=True)
-        return EXIT_RENDER_FAILED
     if isinstance(error, OSError):
         click.echo(f"dossier build: {_os_problem(error, target)}; nothing was replaced.", err=True)
-        return EXIT_REFUSED
-    click.echo(f"dossier build: {error}", err=True)
-    return EXIT_REFUSED if isinstance(error, OutputRefused) else EXIT_BROKEN_PLUGIN
+        return status_of(error)
+    click.echo(message_of(error, "dossier build"), err=True)
+    if isinstance(error, InputError):
+        click.echo(f"dossier build: nothing written; {counted(len(error.problems), 'problem')} to put right first.", err=True)
+    elif isinstance(error, RenderError):
+        click.echo(f"dossier build: the previous site at {target} is untouched.", err=True)
+    return status_of(error)
 
 
 def _os_problem(error: OSError, target: Path) -> str:

@@ -1,104 +1,59 @@
-"""`dossier check`: validate records and run every calc."""
+"""`dossier check`: validate records (and the commissioning files beside them) and run every calc."""
 
 from __future__ import annotations
 
-import json
-from dataclasses import dataclass, field
 from pathlib import Path
 
-from dossier.reading.archive import expand, load_revision
-from dossier.caution import MAINS_CAUTION
-from dossier.findings import Finding
-from dossier.plugins import load_calcs
 from dossier.problems import InputError
-from dossier.report import json_report, text_report
-from dossier.review import run_review
-
-EXIT_CLEAN, EXIT_FAILED, EXIT_INVALID = 0, 1, 2
-
-
-@dataclass
-class Outcome:
-    blocks: list[str] = field(default_factory=list)
-    json: list[dict] = field(default_factory=list)
-    failed: bool = False
-    invalid: bool = False
-
-    @property
-    def exit_code(self) -> int:
-        return EXIT_INVALID if self.invalid else EXIT_FAILED if self.failed else EXIT_CLEAN
+from dossier.reading.archive import RevisionFile, expand, load_revision
+from dossier.report.result import CheckResult, RecordCheck
+from dossier.review import load_plugins, run_review
 
 
-def run_check(paths: list[Path], verbose: bool = False) -> Outcome:
-    outcome = Outcome()
+def run_check(paths: list[Path]) -> CheckResult:
+    """Every record named, checked; a broken plugin raises before any record is read."""
+    calcs = load_plugins()
     try:
         revisions = expand(paths)
     except InputError as error:
-        outcome.invalid = True
-        outcome.blocks.extend(text_report.problem_block(error.problems))
-        outcome.json.append(json_report.invalid_json(str(paths[0]), error.problems))
-        return outcome
-    calcs = load_calcs()
-    for rev in revisions:
-        _check_one(rev, calcs, outcome, verbose)
-    return outcome
+        return CheckResult([RecordCheck(str(paths[0]), problems=error.problems)])
+    return CheckResult([_check_one(rev, calcs) for rev in revisions])
 
 
-def _check_one(rev, calcs, outcome: Outcome, verbose: bool) -> None:
+def _check_one(rev: RevisionFile, calcs) -> RecordCheck:
     try:
         loaded = load_revision(rev)
     except InputError as error:
-        outcome.invalid = True
-        outcome.blocks.extend(text_report.problem_block(error.problems))
-        outcome.json.append(json_report.invalid_json(str(rev.path), error.problems))
-        return
+        return RecordCheck(str(rev.path), problems=error.problems)
     reviewed = run_review(loaded.record, calcs)
-    findings = list(reviewed.findings)
-    outcome.failed |= any(f.blocks_power_up for f in findings)
     title = f"{rev.path}  ({loaded.record.id} rev {loaded.record.revision}: {loaded.record.title})"
-    outcome.blocks.extend(text_report.record_block(title, findings, loaded.locate, verbose))
-    outcome.json.append(json_report.record_json(str(rev.path), findings, loaded.locate))
-    _check_commissioning(loaded, reviewed, outcome)
-    _check_signoffs(loaded, findings, outcome)
+    checked = RecordCheck(str(rev.path), title, list(reviewed.findings), loaded.locate)
+    _check_signoffs(loaded, checked)
+    _check_commissioning(loaded, reviewed, checked)
+    return checked
 
-def _check_signoffs(loaded, findings, outcome: Outcome) -> None:
+
+def _check_signoffs(loaded, checked: RecordCheck) -> None:
     """Sign-off files beside the record are validated like the record, and judged against its findings."""
     from dossier.signoff.revision import revision_signoffs
-    from dossier.wording import signoff_line
 
     try:
-        state = revision_signoffs(loaded, findings)
+        checked.signoff = revision_signoffs(loaded, checked.findings)
     except InputError as error:
-        outcome.invalid = True
-        outcome.blocks.extend(text_report.problem_block(error.problems))
-        return
-    outcome.json[-1]["signoff"] = json_report.signoff_json(state)
-    outcome.blocks.append("  sign-off: " + signoff_line(state))
+        checked.problems.extend(error.problems)
 
 
-def _check_commissioning(loaded, reviewed, outcome: Outcome) -> None:
+def _check_commissioning(loaded, reviewed, checked: RecordCheck) -> None:
     """A commissioning file beside the record is validated like the record itself, against the checklist the
     build makes from the same review (built once here, as there)."""
     from dossier.checklist.overview import commissioning_state, load_for_revision
     from dossier.checklist.sheet import build_checklist
 
-    checklist = build_checklist(loaded.record, reviewed)
+    checklist = build_checklist(loaded.record, reviewed, checked.signoff)
     try:
         commissioning = load_for_revision(loaded, checklist)
     except InputError as error:
-        outcome.invalid = True
-        outcome.blocks.extend(text_report.problem_block(error.problems))
+        checked.problems.extend(error.problems)
         return
     if commissioning is not None:
-        outcome.blocks.append("  commissioning: " + commissioning_state(loaded, checklist, commissioning).overview_text())
-
-
-def render(outcome: Outcome, as_json: bool) -> str:
-    if as_json:
-        body = {"shape": json_report.SHAPE_VERSION, "exit_code": outcome.exit_code, "records": outcome.json, "caution": MAINS_CAUTION}
-        return json.dumps(body, indent=2, ensure_ascii=False)
-    return "\n".join(outcome.blocks + ["", f"Caution: {MAINS_CAUTION}"])
-
-
-def has_failures(findings: list[Finding]) -> bool:
-    return any(f.blocks_power_up for f in findings)
+        checked.commissioning = commissioning_state(loaded, checklist, commissioning)

@@ -123,6 +123,8 @@ def _rebuild(preview: Preview) -> None:
 
 
 def run_serve(archive: Path, host: str, port: int) -> int:
+    from dossier.commands.exits import Exit
+
     def ready(url: str) -> None:
         click.echo(f"serving {archive} at {url} (Ctrl-C to stop); saving a record or template rebuilds the site", err=True)
 
@@ -132,8 +134,8 @@ def run_serve(archive: Path, host: str, port: int) -> int:
         click.echo("stopped", err=True)
     except OSError as error:
         click.echo(f"dossier serve: cannot listen on {host}:{port}: {error.strerror or error}; choose another --port", err=True)
-        return 2
-    return 0
+        return Exit.REFUSED
+    return Exit.DONE
 
 
 def preview_build(source: Path, output: Path) -> bool:

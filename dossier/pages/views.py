@@ -272,7 +272,7 @@ def _finding_view(finding: Finding, revision: Revision, calcs_page: str, anchors
         label=label,
         verdict=finding.verdict.value,
         comparison=f"{comparison}; {margin}" if comparison and margin else comparison,
-        values=[measure_text(m) for m in (*finding.values, *finding.extra)],
+        values=[measure_text(m, finding.limit) for m in (*finding.values, *finding.extra)],
         places=[_place(revision, key) for key in finding.keys],
         sources=[source_text(source) for source in finding.sources],
         anchor=f"{calcs_page}#{unique(slugify(label, '-'), anchors)}",

@@ -25,12 +25,17 @@ class RevisionFile:
     path: Path
 
 
+def folder_name(folder: Path) -> str:
+    """The folder's own name, also for a relative path such as '.' or the parent of 'rev-A.yaml' (links kept)."""
+    return folder.absolute().name
+
+
 def revision_files(build_dir: Path) -> list[RevisionFile]:
     found = []
     for path in build_dir.iterdir():
         match = REVISION_FILE.match(path.name)
         if match and path.is_file():
-            found.append(RevisionFile(build_dir.name, match["letter"], path))
+            found.append(RevisionFile(folder_name(build_dir), match["letter"], path))
     return sorted(found, key=lambda r: revision_order(r.letter))
 
 
@@ -53,7 +58,7 @@ def expand(paths: list[Path]) -> list[RevisionFile]:
 def _expand_one(path: Path) -> list[RevisionFile]:
     if path.is_file():
         match = REVISION_FILE.match(path.name)
-        return [RevisionFile(path.parent.name, match["letter"] if match else "", path)]
+        return [RevisionFile(folder_name(path.parent), match["letter"] if match else "", path)]
     if is_build_dir(path):
         return revision_files(path)
     if path.is_dir():

@@ -4,12 +4,12 @@ from __future__ import annotations
 
 from pathlib import Path
 
-from pydantic import BaseModel, ConfigDict, Field, ValidationError, model_validator
+from pydantic import BaseModel, ConfigDict, Field, model_validator
 
-from dossier.problems import InputError, Location, Problem
-from dossier.reading.yaml_source import dotted, read_document
+from dossier.reading.model_file import load_model_file
 
 SETTINGS_FILE = "archive.yaml"
+SETTINGS_EXAMPLE = "club: ..., title: ..."
 
 
 class TableInterpolation(BaseModel):
@@ -40,23 +40,8 @@ class ArchiveSettings(BaseModel):
 
 
 def load_settings(archive: Path) -> ArchiveSettings:
-    """The settings of an archive; an archive without archive.yaml gets the defaults."""
+    """The settings of an archive; an archive without archive.yaml, or with an empty one, gets the defaults."""
     path = archive / SETTINGS_FILE
     if not path.is_file():
         return ArchiveSettings()
-    document = read_document(path, str(path))
-    if document.data is None:
-        return ArchiveSettings()
-    if not isinstance(document.data, dict):
-        raise InputError([Problem("not_a_mapping", Location(str(path), 1, 1), expected="a mapping (club: ..., title: ...)", found=type(document.data).__name__)])
-    try:
-        return ArchiveSettings.model_validate(document.data)
-    except ValidationError as error:
-        raise InputError([_problem(item, document) for item in error.errors()]) from None
-
-
-def _problem(item: dict, document) -> Problem:
-    path = tuple(item["loc"])
-    at_key = item["type"] == "extra_forbidden"
-    found = repr(path[-1]) if at_key else repr(item.get("input"))[:60]
-    return Problem(item["type"], document.sources.locate(path, at_key=at_key), key=dotted(path), expected=item["msg"], found=found)
+    return load_model_file(path, ArchiveSettings, SETTINGS_EXAMPLE, when_empty=ArchiveSettings()).model

@@ -2,11 +2,35 @@
 
 from __future__ import annotations
 
+import json
+import math
+
+from dossier.caution import MAINS_CAUTION
+from dossier.checklist.overview import CommissioningState
 from dossier.findings import Finding, Measure, Source, counts
 from dossier.problems import Problem
 from dossier.reading.yaml_source import dotted
+from dossier.report.result import CheckResult, RecordCheck
 
 SHAPE_VERSION = 1
+
+
+def check_json(result: CheckResult, exit_code: int) -> str:
+    body = {"shape": SHAPE_VERSION, "exit_code": exit_code, "records": [record_json(r) for r in result.records], "caution": MAINS_CAUTION}
+    return json.dumps(standard(body), indent=2, ensure_ascii=False, allow_nan=False)
+
+
+def record_json(record: RecordCheck) -> dict:
+    body: dict = {"file": record.file, "valid": record.valid}
+    if record.findings is not None:
+        body["counts"] = {verdict.value: n for verdict, n in counts(record.findings).items()}
+        body["findings"] = [finding_json(f, record.locate) for f in record.findings]
+    body["problems"] = [problem_json(p) for p in record.problems]
+    if record.commissioning is not None and record.commissioning.commissioning is not None:
+        body["commissioning"] = commissioning_json(record.commissioning)
+    if record.signoff is not None:
+        body["signoff"] = signoff_json(record.signoff)
+    return body
 
 
 def measure_json(measure: Measure | None):
@@ -16,6 +40,20 @@ def measure_json(measure: Measure | None):
     if hasattr(quantity, "units"):
         return {"label": measure.label, "value": float(quantity.magnitude), "unit": f"{quantity.units:~P}" or "1"}
     return {"label": measure.label, "value": quantity, "unit": None}
+
+
+def standard(body):
+    """Standard JSON has no Infinity and no NaN: an unbounded number is written as the text 'infinity'
+    (or '-infinity'), a number that is not one as null."""
+    if isinstance(body, dict):
+        return {key: standard(value) for key, value in body.items()}
+    if isinstance(body, (list, tuple)):
+        return [standard(value) for value in body]
+    if isinstance(body, float) and math.isnan(body):
+        return None
+    if isinstance(body, float) and math.isinf(body):
+        return "infinity" if body > 0 else "-infinity"
+    return body
 
 
 def source_json(source: Source) -> dict:
@@ -47,13 +85,16 @@ def problem_json(problem: Problem) -> dict:
     return {"code": problem.code, "file": where.file, "line": where.line, "column": where.column, "key": problem.key, "expected": problem.expected, "found": problem.found, "hint": problem.hint}
 
 
-def record_json(file: str, findings: list[Finding], locate) -> dict:
-    tally = counts(findings)
+def commissioning_json(state: CommissioningState) -> dict:
+    entry = state.commissioning.entry
     return {
-        "file": file,
-        "valid": True,
-        "counts": {verdict.value: n for verdict, n in tally.items()},
-        "findings": [finding_json(f, locate) for f in findings],
+        "file": state.commissioning.sources.file,
+        "date": entry.date.isoformat(),
+        "tested_by": entry.tested_by,
+        "witness": entry.witness,
+        "passed": state.summary.passed,
+        "status": state.status.title,
+        "text": state.overview_text(),
     }
 
 
@@ -63,6 +104,3 @@ def signoff_json(state) -> dict:
               "clearance": j.entry.clearance.value, "stale": j.stale} for j in state.signoffs]
     return {"state": state.state.value, "signoffs": files}
 
-
-def invalid_json(file: str, problems: list[Problem]) -> dict:
-    return {"file": file, "valid": False, "problems": [problem_json(p) for p in problems]}

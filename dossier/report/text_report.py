@@ -1,11 +1,31 @@
-"""The readable table `dossier check` prints."""
+"""The readable report `dossier check` prints, made from the same result as the JSON one."""
 
 from __future__ import annotations
 
+from dossier.caution import MAINS_CAUTION
 from dossier.findings import Finding, Verdict, counts
-from dossier.wording import comparison_text, margin_text, problem_line, sources_text, verdict_word
+from dossier.report.result import CheckResult, RecordCheck
+from dossier.wording import comparison_text, margin_text, problem_line, signoff_line, sources_text, verdict_word
 
-MARKS = {Verdict.FAIL: "FAIL", Verdict.NOT_ASSESSED: "OPEN", Verdict.MARGINAL: "MARG", Verdict.PASS: "ok  ", Verdict.INFO: "info"}
+# The verdict's own word, as the summary line and the JSON say it; capitals so a line's verdict stands out.
+MARKS = {verdict: verdict.value.upper().ljust(max(len(v.value) for v in Verdict)) for verdict in Verdict}
+
+
+def check_text(result: CheckResult, verbose: bool) -> str:
+    lines: list[str] = []
+    for record in result.records:
+        lines.extend(record_lines(record, verbose))
+    return "\n".join(lines + ["", f"Caution: {MAINS_CAUTION}"])
+
+
+def record_lines(record: RecordCheck, verbose: bool) -> list[str]:
+    lines = record_block(record.title, record.findings, record.locate, verbose) if record.findings is not None else []
+    lines.extend(problem_block(record.problems))
+    if record.commissioning is not None and record.commissioning.commissioning is not None:
+        lines.append("  commissioning: " + record.commissioning.overview_text())
+    if record.signoff is not None:
+        lines.append("  sign-off: " + signoff_line(record.signoff))
+    return lines
 
 
 def finding_lines(finding: Finding, locate) -> list[str]:

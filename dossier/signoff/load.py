@@ -2,20 +2,16 @@
 
 from __future__ import annotations
 
-import dataclasses
-import difflib
 import re
 from dataclasses import dataclass
 from pathlib import Path
 
-from pydantic import ValidationError
-
 from dossier.problems import InputError, Location, Problem
-from dossier.reading.record import _problem as record_problem
-from dossier.reading.record import known_keys
-from dossier.reading.yaml_source import SourceMap, read_document
+from dossier.reading.model_file import load_model_file
+from dossier.reading.yaml_source import SourceMap
 from dossier.signoff.model import SignoffFile
 
+SIGNOFF_EXAMPLE = "build: ..., revision: ..., reviewer: ..."
 SIGNOFF_FILE = re.compile(r"^signoff-(?P<letter>[A-Z]{1,2})(?:-(?P<tag>[a-z0-9][a-z0-9-]{0,40}))?\.ya?ml$")
 
 
@@ -55,31 +51,11 @@ def load_signoffs(build_dir: Path, build_id: str, revision: str) -> list[LoadedS
 def load_signoff(path: Path, build_id: str, revision: str) -> LoadedSignoff:
     if not path.is_file() or path.is_symlink():
         raise InputError([Problem("not_a_file", Location(str(path)), expected="a plain sign-off file", found="a link, folder or device")])
-    document = read_document(path, str(path))
-    if not isinstance(document.data, dict):
-        found = "an empty file" if document.data is None else type(document.data).__name__
-        raise InputError([Problem("not_a_mapping", Location(document.sources.file, 1, 1), expected="a mapping of keys (build: ..., revision: ...)", found=found)])
-    entry = _validated(document.data, document.sources)
-    problems = list(_placement_problems(entry, build_id, revision, document.sources))
+    loaded = load_model_file(path, SignoffFile, SIGNOFF_EXAMPLE, str(path))
+    problems = list(_placement_problems(loaded.model, build_id, revision, loaded.sources))
     if problems:
         raise InputError(problems)
-    return LoadedSignoff(entry, document.sources, path)
-
-
-def _validated(data: dict, sources: SourceMap) -> SignoffFile:
-    try:
-        return SignoffFile.model_validate(data)
-    except ValidationError as error:
-        raise InputError([_problem(item, sources) for item in error.errors()]) from None
-
-
-def _problem(item: dict, sources: SourceMap) -> Problem:
-    problem = record_problem(item, sources)
-    path = tuple(item["loc"])
-    if item["type"] != "extra_forbidden":
-        return problem
-    close = difflib.get_close_matches(str(path[-1]), known_keys(SignoffFile, path[:-1]), n=1, cutoff=0.6)
-    return dataclasses.replace(problem, hint=f"did you mean '{close[0]}'?" if close else "")
+    return LoadedSignoff(loaded.model, loaded.sources, path)
 
 
 def _placement_problems(entry: SignoffFile, build_id: str, revision: str, sources: SourceMap):

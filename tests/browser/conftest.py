@@ -4,7 +4,6 @@ from __future__ import annotations
 
 import functools
 import http.server
-import os
 import shutil
 import subprocess
 import sys
@@ -13,17 +12,15 @@ from pathlib import Path
 
 import pytest
 
+from tests.fixtures.prerequisites import require
+
 CHROMIUM = "/usr/bin/chromium"
 CHROMIUM_ARGS = ["--no-sandbox", "--disable-gpu", "--disable-background-networking", "--disable-component-update", "--disable-sync", "--no-first-run"]
 ROOT = Path(__file__).resolve().parents[2]
 
 
 def _need_chromium():
-    if Path(CHROMIUM).exists():
-        return
-    if os.environ.get("CI"):
-        pytest.fail("CI must install Debian's chromium (see .ci/run)")
-    pytest.skip("Debian's chromium is not installed (apt-get install chromium)")
+    require("chromium")
 
 
 def build_site(archive: Path, out: Path) -> Path:

@@ -7,6 +7,8 @@ import subprocess
 
 import pytest
 
+pytestmark = pytest.mark.needs("chromium", "poppler")
+
 PAPERS = {"a4": (595, 842), "letter": (612, 792)}  # points: A4 210 x 297 mm, US Letter 8.5 x 11 in
 PAGES = re.compile(r"^Pages:\s+(\d+)", re.MULTILINE)
 SIZE = re.compile(r"^Page size:\s+([\d.]+) x ([\d.]+) pts", re.MULTILINE)

@@ -6,15 +6,13 @@ where another test's browser session is still open.
 
 from __future__ import annotations
 
-import shutil
 import threading
 
 import pytest
 
+from tests.fixtures.prerequisites import CHROMIUM
 
-CHROMIUM = shutil.which("chromium") or shutil.which("chromium-browser")
-pytest.importorskip("playwright.sync_api")
-pytestmark = pytest.mark.skipif(CHROMIUM is None, reason="needs Debian's chromium")
+pytestmark = pytest.mark.needs("chromium")
 
 
 def in_browser(url: str, check):

@@ -106,7 +106,7 @@ def test_a_file_for_another_build_or_revision(tmp_path):
 
 def test_yaml_errors_and_empty_files(tmp_path):
     assert problems_in(tmp_path, "") == [
-        "commissioning-C.yaml:1:1: a record must be a mapping; expected a mapping of keys (build: ..., revision: ...), found an empty file",
+        "commissioning-C.yaml:1:1: no keys at the top of the file; expected a mapping of keys (build: ..., revision: ...), found an empty file",
     ]
     lines = problems_in(tmp_path, HEADER + "results: {pe-continuity: {value: 0.04 ohm}\n")
     assert len(lines) == 1 and lines[0].startswith("commissioning-C.yaml:7:") and "YAML syntax error" in lines[0]

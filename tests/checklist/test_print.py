@@ -17,6 +17,8 @@ from PIL import Image
 from dossier.checklist.page import checklist_html
 from dossier.checklist.pdf import render_pdf
 
+pytestmark = pytest.mark.needs("pango", "poppler")
+
 # Paper sizes in PostScript points: ISO 216 A4 is 210 x 297 mm; US Letter is 8.5 x 11 in.
 PAPER_POINTS = {"a4": (595.28, 841.89), "letter": (612.0, 792.0)}
 SHEETS = [("sw-charger-12v", "C", "a4"), ("sw-charger-12v", "C", "letter"), ("bench-psu-13v8", "A", "a4"), ("rotator-control", "A", "letter")]

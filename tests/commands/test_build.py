@@ -60,14 +60,16 @@ def test_search_index_finds_titles_designators_parts_and_notes(site):
 
 
 def test_every_build_page_with_mains_carries_the_caution(site):
-    from dossier.caution import MAINS_CAUTION
+    from dossier.caution import MAINS_CAUTION, POWER_UP_CAUTION
 
     pages = [p for p in (site / "builds").rglob("*.html") if not p.name.startswith("checklist-")]
     texts = {path: path.read_text(encoding="utf-8") for path in pages}
     with_content = [path for path, text in texts.items() if "is the current revision of this build" not in text]
     assert len(with_content) > 20
     for path in with_content:
-        assert MAINS_CAUTION in texts[path], path
+        # the checklist page carries the power-up caution (it also defers to local codes and licensed practice), once
+        caution = POWER_UP_CAUTION if path.name == "checklist.html" else MAINS_CAUTION
+        assert caution in texts[path], path
 
 
 def test_unchanged_inputs_give_a_byte_identical_site(site, tmp_path, drawing_cache):
@@ -159,7 +161,7 @@ def test_build_command_reports_what_it_wrote(tmp_path, monkeypatch):
     archive = tmp_path / "archive"
     write_record(archive, "amp", "A")
     monkeypatch.setattr("dossier.plugins.load_calcs", lambda points=None: [TEST_CALC])
-    monkeypatch.setattr("dossier.collect.archive.load_calcs", lambda: [TEST_CALC])
+    monkeypatch.setattr("dossier.collect.archive.load_plugins", lambda: [TEST_CALC])
     result = CliRunner().invoke(main, ["build", str(archive), "-o", str(tmp_path / "out"), "--pages-only", "--no-cache", "--no-pdf"])
     assert result.exit_code == 0, result.output
     assert "wrote the page tree of 1 build" in result.output
@@ -179,7 +181,7 @@ def test_a_long_build_shows_progress_on_standard_error(tmp_path, monkeypatch):
     archive = tmp_path / "archive"
     for number in range(20):
         write_record(archive, f"unit-{number:02d}", "A")
-    monkeypatch.setattr("dossier.collect.archive.load_calcs", lambda: [TEST_CALC])
+    monkeypatch.setattr("dossier.collect.archive.load_plugins", lambda: [TEST_CALC])
     command = ["build", str(archive), "-o", str(tmp_path / "out"), "--pages-only", "--no-cache", "--no-pdf"]  # progress only: no PDFs
     result = CliRunner().invoke(main, command)
     assert result.exit_code == 0, result.output
