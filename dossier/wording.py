@@ -185,3 +185,10 @@ def limit_text(finding: Finding) -> str:
 NO_FAILING_TEXT = "No check fails and none is marginal."
 NOTHING_TO_CHECK_TEXT = "Nothing in this record for this calc to check."
 NO_FINDING_CHANGED_TEXT = "No finding changed verdict or value."
+
+PROBLEM_TEXT.update({
+    "temperature_difference": "a temperature is needed, not a difference",
+    "hidden_character": "text holds a control or direction-changing character",
+    "blank_text": "text is blank",
+    "duplicate_designator": "designator given twice",
+})

@@ -2,13 +2,12 @@
 
 from __future__ import annotations
 
-import datetime
 from typing import Literal
 
 from pydantic import Field, field_validator
 from pydantic_core import PydanticCustomError
 
-from dossier.record.fields import Section
+from dossier.record.fields import Date, Name, Section
 
 Status = Literal["design", "on-bench", "in-enclosure", "in-service", "retired"]
 STATUS_TITLES = {
@@ -53,10 +52,10 @@ class Attachment(Section):
 
 class Identity(Section):
     id: str = Field(pattern=BUILD_ID_PATTERN, description="Build id; the same as the build's folder name.")
-    title: str = Field(min_length=1, max_length=200, description="What the unit is, in a few words.")
+    title: Name = Field(description="What the unit is, in a few words.")
     revision: str = Field(pattern=REVISION_PATTERN, description="Revision letter: A, B, ... (the file is rev-A.yaml).")
-    date: datetime.date = Field(description="Date of this revision, YYYY-MM-DD.")
-    authors: list[str] = Field(min_length=1, description="Who built or changed the unit in this revision.")
+    date: Date = Field(description="Date of this revision, YYYY-MM-DD.")
+    authors: list[Name] = Field(min_length=1, description="Who built or changed the unit in this revision.")
     status: Status = Field(description="design, on-bench, in-enclosure, in-service or retired.")
     summary: str = Field("", description="What the unit is, one paragraph of Markdown.")
     changes: str = Field("", description="What this revision changed, in Markdown.")

@@ -7,7 +7,7 @@ from typing import Literal
 from pydantic import Field
 
 from dossier.record.fields import (
-    Capacitance, Designator, Current, Energy, Length, MeltingIntegral, Resistance, Section, Temperature, Voltage, WireSize,
+    Capacitance, Designator, Current, Energy, Length, MeltingIntegral, NonNegativeResistance, Resistance, Section, Temperature, Voltage, WireSize,
 )
 
 
@@ -50,9 +50,9 @@ class Protection(Section):
     fuse: Fuse | None = Field(None, description="The mains fuse.")
     inrush_limiter: InrushLimiter | None = Field(None, description="NTC thermistor or resistor that limits the switch-on current.")
     bulk_capacitance: Capacitance | None = Field(None, description="Total capacitance charged from the mains at switch-on.")
-    bulk_esr: Resistance | None = Field(None, description="Equivalent series resistance of the bulk capacitance, e.g. 0.3 ohm.")
-    source_resistance: Resistance | None = Field(None, description="Resistance of the mains source and cord, e.g. 0.5 ohm.")
-    switch_on_cycles: int | None = Field(None, ge=1, description="Switch-ons expected in the unit's life; 10000 when not given.")
+    bulk_esr: NonNegativeResistance | None = Field(None, description="Equivalent series resistance of the bulk capacitance, e.g. 0.3 ohm.")
+    source_resistance: NonNegativeResistance | None = Field(None, description="Resistance of the mains source and cord, e.g. 0.5 ohm.")
+    switch_on_cycles: int | None = Field(None, ge=1, le=1_000_000_000, description="Switch-ons expected in the unit's life; 10000 when not given.")
     earth: Earth | None = Field(None, description="Protective class, enclosure and earth bonding.")
     output_fuse: OutputFuse | None = Field(None, description="The fuse in the battery lead, for a charger.")
     reverse_polarity: str = Field("", description="How reversed battery leads are caught, e.g. 'series Schottky D9'.")
