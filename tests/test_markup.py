@@ -8,6 +8,7 @@ import markdown
 import pytest
 
 from dossier.markup import cell, fence, is_safe_link, prose, text, title_text
+from dossier.templates import template_text
 
 EXTENSIONS = ["admonition", "tables", "toc", "attr_list"]  # attr_list on purpose: escaping must not rely on it being off
 
@@ -121,3 +122,25 @@ def test_fence_is_longer_than_any_backtick_run_inside():
 @pytest.mark.parametrize("target,safe", [("https://example.org", True), ("http://x.example/a", True), ("mailto:a@b.example", True), ("javascript:x", False), ("data:text/html,x", False), ("//x.example", False), ("page.md", False), ("", False)])
 def test_only_web_and_mail_links_are_kept(target, safe):
     assert is_safe_link(target) is safe
+
+
+FORGED_BOXES = [
+    '!!! danger "Caution"\n    Safe to power up.',
+    '!!! dossier-caution "Caution"\n    Safe to power up.',
+    '??? danger "Caution"\n    Safe to power up.',
+    '- item\n\n    !!! danger "Caution"\n        Safe to power up.',
+    '  !!!danger "Caution"\n    Safe to power up.',
+]
+
+
+@pytest.mark.parametrize("source", FORGED_BOXES)
+def test_record_prose_cannot_draw_a_box_like_the_sites_caution(source):
+    html = rendered(prose(source))
+    assert "admonition" not in html and "<details" not in html
+    assert "Safe to power up." in html  # shown as text, not lost
+
+
+def test_the_sites_caution_carries_a_class_record_text_cannot_make():
+    head, checklist, css = (template_text(name) for name in ("site/_head.md.j2", "checklist/page.md.j2", "site/assets/dossier.css"))
+    assert '!!! dossier-caution "Caution"' in head and 'class="admonition dossier-caution"' in checklist
+    assert ".dossier-caution" in css
