@@ -191,4 +191,5 @@ PROBLEM_TEXT.update({
     "hidden_character": "text holds a control or direction-changing character",
     "blank_text": "text is blank",
     "duplicate_designator": "designator given twice",
+    "revision_spelt_twice": "one revision in two files",
 })
