@@ -192,4 +192,6 @@ PROBLEM_TEXT.update({
     "blank_text": "text is blank",
     "duplicate_designator": "designator given twice",
     "revision_spelt_twice": "one revision in two files",
+    "attachment_type": "attachment of a type that is not published",
+    "attachment_name": "attachment name would break its link",
 })

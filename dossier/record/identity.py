@@ -2,6 +2,7 @@
 
 from __future__ import annotations
 
+import posixpath
 from typing import Literal
 
 from pydantic import Field, field_validator
@@ -20,6 +21,13 @@ STATUS_TITLES = {
 
 BUILD_ID_PATTERN = r"^[a-z0-9][a-z0-9-]{0,62}$"
 REVISION_PATTERN = r"^[A-Z]{1,2}$"
+
+
+# The only attachment types published: a browser shows or downloads them and runs nothing in them. HTML,
+# XML (.xht, .xml), server-side includes (.shtml) and every type not named here are refused. An SVG is
+# allowed as a drawing; the pages leave out any SVG that holds script, event handlers or outside links.
+ATTACHMENT_TYPES = (".jpg", ".jpeg", ".png", ".gif", ".webp", ".svg", ".pdf", ".txt", ".csv", ".zip", ".odt", ".ods", ".odg", ".docx", ".xlsx")
+_LINK_BREAKERS = "#?%"  # they would end or re-encode the link to the file
 
 
 def relative_path_problem(path: str) -> str:
@@ -47,6 +55,15 @@ class Attachment(Section):
         problem = relative_path_problem(path)
         if problem:
             raise PydanticCustomError("unsafe_path", "expected {expected}, found {found}", {"expected": "a path inside the build folder", "found": problem})
+        return path
+
+    @field_validator("path")
+    @classmethod
+    def _inert_type(cls, path: str) -> str:
+        if posixpath.splitext(path.lower())[1] not in ATTACHMENT_TYPES:
+            raise PydanticCustomError("attachment_type", "expected {expected}, found {found}", {"expected": "a file of an inert type: " + " ".join(ATTACHMENT_TYPES), "found": repr(path)})
+        if any(ch in path for ch in _LINK_BREAKERS):
+            raise PydanticCustomError("attachment_name", "expected {expected}, found {found}", {"expected": "a name without # ? or %", "found": repr(path)})
         return path
 
 
