@@ -194,4 +194,8 @@ PROBLEM_TEXT.update({
     "revision_spelt_twice": "one revision in two files",
     "attachment_type": "attachment of a type that is not published",
     "attachment_name": "attachment name would break its link",
+    "ledger_chain_broken": "the ledger's chain is broken",
+    "ledger_entry_edited": "a ledger entry does not match its hash",
+    "ledger_event_invalid": "a ledger entry is out of order",
+    "published_values_changed": "a published revision's values have changed",
 })
