@@ -130,7 +130,8 @@ def diff(old: Path, new: Path) -> None:
 @click.option("--amend", "amend_target", metavar="BUILD:REV", help="Accept an edit of a published revision (typo fixes only); recorded and shown on the site.")
 @click.option("--reason", help="With --amend: what the edit fixed.")
 @click.option("--check", "check_only", is_flag=True, help="Only check that published revisions are unchanged (exit 1 if one changed).")
-def publish(archive: Path, targets: tuple[str, ...], amend_target: str | None, reason: str | None, check_only: bool) -> None:
+@click.option("--since", metavar="HEAD", default="", help="With --check: a ledger head shown on an earlier site or printed checklist; exit 1 unless the chain still holds it.")
+def publish(archive: Path, targets: tuple[str, ...], amend_target: str | None, reason: str | None, check_only: bool, since: str) -> None:
     """Freeze revisions: record the content hash of every unpublished revision (or of TARGETS: BUILD or BUILD:REV).
 
     A published revision cannot be edited any more: `dossier build` refuses until the edit is undone
@@ -140,4 +141,4 @@ def publish(archive: Path, targets: tuple[str, ...], amend_target: str | None, r
 
     from dossier.commands.publish import run_publish
 
-    sys.exit(run_publish(archive, list(targets), amend_target, reason, check_only, datetime.date.today()))
+    sys.exit(run_publish(archive, list(targets), amend_target, reason, check_only, datetime.date.today(), since=since))

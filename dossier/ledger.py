@@ -233,6 +233,19 @@ def chain_problems(ledger: Ledger) -> list[Problem]:
     return problems
 
 
+def history_problems(ledger: Ledger, since: str) -> list[Problem]:
+    """A head shown before (on a site or a printed checklist) must still be in the chain: if it is not, the
+    history was rewritten or deleted since. At least 12 hex digits of it are enough."""
+    since = since.strip().lower()
+    if not since:
+        return []
+    if len(since) < 12 or any(ch not in "0123456789abcdef" for ch in since):
+        return [Problem("ledger_history_rewritten", Location(LOCK_FILE), expected="a ledger head of at least 12 hex digits", found=repr(since))]
+    if since == GENESIS or any(link.hash.startswith(since) for link in ledger.chain):
+        return []
+    return [Problem("ledger_history_rewritten", Location(LOCK_FILE), expected=f"a chain holding {since[:12]}, the head shown before", found=f"a chain without it (head {ledger.head[:12]})", hint="entries were deleted or the ledger was rewritten since that head was shown")]
+
+
 def _event_problem(ledger: Ledger, index: int, link: Link, seen: set) -> list[Problem]:
     name = (link.build, link.revision)
     first_values = (ledger.entry(*name) or Publication(published=link.date, sha256=link.sha256)).values

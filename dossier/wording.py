@@ -198,4 +198,5 @@ PROBLEM_TEXT.update({
     "ledger_entry_edited": "a ledger entry does not match its hash",
     "ledger_event_invalid": "a ledger entry is out of order",
     "published_values_changed": "a published revision's values have changed",
+    "ledger_history_rewritten": "the ledger no longer holds a head shown before",
 })

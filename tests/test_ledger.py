@@ -274,3 +274,26 @@ def test_a_format_one_ledger_is_chained_when_next_published(archive):
     chain = chain_of(archive)
     assert [(link["build"], link["revision"], link["date"]) for link in chain][:1] == [("amp", "A", "2026-01-01")] and len(chain) == 3
     assert codes_found(archive) == []
+
+
+def test_publish_check_since_a_head_shown_before_finds_a_deleted_last_entry_or_ledger(archive):
+    published(archive)
+    head = load_ledger(archive).head
+    runner = CliRunner()
+    whole = runner.invoke(main, ["publish", str(archive), "--check", "--since", head])
+    assert whole.exit_code == 0 and f"ledger head: {head}" in whole.output
+    write_chain(archive, chain_of(archive)[:-1])  # the last entry deleted: the chain alone cannot tell
+    assert codes_found(archive) == []
+    cut = runner.invoke(main, ["publish", str(archive), "--check", "--since", head[:16]])
+    assert cut.exit_code == 1 and "the ledger no longer holds a head shown before" in cut.stderr
+    (archive / LOCK_FILE).unlink()
+    assert runner.invoke(main, ["publish", str(archive), "--check", "--since", head]).exit_code == 1
+
+
+def test_the_site_shows_the_ledger_head(archive, tmp_path):
+    published(archive)
+    head = load_ledger(archive).head
+    result = CliRunner().invoke(main, ["build", str(archive), "-o", str(tmp_path / "site"), "--no-pdf"])
+    assert result.exit_code in (0, 1), result.output
+    assert head in (tmp_path / "site" / "index.html").read_text(encoding="utf-8")
+    assert head in (tmp_path / "site" / "builds" / "amp" / "checklist.html").read_text(encoding="utf-8")
