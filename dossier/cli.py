@@ -2,6 +2,7 @@
 
 from __future__ import annotations
 
+import os
 import sys
 from pathlib import Path
 
@@ -32,6 +33,17 @@ def main() -> None:
     """
 
 
+def _print(text: str, nl: bool = True) -> None:
+    """Standard output that cannot be written (a full device, a closed pipe) is a message and exit 2."""
+    try:
+        click.echo(text, nl=nl)
+        sys.stdout.flush()
+    except OSError as error:
+        os.dup2(os.open(os.devnull, os.O_WRONLY), sys.stdout.fileno())  # nothing more to lose at exit
+        click.echo(f"dossier: cannot write the output: {error.strerror or error}", err=True)
+        sys.exit(Refused.exit_code)
+
+
 @main.command()
 @click.argument("paths", nargs=-1, required=True, type=click.Path(path_type=Path))
 @click.option("--format", "output_format", type=click.Choice(["text", "json"]), default="text", help="text for people, json for machines.")
@@ -48,7 +60,7 @@ def check(paths: tuple[Path, ...], output_format: str, verbose: bool) -> None:
         outcome = run_check(list(paths), verbose)
     except PluginError as error:
         raise BrokenPlugin(str(error)) from None
-    click.echo(render(outcome, output_format == "json"))
+    _print(render(outcome, output_format == "json"))
     sys.exit(outcome.exit_code)
 
 
@@ -60,9 +72,12 @@ def schema(output: Path | None) -> None:
 
     text = schema_text()
     if output is None:
-        click.echo(text, nl=False)
-    else:
+        _print(text, nl=False)
+        return
+    try:
         output.write_text(text, encoding="utf-8")
+    except OSError as error:
+        raise Refused(f"cannot write {output}: {error.strerror or error}") from None
 
 
 @main.command()

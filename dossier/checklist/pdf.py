@@ -54,11 +54,21 @@ class PdfCache:
         if path.is_file():
             return path.read_bytes()
         data = render_pdf(html)
-        path.parent.mkdir(parents=True, exist_ok=True)
-        partial = path.with_suffix(f".{os.getpid()}.part")
+        try:
+            _keep(path, data)
+        except OSError:  # a cache that cannot be written (read-only, full) only costs time
+            pass
+        return data
+
+
+def _keep(path: Path, data: bytes) -> None:
+    path.parent.mkdir(parents=True, exist_ok=True)
+    partial = path.with_suffix(f".{os.getpid()}.part")
+    try:
         partial.write_bytes(data)
         os.replace(partial, path)
-        return data
+    finally:
+        partial.unlink(missing_ok=True)
 
 
 def render_pdf(html: str) -> bytes:

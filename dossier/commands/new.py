@@ -20,10 +20,13 @@ def scaffold(archive: Path, build_id: str, today: datetime.date | None = None) -
     if not archive.is_dir():
         raise NewBuildRefused(f"archive folder {archive} does not exist")
     folder = archive / build_id
-    if folder.exists():
+    if folder.exists() or folder.is_symlink():  # a link, even to nothing, is something the user made
         raise NewBuildRefused(f"{folder} already exists; add a revision there instead of starting a new build")
-    folder.mkdir()
     path = folder / "rev-A.yaml"
     text = template_text("new-record.yaml").replace("{{ id }}", build_id)
-    path.write_text(text.replace("{{ date }}", (today or datetime.date.today()).isoformat()), encoding="utf-8")
+    try:
+        folder.mkdir()
+        path.write_text(text.replace("{{ date }}", (today or datetime.date.today()).isoformat()), encoding="utf-8")
+    except OSError as error:
+        raise NewBuildRefused(f"cannot write {path}: {error.strerror or error}") from None
     return path
