@@ -3,6 +3,7 @@
 from __future__ import annotations
 
 import json
+import math
 from dataclasses import dataclass, field
 from pathlib import Path
 
@@ -77,8 +78,20 @@ def _check_commissioning(loaded, findings, outcome: Outcome) -> None:
 def render(outcome: Outcome, as_json: bool) -> str:
     if as_json:
         body = {"shape": json_report.SHAPE_VERSION, "exit_code": outcome.exit_code, "records": outcome.json, "caution": MAINS_CAUTION}
-        return json.dumps(body, indent=2, ensure_ascii=False)
+        return json.dumps(finite(body), indent=2, ensure_ascii=False, allow_nan=False)
     return "\n".join(outcome.blocks + ["", f"Caution: {MAINS_CAUTION}"])
+
+
+def finite(data):
+    """The report with every infinite or NaN number as null: JSON has no such numbers, and a value that
+    overflowed is no value (the record's ranges refuse the inputs that would overflow)."""
+    if isinstance(data, float) and not math.isfinite(data):
+        return None
+    if isinstance(data, dict):
+        return {key: finite(value) for key, value in data.items()}
+    if isinstance(data, (list, tuple)):
+        return [finite(item) for item in data]
+    return data
 
 
 def has_failures(findings: list[Finding]) -> bool:

@@ -28,3 +28,26 @@ def test_bad_record_reports_located_problems(case: Path):
 
 def test_every_case_declares_what_it_expects():
     assert CASES and all(expected_lines(case) for case in CASES)
+
+
+def test_the_json_report_never_holds_infinity_or_nan():
+    import json
+
+    from dossier.commands.check import finite
+
+    body = {"records": [{"values": [{"value": float("inf")}, {"value": float("nan")}, {"value": 1.5}]}]}
+    text = json.dumps(finite(body), allow_nan=False)
+    assert json.loads(text)["records"][0]["values"] == [{"value": None}, {"value": None}, {"value": 1.5}]
+
+
+def test_a_record_whose_values_would_overflow_is_refused_before_any_calc(tmp_path):
+    from dossier.commands.check import render, run_check
+
+    tried("malformed records kept in tests/reading/cases/bad-records")
+    folder = tmp_path / "case"
+    folder.mkdir()
+    case = Path(__file__).parent / "cases" / "bad-records" / "absurd-magnitudes.yaml"
+    (folder / "rev-A.yaml").write_text(case.read_text(encoding="utf-8"), encoding="utf-8")
+    outcome = run_check([folder / "rev-A.yaml"])
+    text = render(outcome, as_json=True)
+    assert outcome.exit_code == 2 and "Infinity" not in text and "NaN" not in text
