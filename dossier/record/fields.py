@@ -58,7 +58,7 @@ def _not_blank(text: str) -> str:
     return text
 
 
-Name = Annotated[str, Field(min_length=1, max_length=200), AfterValidator(_not_blank)]
+Name = Annotated[str, Field(min_length=1), AfterValidator(_not_blank)]
 
 FIRST_DATE, LAST_DATE = datetime.date(1980, 1, 1), datetime.date(2099, 12, 31)
 

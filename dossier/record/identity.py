@@ -69,7 +69,7 @@ class Attachment(Section):
 
 class Identity(Section):
     id: str = Field(pattern=BUILD_ID_PATTERN, description="Build id; the same as the build's folder name.")
-    title: Name = Field(description="What the unit is, in a few words.")
+    title: Name = Field(max_length=200, description="What the unit is, in a few words.")
     revision: str = Field(pattern=REVISION_PATTERN, description="Revision letter: A, B, ... (the file is rev-A.yaml).")
     date: Date = Field(description="Date of this revision, YYYY-MM-DD.")
     authors: list[Name] = Field(min_length=1, description="Who built or changed the unit in this revision.")
