@@ -2,6 +2,7 @@
 
 from __future__ import annotations
 
+import os
 import sys
 from pathlib import Path
 
@@ -34,6 +35,19 @@ def main() -> None:
     """
 
 
+def _print(text: str, nl: bool = True) -> None:
+    """Standard output that cannot be written (a full device, a closed pipe) is a message and exit 2."""
+    try:
+        click.echo(text, nl=nl)
+        sys.stdout.flush()
+    except OSError as error:
+        os.dup2(os.open(os.devnull, os.O_WRONLY), sys.stdout.fileno())  # nothing more to lose at exit
+        click.echo(f"dossier: cannot write the output: {error.strerror or error}", err=True)
+        from dossier.commands.exits import Exit
+
+        sys.exit(Exit.REFUSED)
+
+
 @main.command()
 @click.argument("paths", nargs=-1, required=True, type=click.Path(path_type=Path))
 @click.option("--format", "output_format", type=click.Choice(["text", "json"]), default="text", help="text for people, json for machines.")
@@ -51,7 +65,7 @@ def check(paths: tuple[Path, ...], output_format: str, verbose: bool) -> None:
 
     result = run_check(list(paths))
     status = check_status(result)
-    click.echo(check_json(result, int(status)) if output_format == "json" else check_text(result, verbose))
+    _print(check_json(result, int(status)) if output_format == "json" else check_text(result, verbose))
     sys.exit(status)
 
 
@@ -64,9 +78,9 @@ def schema(output: Path | None, kind: str) -> None:
 
     text = schema_text(kind)
     if output is None:
-        click.echo(text, nl=False)
-    else:
-        output.write_text(text, encoding="utf-8")
+        _print(text, nl=False)
+        return
+    output.write_text(text, encoding="utf-8")  # a folder or a full device: OSError, a message and exit 2
 
 
 @main.command()
@@ -131,7 +145,9 @@ def diff(old: Path, new: Path) -> None:
 @click.option("--reason", help="With --amend: what the edit fixed.")
 @click.option("--check", "check_only", is_flag=True, help="Only check that published revisions are unchanged (exit 1 if one changed).")
 @click.option("--even-if-blocked", is_flag=True, help="Publish revisions whose findings block power-up too (they are refused without it).")
-def publish(archive: Path, targets: tuple[str, ...], amend_target: str | None, reason: str | None, check_only: bool, even_if_blocked: bool) -> None:
+@click.option("--since", metavar="HEAD", default="", help="With --check: a ledger head shown on an earlier site or printed checklist; exit 1 unless the chain still holds it.")
+def publish(archive: Path, targets: tuple[str, ...], amend_target: str | None, reason: str | None, check_only: bool, even_if_blocked: bool,
+            since: str) -> None:
     """Freeze revisions: record the content hash of every unpublished revision (or of TARGETS: BUILD or BUILD:REV).
 
     A published revision cannot be edited any more: `dossier build` refuses until the edit is undone
@@ -142,7 +158,7 @@ def publish(archive: Path, targets: tuple[str, ...], amend_target: str | None, r
 
     from dossier.commands.publish import run_publish
 
-    sys.exit(run_publish(archive, list(targets), amend_target, reason, check_only, datetime.date.today(), even_if_blocked))
+    sys.exit(run_publish(archive, list(targets), amend_target, reason, check_only, datetime.date.today(), even_if_blocked, since))
 
 
 @main.command("sign-off")

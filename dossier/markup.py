@@ -24,6 +24,8 @@ _SAFE_LINK = re.compile(r"^(https?://[^\s()]+|mailto:[^\s()]+)$", re.IGNORECASE)
 _INLINE_TARGET = re.compile(r"\]\(\s*(?P<target>[^\s)]*)")
 # Anywhere, not only at a line start: inside a list item the definition's indent is stripped first.
 _REFERENCE_DEFINITION = re.compile(r"\[(?P<label>[^\]\n]*)\]:\s*(?P<target>\S*)")
+# Admonition and collapsible-block markers: record text must not draw a box like the site's own caution.
+_BLOCK_MARKER = re.compile(r"^(?P<indent>[ \t]*)(?P<mark>[!?])(?=(?P=mark){2})", re.MULTILINE)
 _ATX_HEADING = re.compile(r"^(?P<indent> {0,3})(?P<marks>#{1,6})(?=\s|$)", re.MULTILINE)
 _HEADING_SHIFT = 2
 
@@ -46,6 +48,7 @@ def prose(value, heading_floor: int = 3) -> str:
     escaped = _INLINE_TARGET.sub(_neutralise_inline, escaped)
     escaped = _REFERENCE_DEFINITION.sub(_neutralise_definition, escaped)
     escaped = escaped.replace("![", "\\![")
+    escaped = _BLOCK_MARKER.sub(lambda m: f"{m['indent']}&#{ord(m['mark'])};", escaped)
     return _separate_lists(_demote_headings(escaped, heading_floor)).strip()
 
 

@@ -56,7 +56,10 @@ _DERIVED = {
 @lru_cache(maxsize=1)
 def registry() -> pint.UnitRegistry:
     """The registry; built once and cached on disk so start-up stays quick."""
-    reg = pint.UnitRegistry(cache_folder=":auto:", autoconvert_offset_to_baseunit=True)
+    try:
+        reg = pint.UnitRegistry(cache_folder=":auto:", autoconvert_offset_to_baseunit=True)
+    except OSError:  # the cache folder cannot be made or written (read-only home, odd XDG_CACHE_HOME): go without
+        reg = pint.UnitRegistry(cache_folder=None, autoconvert_offset_to_baseunit=True)
     reg.formatter.default_format = "~P"
     pint.set_application_registry(reg)  # quantities unpickled from a worker process land in this registry too
     return reg

@@ -360,3 +360,19 @@ PROBLEM_TEXT.update({kind: "wrong type of value" for kind in WRONG_TYPE_KINDS})
 PROBLEM_TEXT.update({kind: "value out of range" for kind in OUT_OF_RANGE_KINDS})
 PROBLEM_TEXT.update({kind: "wrong length" for kind in LENGTH_KINDS})
 PROBLEM_TEXT["enum"] = PROBLEM_TEXT["literal_error"]
+
+
+PROBLEM_TEXT.update({
+    "temperature_difference": "a temperature is needed, not a difference",
+    "hidden_character": "text holds a control or direction-changing character",
+    "blank_text": "text is blank",
+    "duplicate_designator": "designator given twice",
+    "revision_spelt_twice": "one revision in two files",
+    "attachment_type": "attachment of a type that is not published",
+    "attachment_name": "attachment name would break its link",
+    "ledger_chain_broken": "the ledger's chain is broken",
+    "ledger_entry_edited": "a ledger entry does not match its hash",
+    "ledger_event_invalid": "a ledger entry is out of order",
+    "published_values_changed": "a published revision's values have changed",
+    "ledger_history_rewritten": "the ledger no longer holds a head shown before",
+})

@@ -9,7 +9,7 @@ import yaml
 from click.testing import CliRunner
 
 from dossier.cli import main
-from dossier.ledger import LOCK_FILE, Target, amend, frozen_problems, load_ledger, next_letter, publish, record_digest, save_ledger
+from dossier.ledger import LOCK_FILE, Target, amend, canonical_hash, frozen_problems, load_ledger, next_letter, publish, record_digest, save_ledger
 from dossier.problems import InputError
 from dossier.wording import problem_line
 from tests.fixtures.site_kit import write_record
@@ -131,7 +131,8 @@ def test_the_lock_file_is_readable_yaml_with_a_header(archive):
     published(archive)
     text = (archive / LOCK_FILE).read_text(encoding="utf-8")
     assert text.startswith("# Published revisions")
-    assert set(yaml.safe_load(text)["builds"]) == {"amp", "psu"}
+    chain = yaml.safe_load(text)["chain"]
+    assert [(link["build"], link["revision"], link["event"]) for link in chain] == [("amp", "A", "published"), ("amp", "B", "published"), ("psu", "A", "published")]
 
 
 def test_a_broken_lock_file_is_a_located_error(archive):
@@ -203,3 +204,118 @@ def test_a_revision_that_blocks_nothing_is_published_without_the_flag(tmp_path, 
     result = CliRunner().invoke(main, ["publish", str(root)])
     assert result.exit_code == 0, result.output
     assert load_ledger(root).entry("amp", "A") is not None
+
+
+# The ledger as a hash chain: each entry names the hash of the one before and hashes its own content.
+
+
+def chain_of(archive) -> list[dict]:
+    return yaml.safe_load((archive / LOCK_FILE).read_text(encoding="utf-8"))["chain"]
+
+
+def write_chain(archive, chain: list[dict]) -> None:
+    (archive / LOCK_FILE).write_text(yaml.safe_dump({"format": 2, "chain": chain}, sort_keys=False), encoding="utf-8")
+
+
+def codes_found(archive) -> list[str]:
+    return [p.code for p in frozen_problems(archive, load_ledger(archive))]
+
+
+def rehash(link: dict) -> dict:
+    """What someone who knows the format does after editing an entry: recompute its own hash."""
+    return dict(link, hash=canonical_hash({key: value for key, value in link.items() if key != "hash"}))
+
+
+def test_each_entry_names_the_hash_of_the_one_before(archive):
+    published(archive)
+    chain = chain_of(archive)
+    assert chain[0]["previous"] == "0" * 64
+    assert [link["previous"] for link in chain[1:]] == [link["hash"] for link in chain[:-1]]
+    assert load_ledger(archive).head == chain[-1]["hash"] and codes_found(archive) == []
+
+
+def test_an_edited_entry_is_found_even_with_its_hash_rewritten(archive):
+    published(archive)
+    path = archive / "amp" / "rev-A.yaml"
+    path.write_text(path.read_text(encoding="utf-8").replace("2.5 mm", "4 mm"), encoding="utf-8")
+    chain = chain_of(archive)
+    chain[0] = rehash(dict(chain[0], sha256=record_digest(path)))  # the entry now matches the edited file
+    write_chain(archive, chain)
+    assert codes_found(archive) == ["ledger_chain_broken"]  # the next entry still names the old hash
+
+
+def test_an_edited_entry_is_found_by_its_own_hash(archive):
+    published(archive)
+    chain = chain_of(archive)
+    chain[1]["date"] = "2026-01-01"
+    write_chain(archive, chain)
+    assert codes_found(archive) == ["ledger_entry_edited"]
+
+
+def test_a_deleted_entry_breaks_the_chain(archive):
+    published(archive)
+    chain = chain_of(archive)
+    write_chain(archive, [chain[0], chain[2]])
+    problems = frozen_problems(archive, load_ledger(archive))
+    assert [p.code for p in problems] == ["ledger_chain_broken"]
+    assert problems[0].location.line > 1 and problems[0].key == "chain[1].previous"
+
+
+def test_a_hand_written_amendment_covering_a_value_change_is_found(archive):
+    published(archive)
+    path = archive / "amp" / "rev-A.yaml"
+    path.write_text(path.read_text(encoding="utf-8").replace("2.5 mm", "4 mm"), encoding="utf-8")
+    chain = chain_of(archive)
+    forged = {"build": "amp", "revision": "A", "event": "amended", "date": "2026-04-02", "sha256": record_digest(path),
+              "values": chain[0]["values"], "files": {}, "reason": "typo", "previous": chain[-1]["hash"], "hash": ""}
+    write_chain(archive, [*chain, rehash(forged)])  # a well-formed entry: only the file's values give it away
+    assert codes_found(archive) == ["published_values_changed"]
+
+
+def test_amend_refuses_a_change_of_values(archive):
+    published(archive)
+    path = archive / "amp" / "rev-A.yaml"
+    path.write_text(path.read_text(encoding="utf-8").replace("2.5 mm", "4 mm"), encoding="utf-8")
+    with pytest.raises(InputError) as refused:
+        amend(archive, Target.parse("amp:A"), "typo", LATER)
+    assert [p.code for p in refused.value.problems] == ["published_values_changed"]
+
+
+def test_a_second_spelling_beside_a_published_revision_is_found(archive):
+    published(archive)
+    path = archive / "amp" / "rev-A.yaml"
+    (archive / "amp" / "rev-A.yml").write_text(path.read_text(encoding="utf-8").replace("2.5 mm", "4 mm"), encoding="utf-8")
+    assert codes_found(archive) == ["revision_spelt_twice"]
+
+
+def test_a_format_one_ledger_is_chained_when_next_published(archive):
+    (archive / LOCK_FILE).write_text(yaml.safe_dump({"format": 1, "builds": {"amp": {"A": {
+        "published": "2026-01-01", "sha256": record_digest(archive / "amp" / "rev-A.yaml"), "files": {}, "amendments": []}}}}), encoding="utf-8")
+    assert codes_found(archive) == []
+    published(archive)
+    chain = chain_of(archive)
+    assert [(link["build"], link["revision"], link["date"]) for link in chain][:1] == [("amp", "A", "2026-01-01")] and len(chain) == 3
+    assert codes_found(archive) == []
+
+
+def test_publish_check_since_a_head_shown_before_finds_a_deleted_last_entry_or_ledger(archive):
+    published(archive)
+    head = load_ledger(archive).head
+    runner = CliRunner()
+    whole = runner.invoke(main, ["publish", str(archive), "--check", "--since", head])
+    assert whole.exit_code == 0 and f"ledger head: {head}" in whole.output
+    write_chain(archive, chain_of(archive)[:-1])  # the last entry deleted: the chain alone cannot tell
+    assert codes_found(archive) == []
+    cut = runner.invoke(main, ["publish", str(archive), "--check", "--since", head[:16]])
+    assert cut.exit_code == 1 and "the ledger no longer holds a head shown before" in cut.stderr
+    (archive / LOCK_FILE).unlink()
+    assert runner.invoke(main, ["publish", str(archive), "--check", "--since", head]).exit_code == 1
+
+
+def test_the_site_shows_the_ledger_head(archive, tmp_path):
+    published(archive)
+    head = load_ledger(archive).head
+    result = CliRunner().invoke(main, ["build", str(archive), "-o", str(tmp_path / "site"), "--no-pdf"])
+    assert result.exit_code in (0, 1), result.output
+    assert head in (tmp_path / "site" / "index.html").read_text(encoding="utf-8")
+    assert head in (tmp_path / "site" / "builds" / "amp" / "checklist.html").read_text(encoding="utf-8")

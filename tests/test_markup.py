@@ -8,6 +8,7 @@ import markdown
 import pytest
 
 from dossier.markup import cell, fence, is_safe_link, prose, text, title_text
+from dossier.templates import template_text
 
 EXTENSIONS = ["admonition", "tables", "toc", "attr_list"]  # attr_list on purpose: escaping must not rely on it being off
 
@@ -136,3 +137,25 @@ def test_a_numbered_list_under_a_line_and_a_list_already_apart_are_both_lists():
 
 def test_a_hyphen_inside_a_sentence_starts_no_list():
     assert prose("Rated 2 - 3 A\nat 25 degC") == "Rated 2 - 3 A\nat 25 degC"
+
+
+FORGED_BOXES = [
+    '!!! danger "Caution"\n    Safe to power up.',
+    '!!! dossier-caution "Caution"\n    Safe to power up.',
+    '??? danger "Caution"\n    Safe to power up.',
+    '- item\n\n    !!! danger "Caution"\n        Safe to power up.',
+    '  !!!danger "Caution"\n    Safe to power up.',
+]
+
+
+@pytest.mark.parametrize("source", FORGED_BOXES)
+def test_record_prose_cannot_draw_a_box_like_the_sites_caution(source):
+    html = rendered(prose(source))
+    assert "admonition" not in html and "<details" not in html
+    assert "Safe to power up." in html  # shown as text, not lost
+
+
+def test_the_sites_caution_carries_a_class_record_text_cannot_make():
+    head, checklist, css = (template_text(name) for name in ("site/_head.md.j2", "checklist/page.md.j2", "site/assets/dossier.css"))
+    assert '!!! dossier-caution "Caution"' in head and 'class="admonition dossier-caution"' in checklist
+    assert ".dossier-caution" in css

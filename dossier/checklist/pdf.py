@@ -46,8 +46,11 @@ class PdfCache:
         if path.is_file():
             return path.read_bytes()
         data = render_pdf(html)
-        path.parent.mkdir(parents=True, exist_ok=True)
-        write_whole(path, data)
+        try:
+            path.parent.mkdir(parents=True, exist_ok=True)
+            write_whole(path, data)
+        except OSError:  # a cache that cannot be written (read-only, full) only costs time
+            pass
         return data
 
 

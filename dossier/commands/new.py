@@ -23,13 +23,16 @@ def scaffold(archive: Path, build_id: str, today: datetime.date | None = None) -
         raise NewBuildRefused(f"build id {build_id!r}: use lower-case letters, digits and hyphens, starting with a letter or digit")
     _start_archive_if_new(archive)
     folder = archive / build_id
-    if folder.exists() or folder.is_symlink():
+    if folder.exists() or folder.is_symlink():  # a link, even to nothing, is something the user made
         raise NewBuildRefused(f"{folder} already exists; add a revision there instead of starting a new build")
-    refresh_schema(archive)
-    folder.mkdir()
     path = folder / "rev-A.yaml"
     text = template_text("new-record.yaml").replace("{{ id }}", build_id).replace("{{ schema }}", f"../{SCHEMA_FILE}")
-    path.write_text(text.replace("{{ date }}", (today or datetime.date.today()).isoformat()), encoding="utf-8")
+    try:
+        refresh_schema(archive)
+        folder.mkdir()
+        path.write_text(text.replace("{{ date }}", (today or datetime.date.today()).isoformat()), encoding="utf-8")
+    except OSError as error:
+        raise NewBuildRefused(f"cannot write {path}: {error.strerror or error}") from None
     return path
 
 

@@ -8,16 +8,16 @@ from pathlib import Path
 import click
 
 from dossier.reading.archive import build_dirs, revision_files
-from dossier.ledger import LOCK_FILE, Target, amend, frozen_problems, load_ledger, publish, save_ledger
+from dossier.ledger import LOCK_FILE, Target, amend, frozen_problems, history_problems, load_ledger, publish, save_ledger
 from dossier.commands.exits import HANDLED, Exit, message_of, status_of
 from dossier.wording import problem_line
 
 
 def run_publish(archive: Path, targets: list[str], amend_target: str | None, reason: str | None, check_only: bool, today: datetime.date,
-                even_if_blocked: bool = False) -> int:
+                even_if_blocked: bool = False, since: str = "") -> int:
     try:
         if check_only:
-            return _check(archive)
+            return _check(archive, since)
         if amend_target is not None:
             return _amend(archive, Target.parse(amend_target), reason or "", today)
         return _publish(archive, [Target.parse(t) for t in targets], today, even_if_blocked)
@@ -70,12 +70,13 @@ def _amend(archive: Path, target: Target, reason: str, today: datetime.date) -> 
     return Exit.DONE
 
 
-def _check(archive: Path) -> int:
+def _check(archive: Path, since: str = "") -> int:
     ledger = load_ledger(archive)
-    problems = frozen_problems(archive, ledger)
+    problems = frozen_problems(archive, ledger) + history_problems(ledger, since)
     for problem in problems:
         click.echo(problem_line(problem), err=True)
     waiting = [f"{rev.build_id} rev {rev.letter}" for build in build_dirs(archive) for rev in revision_files(build) if ledger.entry(rev.build_id, rev.letter) is None]
     published = sum(len(revisions) for revisions in ledger.builds.values())
     click.echo(f"{published} published revision(s), {len(problems)} changed since publication; not yet published: {', '.join(waiting) or 'none'}")
+    click.echo(f"ledger head: {ledger.head}")
     return Exit.FAILED if problems else Exit.DONE

@@ -53,7 +53,10 @@ class DrawingCache:
             return stored
         self.misses += 1
         svg = draw()
-        self._write(key, svg)
+        try:
+            self._write(key, svg)
+        except OSError:  # a cache that cannot be written (read-only, full) only costs time
+            pass
         return svg
 
     def _read(self, key: str) -> str | None:

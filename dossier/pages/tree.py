@@ -60,6 +60,7 @@ class TreeWriter:
             "Md": Md,
             "labels": PAGE_LABELS,
             "words": wording,
+            "ledger_head": archive.ledger.head if archive.ledger.chain else "",
         }
 
     def page(self, path: str, template: str, **context) -> None:

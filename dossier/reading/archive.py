@@ -3,6 +3,7 @@
 from __future__ import annotations
 
 import re
+import stat
 from dataclasses import dataclass
 from pathlib import Path
 
@@ -23,6 +24,7 @@ class RevisionFile:
     build_id: str
     letter: str
     path: Path
+    twins: tuple[Path, ...] = ()  # other files spelling the same revision (rev-C.yml beside rev-C.yaml)
 
 
 def folder_name(folder: Path) -> str:
@@ -31,11 +33,14 @@ def folder_name(folder: Path) -> str:
 
 
 def revision_files(build_dir: Path) -> list[RevisionFile]:
-    found = []
-    for path in build_dir.iterdir():
+    """Every name that spells a revision, whatever kind of file it is: what cannot be read is reported when
+    it is loaded, never skipped. Two spellings of one revision make one entry that refuses to load."""
+    by_letter: dict[str, list[Path]] = {}
+    for path in sorted(build_dir.iterdir()):
         match = REVISION_FILE.match(path.name)
-        if match and path.is_file():
-            found.append(RevisionFile(folder_name(build_dir), match["letter"], path))
+        if match:
+            by_letter.setdefault(match["letter"], []).append(path)
+    found = [RevisionFile(folder_name(build_dir), letter, paths[0], tuple(paths[1:])) for letter, paths in by_letter.items()]
     return sorted(found, key=lambda r: revision_order(r.letter))
 
 
@@ -68,11 +73,47 @@ def _expand_one(path: Path) -> list[RevisionFile]:
 
 def load_revision(rev: RevisionFile, shown_as: str | None = None) -> LoadedRecord:
     """Load a record and check that it agrees with where it is kept."""
+    problems = file_problems(rev, shown_as)
+    if problems:
+        raise InputError(problems)
     loaded = load_record(rev.path, shown_as)
     problems = list(_placement_problems(rev, loaded))
     if problems:
         raise InputError(problems)
     return loaded
+
+
+def file_problems(rev: RevisionFile, shown_as: str | None = None) -> list[Problem]:
+    """What makes a revision file unfit to read: a second spelling, a link out of the archive or to nothing,
+    or something other than a regular file (a folder, a FIFO, a device)."""
+    where = Location(shown_as or str(rev.path))
+    if rev.twins:
+        names = ", ".join(path.name for path in (rev.path, *rev.twins))
+        return [Problem("revision_spelt_twice", where, expected=f"one file for revision {rev.letter}", found=names, hint="keep one and delete the others")]
+    try:
+        target = rev.path.resolve(strict=True)
+    except (OSError, RuntimeError):  # a dangling link, or a loop of links
+        return [Problem("file_unreadable", where, expected="a record file", found="a link to nothing")]
+    if not target.is_relative_to(_archive_root(rev.path)):
+        return [Problem("unsafe_path", where, expected="a record file inside the archive", found="a link to a file outside it")]
+    kind = file_kind(target)
+    if kind != "file":
+        return [Problem("file_unreadable", where, expected="a record file", found=kind)]
+    return []
+
+
+def _archive_root(path: Path) -> Path:
+    """The archive a revision file belongs to: the folder holding its build folder (links in it resolved)."""
+    return path.parent.parent.resolve()
+
+
+def file_kind(path: Path) -> str:
+    """'file' for a regular file, else what it is, in words."""
+    mode = path.stat().st_mode
+    for test, kind in ((stat.S_ISREG, "file"), (stat.S_ISDIR, "a folder"), (stat.S_ISFIFO, "a FIFO (named pipe)"), (stat.S_ISSOCK, "a socket")):
+        if test(mode):
+            return kind
+    return "a device"
 
 
 def _placement_problems(rev: RevisionFile, loaded: LoadedRecord):

@@ -2,7 +2,9 @@
 
 from __future__ import annotations
 
+import os
 import re
+import stat
 from dataclasses import dataclass
 from pathlib import Path
 
@@ -67,15 +69,34 @@ def read_document(path: Path, shown_as: str | None = None) -> Document:
 
 def _read_text(path: Path, name: str) -> str:
     try:
-        raw = path.read_bytes()
+        raw = _read_bounded(path, name)
     except OSError as error:
-        raise _single("file_unreadable", Location(name), found=error.strerror or str(error))
-    if len(raw) > MAX_BYTES:
-        raise _single("file_too_large", Location(name), expected=f"at most {MAX_BYTES:,} bytes", found=f"{len(raw):,} bytes")
+        raise _single("file_unreadable", Location(name), found=error.strerror or str(error)) from None
     try:
         return raw.decode("utf-8-sig")
     except UnicodeDecodeError as error:
         return _bad_encoding(raw, error, name)
+
+
+def _read_bounded(path: Path, name: str) -> bytes:
+    """The file's bytes, never more than the limit: its size is checked before reading, and the reading stops
+    one byte past the limit (a file may grow, or a special file report no size). A FIFO or a device is not
+    read at all: opened without waiting, then refused by its kind."""
+    descriptor = os.open(path, os.O_RDONLY | os.O_NONBLOCK | getattr(os, "O_CLOEXEC", 0))
+    with os.fdopen(descriptor, "rb") as stream:
+        status = os.fstat(stream.fileno())
+        if not stat.S_ISREG(status.st_mode):
+            raise _single("file_unreadable", Location(name), expected="a regular file", found="a folder" if stat.S_ISDIR(status.st_mode) else "a special file (FIFO, socket or device)")
+        if status.st_size > MAX_BYTES:
+            raise _too_large(name, status.st_size)
+        raw = stream.read(MAX_BYTES + 1)
+    if len(raw) > MAX_BYTES:
+        raise _too_large(name, len(raw))
+    return raw
+
+
+def _too_large(name: str, size: int) -> InputError:
+    return _single("file_too_large", Location(name), expected=f"at most {MAX_BYTES:,} bytes", found=f"{size:,} bytes")
 
 
 def _bad_encoding(raw: bytes, error: UnicodeDecodeError, name: str):

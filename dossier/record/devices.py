@@ -4,15 +4,14 @@ from __future__ import annotations
 
 from typing import Literal
 
-from pydantic import Field, field_validator, model_validator
+from pydantic import Field, model_validator
 from pydantic_core import PydanticCustomError
 
 from dossier.record.fields import (
     Designator,
-    Capacitance, Current, Duration, Energy, Frequency, Power, Ratio, Resistance, Section, Temperature, ThermalResistance,
-    Voltage,
+    Capacitance, Current, Duration, Energy, Frequency, MarginRatio, Power, Ratio, Resistance, Section, Temperature, TemperatureRise,
+    ThermalResistance, Voltage,
 )
-from dossier.units import Q_
 
 SafetyClass = Literal["", "X1", "X2", "X3", "Y1", "Y2", "Y3", "Y4"]
 DiodeRole = Literal["mains-bridge", "bridge", "centre-tapped", "half-wave", "doubler", "reset", "clamp", "freewheel"]
@@ -94,26 +93,12 @@ class Heatsink(Section):
 class Margins(Section):
     """Margins a club or builder sets for its reviews; each one left out falls back to common practice."""
 
-    switch_voltage: Ratio | None = Field(None, description="Switch voltage rating over the highest voltage it blocks, e.g. 1.25.")
-    rectifier_voltage: Ratio | None = Field(None, description="Rectifier reverse-voltage rating over its peak inverse voltage, e.g. 1.5.")
-    capacitor_voltage: Ratio | None = Field(None, description="Capacitor voltage rating over the highest voltage it sees, e.g. 1.1.")
-    junction: Temperature | None = Field(None, description="How far below its maximum a junction should stay, e.g. 25 K.")
+    switch_voltage: MarginRatio | None = Field(None, description="Switch voltage rating over the highest voltage it blocks, e.g. 1.25.")
+    rectifier_voltage: MarginRatio | None = Field(None, description="Rectifier reverse-voltage rating over its peak inverse voltage, e.g. 1.5.")
+    capacitor_voltage: MarginRatio | None = Field(None, description="Capacitor voltage rating over the highest voltage it sees, e.g. 1.1.")
+    junction: TemperatureRise | None = Field(None, description="How far below its maximum a junction should stay, e.g. 25 K.")
     touch_temperature: Temperature | None = Field(None, description="Hottest a touchable heatsink may get, e.g. 60 degC.")
     basis: str = Field("", description="Who sets these margins, e.g. 'club build notes, sheet 3'.")
-
-    @field_validator("switch_voltage", "rectifier_voltage", "capacitor_voltage")
-    @classmethod
-    def _at_least_one(cls, ratio):
-        if ratio is not None and ratio.to("").magnitude < 1:
-            raise ValueError("a ratio of at least 1, e.g. 1.5")
-        return ratio
-
-    @field_validator("junction")
-    @classmethod
-    def _a_difference(cls, margin):
-        if margin is not None and margin.units not in (Q_(1, "K").units, Q_(1, "delta_degC").units):
-            raise ValueError("a temperature difference in K, e.g. 25 K")
-        return margin
 
 
 class SoakReading(Section):

@@ -4,18 +4,12 @@ from __future__ import annotations
 
 from typing import Literal
 
-from pydantic import Field, ValidationInfo, field_validator, model_validator
+from pydantic import Field, model_validator
 
-from dossier.record.fields import Length, Section, Voltage
+from dossier.record.fields import Length, Name, Section, Voltage
 
 Grade = Literal["functional", "basic", "supplementary", "reinforced", "double"]
 MaterialGroup = Literal["I", "II", "IIIa", "IIIb"]
-
-
-def _positive(value, info: ValidationInfo):
-    if value is not None and value.magnitude <= 0:
-        raise ValueError(f"{info.field_name} must be greater than zero")
-    return value
 
 
 class Slot(Section):
@@ -29,11 +23,9 @@ class Slot(Section):
     )
     note: str = Field("", description="Where the slot is, e.g. 'routed under T1'.")
 
-    _positive = field_validator("width")(_positive)
-
 
 class Barrier(Section):
-    name: str = Field(min_length=1, description="e.g. 'primary to output'.")
+    name: Name = Field(description="e.g. 'primary to output'.")
     between: tuple[str, str] = Field(description="The two circuits it separates, e.g. [mains, output].")
     grade: Grade = Field(description="functional, basic, supplementary, reinforced or double.")
     material_group: MaterialGroup | None = Field(None, description="Insulating material group I, II, IIIa or IIIb.")
@@ -56,8 +48,6 @@ class Barrier(Section):
     )
     slots: list[Slot] = Field(default_factory=list, description="Grooves or slots cut across the creepage path.")
     parts: list[str] = Field(default_factory=list, description="Designators that bridge or form the barrier, e.g. T1, C9.")
-
-    _positive = field_validator("creepage", "clearance", "working_voltage", "working_dc", "working_peak")(_positive)
 
     @model_validator(mode="after")
     def _material_given(self):

@@ -9,11 +9,9 @@ from pydantic_core import PydanticCustomError
 
 from dossier.record.fields import (
     Designator,
-    Area, Current, FluxDensity, Frequency, InductanceFactor, Length, Ratio, Section, Temperature, Voltage, WireSize,
-    quantity,
+    Area, Current, Name, FieldStrength, FluxDensity, Frequency, InductanceFactor, Length, Section, Share, Temperature, Voltage, WireSize,
+    out_of_range,
 )
-
-FieldStrength = quantity("[current] / [length]")
 
 
 def _bad(code: str, expected: str, found: str) -> PydanticCustomError:
@@ -22,12 +20,6 @@ def _bad(code: str, expected: str, found: str) -> PydanticCustomError:
 
 def _text(quantity) -> str:
     return f"{quantity.magnitude:g} {quantity.units:~P}".strip()
-
-
-def _positive(value, info: ValidationInfo):
-    if value is not None and value.magnitude <= 0:
-        raise _bad("value_out_of_range", "more than zero", _text(value))
-    return value
 
 
 class Steinmetz(Section):
@@ -45,21 +37,12 @@ class CoreMaterial(Section):
                           "saturation. When not given: silicon-steel at 400 Hz or below, ferrite above.")
     saturation_flux: FluxDensity = Field(description="Saturation flux density at the hot temperature below.")
     saturation_temperature: Temperature | None = Field(None, description="Temperature the saturation figure is given at.")
-    initial_permeability: float | None = Field(None, gt=0, description="Initial relative permeability; gives A_L when A_L is not declared.")
+    initial_permeability: float | None = Field(None, gt=0, le=1_000_000, description="Initial relative permeability; gives A_L when A_L is not declared.")
     steinmetz: Steinmetz | None = Field(None, description="Steinmetz parameters for core loss, from the maker's loss curves.")
     max_temperature: Temperature | None = Field(None, description="Highest temperature the core (and its winding) may reach.")
     max_field: FieldStrength | None = Field(None, description="Highest DC field strength N I / l_e the material takes before its permeability falls too far, e.g. 4000 A/m.")
     remanence: FluxDensity | None = Field(None, description="Remanent flux density B_r at the hot temperature, from the maker's data; a unipolar drive's flux starts there. "
                                                            "When not given: 0.2 T for ferrite and iron powder, 1.0 T for silicon steel (harsher; from memory).")
-
-    _positive = field_validator("saturation_flux", "max_field")(_positive)
-
-    @field_validator("remanence")
-    @classmethod
-    def _not_negative(cls, value):
-        if value is not None and value.magnitude < 0:
-            raise _bad("value_out_of_range", "zero or more", _text(value))
-        return value
 
 
 class Core(Section):
@@ -78,17 +61,12 @@ class Core(Section):
                           "a ferrite or powder toroid is 'powder', a steel toroid 'tape-wound', a declared core the lowest K_j of the table (harsher).")
     material: CoreMaterial = Field(description="The core material's magnetic limits and losses.")
 
-    _positive = field_validator(
-        "outer_diameter", "height", "effective_area", "path_length", "window_area", "mean_turn_length", "surface_area", "al",
-    )(_positive)
-
     @field_validator("inner_diameter")
     @classmethod
     def _inside_outer(cls, value, info: ValidationInfo):
-        _positive(value, info)
         outer = info.data.get("outer_diameter")
         if value is not None and outer is not None and value >= outer:
-            raise _bad("value_out_of_range", f"less than the outer diameter ({_text(outer)})", _text(value))
+            raise out_of_range(f"less than the outer diameter ({_text(outer)})", _text(value))
         return value
 
     @model_validator(mode="after")
@@ -112,39 +90,28 @@ class Excitation(Section):
     voltage: Voltage = Field(description="Amplitude for a square wave, RMS for a sine, across the winding named.")
     frequency: Frequency = Field(description="Switching or mains frequency of the drive.")
     winding: str = Field("", description="Winding the voltage is across; default the first.")
-    duty: Ratio | None = Field(None, description="Fraction of the period the voltage is applied (square wave); default 100 %.")
-
-    _positive = field_validator("voltage", "frequency")(_positive)
-
-    @field_validator("duty")
-    @classmethod
-    def _fraction(cls, value):
-        if value is not None and not 0 < value.to("").magnitude <= 1:
-            raise _bad("value_out_of_range", "more than 0 % and at most 100 %", _text(value))
-        return value
+    duty: Share | None = Field(None, description="Fraction of the period the voltage is applied (square wave); default 100 %.")
 
 
 class Winding(Section):
-    name: str = Field(min_length=1, description="Name of the winding, e.g. primary, secondary, upper base.")
+    name: Name = Field(description="Name of the winding, e.g. primary, secondary, upper base.")
     role: Literal["primary", "secondary", "feedback", "drive", "choke", "auxiliary"] = Field("secondary", description="primary, secondary, feedback, drive, choke or auxiliary.")
-    turns: float = Field(gt=0, description="Turns, end to end (a centre-tapped winding counts both halves); a fraction is allowed.")
+    turns: float = Field(ge=0.25, le=100_000, description="Turns, end to end (a centre-tapped winding counts both halves); a fraction is allowed.")
     wire: WireSize = Field(description="Bare-copper size of one strand: AWG 23 or 0.55 mm.")
-    strands: int = Field(1, ge=1, description="Strands in parallel.")
+    strands: int = Field(1, ge=1, le=10_000, description="Strands in parallel.")
     enamel_grade: Literal[1, 2, 3] | None = Field(None, description="IEC 60317 enamel grade 1, 2 or 3; grade 2 is assumed when not given.")
     overall_diameter: Length | None = Field(None, description="Measured or datasheet diameter over the insulation; overrides the enamel grade.")
     triple_insulated: bool = Field(False, description="Wound with triple-insulated wire.")
-    tape_layers: int = Field(0, ge=0, description="Layers of insulating tape over this winding.")
+    tape_layers: int = Field(0, ge=0, le=1000, description="Layers of insulating tape over this winding.")
     centre_tap: bool = Field(False, description="The winding has a centre tap; turns count the whole winding.")
     current: Current | None = Field(None, description="RMS current (in each half of a centre-tapped winding); default derived from the output rating.")
-
-    _positive = field_validator("wire", "overall_diameter", "current")(_positive)
 
     @field_validator("overall_diameter")
     @classmethod
     def _over_copper(cls, value, info: ValidationInfo):
         wire = info.data.get("wire")
         if value is not None and wire is not None and value < wire:
-            raise _bad("value_out_of_range", f"at least the copper diameter ({_text(wire)})", _text(value))
+            raise out_of_range(f"at least the copper diameter ({_text(wire)})", _text(value))
         return value
 
 
@@ -160,8 +127,6 @@ class Magnetic(Section):
     insulation_class: Literal["A", "E", "B", "F", "H", "N", "R"] | None = Field(
         None, description="Thermal class of the winding insulation system (IEC 60085): A 105, E 120, B 130, F 155, H 180, N 200, "
                           "R 220 degC. When not given, class A (105 degC) is taken (harsher).")
-
-    _positive = field_validator("frequency")(_positive)
 
     @field_validator("windings")
     @classmethod

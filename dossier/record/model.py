@@ -2,7 +2,8 @@
 
 from __future__ import annotations
 
-from pydantic import Field
+from pydantic import Field, ValidationError, model_validator
+from pydantic_core import InitErrorDetails, PydanticCustomError
 
 from dossier.record.devices import Devices
 from dossier.record.identity import Attachment, Identity
@@ -31,3 +32,35 @@ class Record(Identity):
     @property
     def has_mains(self) -> bool:
         return self.mains is not None
+
+    @model_validator(mode="after")
+    def _designators_once(self):
+        """Each part listed once: a designator given twice would let a finding name the wrong part."""
+        twice = [error for places in self._designator_lists() for error in _repeated(places)]
+        if twice:
+            # raised with each repeat's own place, so every one is reported at its file:line:column
+            raise ValidationError.from_exception_data(type(self).__name__, twice)
+        return self
+
+    def _designator_lists(self):
+        yield [(("stages", s, "parts", p, "ref"), part.ref) for s, stage in enumerate(self.stages) for p, part in enumerate(stage.parts)]
+        yield [(("magnetics", m, "ref"), magnetic.ref) for m, magnetic in enumerate(self.magnetics)]
+        yield [(("devices", "capacitors", c, "ref"), capacitor.ref) for c, capacitor in enumerate(self.devices.capacitors)]
+        yield [(("devices", "semiconductors", d, "ref"), device.ref) for d, device in enumerate(self.devices.semiconductors)] + [
+            (("devices", "heatsinks", h, "ref"), sink.ref) for h, sink in enumerate(self.devices.heatsinks)
+        ]
+
+
+def _repeated(places: list[tuple[tuple, str]]):
+    first: dict[str, tuple] = {}
+    for where, ref in places:
+        if ref in first:
+            problem = PydanticCustomError("duplicate_designator", "expected {expected}, found {found}", {"expected": "each designator once in this list", "found": f"{ref} again (first at {_dotted(first[ref])})"})
+            yield InitErrorDetails(type=problem, loc=where, input=ref)
+        else:
+            first[ref] = where
+
+
+def _dotted(path: tuple) -> str:
+    return "".join(f"[{part}]" if isinstance(part, int) else f".{part}" for part in path).lstrip(".")
+

@@ -5,7 +5,7 @@ from __future__ import annotations
 from pydantic import Field, ValidationInfo, field_validator, model_validator
 from pydantic_core import PydanticCustomError
 
-from dossier.record.fields import Charge, Current, Power, Ratio, Section, Temperature, Voltage, VoltagePerKelvin
+from dossier.record.fields import Charge, Current, Fraction, Power, Section, Share, Temperature, Voltage, VoltagePerKelvin
 from dossier.standards.battery import REFERENCE_TEMPERATURE
 from dossier.standards.chemistries import known_keys
 from dossier.units import Q_, fmt
@@ -15,12 +15,6 @@ def _problem(kind: str, expected: str, found: str) -> PydanticCustomError:
     return PydanticCustomError(kind, "expected {expected}, found {found}", {"expected": expected, "found": found})
 
 
-def _require_positive(value):
-    if value is not None and value.magnitude <= 0:
-        raise _problem("not_positive", "a value above zero", fmt(value))
-    return value
-
-
 class Battery(Section):
     """The battery a charger is set up for; voltages are for the whole battery, not per cell."""
 
@@ -28,7 +22,7 @@ class Battery(Section):
         description="Battery chemistry: flooded, agm or gel (lead-acid), or a key a chemistry plugin adds.",
         json_schema_extra={"examples": ["flooded", "agm", "gel"]},
     )
-    cells: int = Field(6, ge=1, description="Cells in series; 6 for a 12 V lead-acid battery.")
+    cells: int = Field(6, ge=1, le=10_000, description="Cells in series; 6 for a 12 V lead-acid battery.")
     capacity: Charge = Field(description="Rated capacity, e.g. 40 Ah.")
     absorption_voltage: Voltage = Field(
         description="Constant-voltage (absorption) setpoint at 25 degC, e.g. 14.4 V; the fixed setpoint if the charger has no compensation."
@@ -41,7 +35,7 @@ class Battery(Section):
     compensation: VoltagePerKelvin | None = Field(
         None, description="Temperature compensation of the setpoints for the whole battery, e.g. -18 mV/K; leave out if there is none."
     )
-    start_state_of_charge: Ratio = Field(
+    start_state_of_charge: Fraction = Field(
         default_factory=lambda: Q_(20, "percent"), description="State of charge the time-to-full estimate starts from; default 20 %."
     )
 
@@ -53,24 +47,12 @@ class Battery(Section):
             raise _problem("unknown_chemistry", "one of " + ", ".join(known), repr(value))
         return value
 
-    @field_validator("capacity", "absorption_voltage", "float_voltage", "charge_current")
-    @classmethod
-    def _positive(cls, value):
-        return _require_positive(value)
-
     @field_validator("float_voltage")
     @classmethod
     def _float_below_absorption(cls, value, info: ValidationInfo):
         absorption = info.data.get("absorption_voltage")
         if value is not None and absorption is not None and value >= absorption:
             raise _problem("float_not_below_absorption", f"below absorption_voltage ({fmt(absorption)})", fmt(value))
-        return value
-
-    @field_validator("start_state_of_charge")
-    @classmethod
-    def _fraction(cls, value):
-        if not 0 <= value.to("").magnitude < 1:
-            raise _problem("value_out_of_range", "at least 0 % and below 100 %", fmt(value.to("percent")))
         return value
 
     @model_validator(mode="after")
@@ -98,16 +80,11 @@ class Output(Section):
     voltage: Voltage = Field(description="Rated output voltage, e.g. 13.8 V.")
     current: Current = Field(description="Rated output current; for a charger, its largest charge current.")
     power: Power | None = Field(None, description="Rated output power; default voltage x current.")
-    efficiency: Ratio | None = Field(None, description="Efficiency at full load, e.g. 80 %.")
-    power_factor: Ratio | None = Field(None, description="Input power factor; default a typical value for the input type.")
-    tolerance: Ratio | None = Field(None, description="How far the output voltage may sit from its setting (setpoint accuracy and regulation), e.g. 2 %.")
+    efficiency: Share | None = Field(None, description="Efficiency at full load, e.g. 80 %.")
+    power_factor: Share | None = Field(None, description="Input power factor; default a typical value for the input type.")
+    tolerance: Fraction | None = Field(None, description="How far the output voltage may sit from its setting (setpoint accuracy and regulation), e.g. 2 %.")
     minimum_load: Current | None = Field(None, description="Load the converter needs to start and regulate, if any.")
     battery: Battery | None = Field(None, description="For a charger: the battery it is set up for. Leave out for other outputs.")
-
-    @field_validator("current")
-    @classmethod
-    def _positive(cls, value):
-        return _require_positive(value)
 
     @property
     def is_charger(self) -> bool:

@@ -7,7 +7,8 @@ from typing import Literal
 from pydantic import Field
 
 from dossier.record.fields import (
-    Capacitance, Designator, Current, Duration, Energy, Length, MeltingIntegral, Resistance, Section, Temperature, Voltage, WireSize,
+    Capacitance, Designator, Current, Duration, Energy, Length, MeltingIntegral, NonNegativeResistance, NtcBConstant, Resistance, Section, Temperature,
+    Voltage, WireSize,
 )
 
 
@@ -36,7 +37,7 @@ class InrushLimiter(Section):
     max_energy: Energy | None = Field(None, description="Largest switch-on energy the part is rated to absorb, e.g. 60 J.")
     max_capacitance: Capacitance | None = Field(None, description="Largest capacitance the maker allows, if given instead of energy.")
     max_capacitance_voltage: Voltage | None = Field(None, description="The RMS voltage the maker quotes max_capacitance at, e.g. 230 V; the allowed capacitance scales as 1/V^2.")
-    b_value: Temperature | None = Field(None, description="The NTC's B constant (B25/85) in kelvin, e.g. 3000 K; 4000 K when not given.")
+    b_value: NtcBConstant | None = Field(None, description="The NTC's B constant (B25/85) in kelvin, e.g. 3000 K; 4000 K when not given.")
     max_current: Current | None = Field(None, description="Maximum steady current, e.g. 3 A.")
 
 
@@ -69,9 +70,9 @@ class Protection(Section):
     fuse: Fuse | None = Field(None, description="The mains fuse.")
     inrush_limiter: InrushLimiter | None = Field(None, description="NTC thermistor or resistor that limits the switch-on current.")
     bulk_capacitance: Capacitance | None = Field(None, description="Total capacitance charged from the mains at switch-on.")
-    bulk_esr: Resistance | None = Field(None, description="Equivalent series resistance of the bulk capacitance, e.g. 0.3 ohm.")
-    source_resistance: Resistance | None = Field(None, description="Resistance of the mains source and cord, e.g. 0.5 ohm.")
-    switch_on_cycles: int | None = Field(None, ge=1, description="Switch-ons expected in the unit's life; 10000 when not given.")
+    bulk_esr: NonNegativeResistance | None = Field(None, description="Equivalent series resistance of the bulk capacitance, e.g. 0.3 ohm.")
+    source_resistance: NonNegativeResistance | None = Field(None, description="Resistance of the mains source and cord, e.g. 0.5 ohm.")
+    switch_on_cycles: int | None = Field(None, ge=1, le=1_000_000_000, description="Switch-ons expected in the unit's life; 10000 when not given.")
     earth: Earth | None = Field(None, description="Protective class, enclosure and earth bonding.")
     wiring: Wiring | None = Field(None, description="Current ratings of what the mains fuse protects: inlet, cord, switch, internal wiring.")
     internal_ambient: Temperature | None = Field(None, description="Air temperature inside the enclosure at full load and the highest room temperature, e.g. 55 degC; room + 20 K when not given.")

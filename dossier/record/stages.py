@@ -6,7 +6,7 @@ from typing import Literal
 
 from pydantic import Field
 
-from dossier.record.fields import Designator, Section
+from dossier.record.fields import Designator, Name, Section
 
 StageKind = Literal["mains-input", "converter", "magnetics", "rectifier", "regulator", "output", "other"]
 
@@ -21,7 +21,7 @@ class Part(Section):
 
 class Stage(Section):
     kind: StageKind = Field(description="mains-input, converter, magnetics, rectifier, regulator, output or other.")
-    name: str = Field(min_length=1, description="Heading for the stage, e.g. 'Mains input and rectifier'.")
+    name: Name = Field(description="Heading for the stage, e.g. 'Mains input and rectifier'.")
     side: Literal["mains", "isolated"] = Field(description="Whether the stage is connected to the mains (hazardous) or on the isolated side.")
     topology: str = Field("", description="e.g. self-oscillating-half-bridge, centre-tapped, bridge, linear, buck.")
     parts: list[Part] = Field(default_factory=list, description="The stage's parts with their designators.")

@@ -6,14 +6,14 @@ from typing import Literal
 
 from pydantic import Field
 
-from dossier.record.fields import Length, Ratio, Section, Temperature, Voltage, Frequency
+from dossier.record.fields import Altitude, Fraction, MainsFrequency, MainsVoltage, Section, Temperature
 from dossier.units import Q_
 
 
 class Mains(Section):
-    nominal: Voltage = Field(description="Nominal line-to-neutral RMS voltage, e.g. 230 V.")
-    frequency: Frequency = Field(description="Mains frequency, e.g. 50 Hz.")
-    tolerance: Ratio = Field(default_factory=lambda: Q_(10, "percent"), description="Tolerance either side of nominal; default 10 %.")
+    nominal: MainsVoltage = Field(description="Nominal line-to-neutral RMS voltage, e.g. 230 V.")
+    frequency: MainsFrequency = Field(description="Mains frequency, e.g. 50 Hz.")
+    tolerance: Fraction = Field(default_factory=lambda: Q_(10, "percent"), description="Tolerance either side of nominal; default 10 %.")
     overvoltage_category: Literal["I", "II", "III", "IV"] = Field("II", description="Overvoltage category (IEC 60664-1); II for equipment plugged into a socket.")
 
     @property
@@ -27,5 +27,5 @@ class Mains(Section):
 
 class Environment(Section):
     pollution_degree: Literal[1, 2, 3, 4] = Field(2, description="Pollution degree at the insulation (IEC 60664-1); 2 for most indoor equipment.")
-    altitude: Length = Field(default_factory=lambda: Q_(0, "m"), description="Highest altitude of use, e.g. 400 m.")
+    altitude: Altitude = Field(default_factory=lambda: Q_(0, "m"), description="Highest altitude of use, e.g. 400 m.")
     max_ambient: Temperature = Field(default_factory=lambda: Q_(40, "degC"), description="Highest air temperature around the unit.")

@@ -37,7 +37,7 @@ def problems(path: Path) -> list[str]:
 @pytest.mark.parametrize("old, new, key, words", [
     ("    chemistry: agm", "    chemistry: lithium", "output.battery.chemistry", "expected one of flooded, agm, gel, found 'lithium'"),
     ("    float_voltage: 13.6 V", "    float_voltage: 14.6 V", "output.battery.float_voltage", "expected below absorption_voltage (14.4 V)"),
-    ("    capacity: 40 Ah", "    capacity: 0 Ah", "output.battery.capacity", "expected a value above zero"),
+    ("    capacity: 40 Ah", "    capacity: 0 Ah", "output.battery.capacity", "value out of range; expected at least 0.001 A·h"),
     ("    capacity: 40 Ah", "    capacity: 40 V", "output.battery.capacity", "wrong kind of unit"),
     ("    temperature: 25 degC", "    start_state_of_charge: 120 %", "output.battery.start_state_of_charge", "at least 0 % and below 100 %"),
     ("    temperature: 25 degC", "    compensation: -18 mV", "output.battery.compensation", "voltage per kelvin"),

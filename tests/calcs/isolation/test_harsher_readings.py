@@ -14,7 +14,8 @@ from dossier.calcs import isolation
 from dossier.calcs.isolation import CALC
 from dossier.checklist.sheet import build_checklist
 from dossier.review import Review
-from dossier.commands.check import render, run_check
+from dossier.commands.check import run_check
+from dossier.report.json_report import check_json
 from dossier.findings import Verdict
 from dossier.reading.settings import ArchiveSettings
 from tests.calcs.isolation.test_calc import by_code, extra, record_with, value
@@ -204,7 +205,7 @@ def test_every_source_names_edition_and_table_or_clause(mains, barrier):
 
 def test_check_json_holds_every_isolation_measure(tmp_path):
     path = write_record(tmp_path, "unit", environment={"altitude": "2500 m"})
-    body = json.loads(render(run_check([path]), as_json=True))
+    body = json.loads(check_json(run_check([path]), 0))
     (record,) = body["records"]
     clearance = next(f for f in record["findings"] if f["code"] == "ISO-CLEARANCE")
     measures = {m["label"]: m for m in clearance["extra"]}

@@ -6,6 +6,7 @@ import copy
 import math
 
 import pytest
+from pydantic import ValidationError
 import yaml
 
 from dossier.calcs.protection import CALC, recommended_fuse
@@ -82,9 +83,11 @@ def test_missing_efficiency_takes_the_lowest_plausible_and_says_so():
     assert any(s.is_common_practice and "efficiency" in s.title for s in found["PROT-INPUT-CURRENT"].sources)
 
 
-def test_out_of_range_efficiency_is_named():
-    rating = codes(record_with(output__efficiency="120 %"))["PROT-FUSE-RATING"]
-    assert "found 120 %" in rating.explanation
+def test_out_of_range_efficiency_is_refused_before_the_calc():
+    with pytest.raises(ValidationError) as raised:
+        record_with(output__efficiency="120 %")
+    [error] = raised.value.errors()
+    assert error["loc"] == ("output", "efficiency") and error["type"] == "value_out_of_range"
 
 
 def test_missing_power_factor_takes_the_lowest_plausible_for_the_input():
