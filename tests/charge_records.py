@@ -18,10 +18,16 @@ def _apply(section: dict, changes: dict) -> None:
             section[key] = value
 
 
+# The demo charger as a fixed-setpoint charger: its battery kept at 25 degC, no compensation.
+FIXED_SETPOINT = {"temperature": "25 degC", "compensation": DROP, "lowest_temperature": DROP, "highest_temperature": DROP}
+
+
 def charger(output: dict | None = None, **battery) -> Record:
-    """Demo charger rev C (AGM 40 Ah, 14.4 V / 13.6 V at 25 degC, 6 A, 2 % tolerance) with changes."""
-    data = load_demo("sw-charger-12v", "C").model_dump(mode="json", exclude_none=True)
+    """Demo charger rev C (12-cell AGM 65 Ah, 29.0 V / 27.3 V, 7 A, 0.5 % tolerance) as a fixed-setpoint
+    charger at 25 degC (no compensation, no temperature range), with changes."""
+    data = load_demo("solar-bank-charger", "C").model_dump(mode="json", exclude_none=True)
     _apply(data["output"], output or {})
+    _apply(data["output"]["battery"], FIXED_SETPOINT)
     _apply(data["output"]["battery"], battery)
     return Record.model_validate(data)
 

@@ -13,7 +13,7 @@ from dossier.plugins import load_calcs
 from dossier.record.load import LoadedRecord
 from dossier.review import review
 
-DEMO_REVISIONS = [("sw-charger-12v", "A"), ("sw-charger-12v", "B"), ("sw-charger-12v", "C"), ("bench-psu-13v8", "A"), ("rotator-control", "A")]
+DEMO_REVISIONS = [("solar-bank-charger", "A"), ("solar-bank-charger", "B"), ("solar-bank-charger", "C"), ("bench-psu-13v8", "A"), ("rotator-control", "A")]
 
 
 @lru_cache(maxsize=None)

@@ -13,6 +13,8 @@ from dossier.plugins import load_calcs
 
 ROOT = Path(__file__).resolve().parents[1]
 DEMO = ROOT / "demo" / "archive"
+# Test-only records for what the demo does not show (e.g. a self-oscillating half-bridge); made up for the tests.
+RECORDS = ROOT / "tests" / "cases" / "records"
 
 # Bad inputs tried in this run, by kind: the hostile-input tests count every case they feed to dossier,
 # and the count is printed at the end of the run.
@@ -39,6 +41,12 @@ def demo_archive() -> Path:
 def load_demo(build: str, revision: str = "A"):
     """The validated record of one demo revision."""
     path = DEMO / build / f"rev-{revision}.yaml"
+    return load_revision(RevisionFile(build, revision, path)).record
+
+
+def load_test_record(build: str, revision: str = "A"):
+    """The validated record of one test-only record under tests/cases/records."""
+    path = RECORDS / build / f"rev-{revision}.yaml"
     return load_revision(RevisionFile(build, revision, path)).record
 
 

@@ -74,7 +74,7 @@ def _pdf_bytes(weasyprint, html: str) -> bytes:
 
 
 def pdf_name(build: str, revision: str, paper: str) -> str:
-    """'checklist-sw-charger-12v-rev-C-a4.pdf'."""
+    """'checklist-solar-bank-charger-rev-C-a4.pdf'."""
     return f"checklist-{build}-rev-{revision}-{paper}.pdf"
 
 

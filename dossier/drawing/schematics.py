@@ -14,7 +14,7 @@ from __future__ import annotations
 from dataclasses import dataclass
 
 from dossier.drawing import placeholder, sheet
-from dossier.drawing import stage_converter, stage_magnetics, stage_mains, stage_output, stage_rectifier, stage_regulator
+from dossier.drawing import stage_converter, stage_half_bridge, stage_magnetics, stage_mains, stage_output, stage_rectifier, stage_regulator
 from dossier.drawing.block_diagram import draw as draw_block_diagram
 from dossier.drawing.cache import NoCache, content_key
 from dossier.drawing.drawers import StageDrawer
@@ -28,7 +28,7 @@ SECTION = "schematics"
 CALC_NAME = "schematics"
 PLACEHOLDER_CODE = "DRAW-PLACEHOLDER"
 DRAWERS: tuple[StageDrawer, ...] = (
-    stage_mains.DRAWER, stage_converter.DRAWER, stage_magnetics.DRAWER,
+    stage_mains.DRAWER, stage_converter.DRAWER, stage_half_bridge.DRAWER, stage_magnetics.DRAWER,
     stage_rectifier.DRAWER, stage_regulator.DRAWER, stage_output.DRAWER,
 )
 

@@ -131,7 +131,7 @@ class Winding(Section):
 
 class Magnetic(Section):
     ref: Designator
-    role: Literal["transformer", "base-drive", "choke", "mains-transformer", "current-sense"] = Field(description="transformer, base-drive, choke, mains-transformer or current-sense.")
+    role: Literal["transformer", "base-drive", "gate-drive", "choke", "mains-transformer", "current-sense"] = Field(description="transformer, base-drive, gate-drive, choke, mains-transformer or current-sense.")
     title: str = Field("", description="Heading for the component, e.g. 'Main transformer'.")
     core: Core = Field(description="The core: a toroid by its dimensions, or declared effective parameters.")
     windings: list[Winding] = Field(min_length=1, description="Every winding, primary first.")
