@@ -249,3 +249,25 @@ def test_an_ac_output_is_not_labelled_with_polarity(drawn):
     lines = svg_lines(output.svg)
     assert "~ from stage 2" in lines
     assert not any(line.startswith("+") for line in lines)
+
+
+def test_a_bridge_of_fewer_than_four_diodes_gets_a_placeholder():
+    record = load_demo("solar-bank-charger", "C")
+    rectifier = record.stages[3]
+    short = rectifier.model_copy(update={"parts": [p for p in rectifier.parts if p.ref != "D8"]})
+    changed = record.model_copy(update={"stages": [*record.stages[:3], short, *record.stages[4:]]})
+    result = schematics.draw(changed, [])
+    assert "not drawn: the rectifier drawing needs a bridge rectifier part or four diodes" in svg_lines(result.figures[4].svg)
+
+
+def test_a_diode_across_the_output_is_drawn_across_the_rails_after_the_fuse(drawn):
+    output = next(f for f in drawn["solar-bank-charger", "C"].figures if f.key.endswith("output"))
+    root = ElementTree.fromstring(output.svg)
+    where = {}
+    for text in root.iter(f"{SVG}text"):
+        first = next(text.iter(f"{SVG}tspan"), None)
+        if first is not None and first.text in ("F2", "D9"):
+            where[first.text] = (float(text.get("x")), float(text.get("y")))
+    # a series part is labelled above the positive lead; a part across the rails beside it, lower down
+    assert where["F2"][0] < where["D9"][0]
+    assert where["D9"][1] > where["F2"][1] + 30

@@ -40,7 +40,7 @@ CASES = {
     ),
     "field-limit-in-amperes": (
         "max_field: 3800 A/m", "max_field: 3800 A",
-        "magnetics[2].core.material.max_field: wrong kind of unit; expected field strength (e.g. 4000 A/m), found 3800.0 A (current)",
+        "magnetics[2].core.material.max_field: wrong kind of unit; expected field strength (e.g. 3500 A/m), found 3800.0 A (current)",
     ),
     "unknown-core-family": (
         "family: iron-powder", "family: powdered iron",

@@ -32,7 +32,7 @@ def _frequency(ctx):
     if ctx.drive is None or ctx.drive.frequency is not None:
         return None
     return _missing(ctx, ctx.ref, "Flux density", ctx.key(),
-                    "The operating frequency is not known: add 'frequency' (e.g. 40 kHz) to this magnetic.", FARADAY)
+                    "The operating frequency is not known: add 'frequency' (e.g. 50 kHz) to this magnetic.", FARADAY)
 
 
 def _choke(ctx):

@@ -37,7 +37,7 @@ def _serialise(quantity) -> str:
 
 
 def quantity(dimension: str):
-    """An annotated type: text such as '0.55 mm' becomes a pint Quantity of this dimension."""
+    """An annotated type: text such as '0.71 mm' becomes a pint Quantity of this dimension."""
     kind = describe_dimension(dimension)
     schema = {"type": "string", "pattern": _QUANTITY_PATTERN, "description": kind, "x-quantity": kind}
     if dimension == "[dimensionless]":
@@ -52,7 +52,7 @@ def _validate_wire(raw: Any):
         raise _as_pydantic_error(problem) from None
 
 
-_WIRE = "wire size: AWG 23, or a bare-copper diameter such as 0.55 mm"
+_WIRE = "wire size: AWG 26, or a bare-copper diameter such as 0.71 mm"
 
 Length = quantity("[length]")
 Area = quantity("[length] ** 2")
