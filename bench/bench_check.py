@@ -17,7 +17,7 @@ import time
 from pathlib import Path
 
 ROOT = Path(__file__).resolve().parents[1]
-DEFAULT = ROOT / "demo" / "archive" / "sw-charger-12v" / "rev-C.yaml"
+DEFAULT = ROOT / "demo" / "archive" / "solar-bank-charger" / "rev-C.yaml"
 
 
 def wall_time(command: list[str]) -> float:

@@ -42,7 +42,7 @@ from pathlib import Path
 import yaml
 
 ROOT = Path(__file__).resolve().parents[1]
-TEMPLATE = ROOT / "demo" / "archive" / "sw-charger-12v" / "rev-C.yaml"
+TEMPLATE = ROOT / "demo" / "archive" / "solar-bank-charger" / "rev-C.yaml"
 RESULTS = ROOT / "bench" / "results" / "site.json"
 ENVIRONMENT = dict(os.environ, NO_MKDOCS_2_WARNING="1")
 

@@ -22,7 +22,7 @@ DIMENSION_NAMES = {
     "[time]": "time (e.g. 10 ms)",
     "[power]": "power (e.g. 60 W)",
     "[resistance]": "resistance (e.g. 10 ohm)",
-    "[capacitance]": "capacitance (e.g. 470 uF)",
+    "[capacitance]": "capacitance (e.g. 330 uF)",
     "[inductance]": "inductance (e.g. 100 uH)",
     "[magnetic_flux_density]": "flux density (e.g. 0.39 T)",
     "[energy]": "energy (e.g. 2.5 J)",
@@ -31,7 +31,7 @@ DIMENSION_NAMES = {
     "[charge]": "charge (e.g. 7 Ah)",
     "[inductance_factor]": "inductance factor A_L (e.g. 2500 nH)",
     "[voltage_per_temperature]": "voltage per kelvin (e.g. -18 mV/K)",
-    "[current] / [length]": "field strength (e.g. 4000 A/m)",
+    "[current] / [length]": "field strength (e.g. 3500 A/m)",
     "[dimensionless]": "ratio or percentage (e.g. 10 %)",
 }
 
@@ -97,7 +97,7 @@ def describe_dimension(dimension: str) -> str:
 
 
 def parse_quantity(raw, dimension: str):
-    """Parse '0.55 mm' (or a pint Quantity) into a Quantity of the given dimension."""
+    """Parse '0.71 mm' (or a pint Quantity) into a Quantity of the given dimension."""
     expected = describe_dimension(dimension)
     if isinstance(raw, bool) or raw is None:
         raise UnitProblem("not_a_quantity", expected, repr(raw))
@@ -149,7 +149,7 @@ def awg_diameter(gauge: int):
 
 
 def parse_wire(raw):
-    """A wire size: 'AWG 23' or a diameter such as '0.55 mm'."""
+    """A wire size: 'AWG 26' or a diameter such as '0.71 mm'."""
     if isinstance(raw, str):
         match = _AWG.match(raw)
         if match:
@@ -157,7 +157,7 @@ def parse_wire(raw):
     try:
         return parse_quantity(raw, "[length]")
     except UnitProblem as problem:
-        raise UnitProblem(problem.kind, "wire size (e.g. AWG 23 or 0.55 mm)", problem.found) from None
+        raise UnitProblem(problem.kind, "wire size (e.g. AWG 26 or 0.71 mm)", problem.found) from None
 
 
 def _gauge_number(text: str) -> int:

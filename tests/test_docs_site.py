@@ -22,7 +22,7 @@ def test_project_docs_and_demo_archive_build_strict_without_warnings(tmp_path, d
     log = result.stdout + result.stderr
     assert result.returncode == 0, log
     assert "WARNING" not in log, log
-    assert (tmp_path / "site" / "archive" / "builds" / "sw-charger-12v" / "changes.html").is_file()
+    assert (tmp_path / "site" / "archive" / "builds" / "solar-bank-charger" / "changes.html").is_file()
 
 
 def test_project_config_is_offline_and_uses_no_plugin_of_ours():

@@ -71,7 +71,7 @@ def test_the_cli_names_a_broken_plugin_without_a_traceback(monkeypatch):
     from tests.fixtures.demo import DEMO
 
     monkeypatch.setattr(plugins, "entry_points", lambda group: [FakeEntryPoint("broken", error=ImportError("no module named x"))])
-    result = CliRunner().invoke(main, ["check", str(DEMO / "sw-charger-12v" / "rev-A.yaml")])
+    result = CliRunner().invoke(main, ["check", str(DEMO / "solar-bank-charger" / "rev-A.yaml")])
     assert result.exit_code == 3
     assert "dossier check: calc plugin 'broken': could not be loaded: ImportError: no module named x" in result.output
 

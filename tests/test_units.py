@@ -10,14 +10,14 @@ from dossier.units import Q_, UnitProblem, awg_diameter, fmt, fmt_apart, parse_q
 @pytest.mark.parametrize(
     "text, dimension, expected, unit",
     [
-        ("0.55 mm", "[length]", 0.55, "mm"),
+        ("0.71 mm", "[length]", 0.71, "mm"),
         ("230 V", "[electric_potential]", 230, "V"),
-        ("40 kHz", "[frequency]", 40_000, "Hz"),
+        ("50 kHz", "[frequency]", 50_000, "Hz"),
         ("1.6 A", "[current]", 1.6, "A"),
-        ("470 uF", "[capacitance]", 470e-6, "F"),
+        ("330 uF", "[capacitance]", 330e-6, "F"),
         ("2.5 K/W", "[thermal_resistance]", 2.5, "K/W"),
         ("3.2 A^2*s", "[i2t]", 3.2, "A**2*s"),
-        ("40 Ah", "[charge]", 40, "A*h"),
+        ("60 Ah", "[charge]", 60, "A*h"),
         ("10 %", "[dimensionless]", 0.1, ""),
         ("1e3 ohm", "[resistance]", 1000, "ohm"),
     ],

@@ -20,6 +20,7 @@ from dossier.drawing.stages import mains as stage_mains
 from dossier.drawing.stages import output as stage_output
 from dossier.drawing.stages import rectifier as stage_rectifier
 from dossier.drawing.stages import regulator as stage_regulator
+from dossier.drawing.stages import half_bridge as stage_half_bridge
 from dossier.drawing.block_diagram import draw as draw_block_diagram
 from dossier.drawing.cache import NoCache, content_key
 from dossier.drawing.drawers import StageDrawer
@@ -33,7 +34,7 @@ SECTION = "schematics"
 CALC_NAME = "schematics"
 PLACEHOLDER_CODE = "DRAW-PLACEHOLDER"
 DRAWERS: tuple[StageDrawer, ...] = (
-    stage_mains.DRAWER, stage_converter.DRAWER, stage_magnetics.DRAWER,
+    stage_mains.DRAWER, stage_converter.DRAWER, stage_half_bridge.DRAWER, stage_magnetics.DRAWER,
     stage_rectifier.DRAWER, stage_regulator.DRAWER, stage_output.DRAWER,
 )
 

@@ -25,7 +25,7 @@ RATING_KINDS = {"bjt": ("V_CEO", "V_CES", "V_CBO"), "mosfet": ("V_DSS",), "igbt"
 class Switching(Section):
     """Data for a switching-loss estimate: give energy, or voltage, current and crossover time."""
 
-    frequency: Frequency = Field(description="Switching frequency, e.g. 40 kHz.")
+    frequency: Frequency = Field(description="Switching frequency, e.g. 50 kHz.")
     energy: Energy | None = Field(None, description="Turn-on plus turn-off energy per cycle from the maker's data, e.g. 50 uJ.")
     voltage: Voltage | None = Field(None, description="Voltage across the device while it switches, e.g. 358 V.")
     current: Current | None = Field(None, description="Current it switches, e.g. 1.4 A.")

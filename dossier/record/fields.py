@@ -175,7 +175,7 @@ def _serialise(quantity) -> str:
 
 
 def quantity(dimension: str, span: Span | None = None):
-    """An annotated type: text such as '0.55 mm' becomes a pint Quantity of this dimension, within its span."""
+    """An annotated type: text such as '0.71 mm' becomes a pint Quantity of this dimension, within its span."""
     kind = describe_dimension(dimension)
     schema = {"type": "string", "pattern": _QUANTITY_PATTERN, "description": kind, "x-quantity": kind}
     if dimension == "[dimensionless]":
@@ -195,7 +195,7 @@ def _validate_wire(raw: Any):
     return value
 
 
-_WIRE = "wire size: AWG 23, or a bare-copper diameter such as 0.55 mm"
+_WIRE = "wire size: AWG 26, or a bare-copper diameter such as 0.71 mm"
 WIRE_SPAN = Span("mm", 0.01, 20)
 
 # Each quantity's range: from a floor below any real part to a ceiling above any hand-built mains unit.

@@ -40,7 +40,7 @@ class CoreMaterial(Section):
     initial_permeability: float | None = Field(None, gt=0, le=1_000_000, description="Initial relative permeability; gives A_L when A_L is not declared.")
     steinmetz: Steinmetz | None = Field(None, description="Steinmetz parameters for core loss, from the maker's loss curves.")
     max_temperature: Temperature | None = Field(None, description="Highest temperature the core (and its winding) may reach.")
-    max_field: FieldStrength | None = Field(None, description="Highest DC field strength N I / l_e the material takes before its permeability falls too far, e.g. 4000 A/m.")
+    max_field: FieldStrength | None = Field(None, description="Highest DC field strength N I / l_e the material takes before its permeability falls too far, e.g. 3500 A/m.")
     remanence: FluxDensity | None = Field(None, description="Remanent flux density B_r at the hot temperature, from the maker's data; a unipolar drive's flux starts there. "
                                                            "When not given: 0.2 T for ferrite and iron powder, 1.0 T for silicon steel (harsher; from memory).")
 
@@ -97,7 +97,7 @@ class Winding(Section):
     name: Name = Field(description="Name of the winding, e.g. primary, secondary, upper base.")
     role: Literal["primary", "secondary", "feedback", "drive", "choke", "auxiliary"] = Field("secondary", description="primary, secondary, feedback, drive, choke or auxiliary.")
     turns: float = Field(ge=0.25, le=100_000, description="Turns, end to end (a centre-tapped winding counts both halves); a fraction is allowed.")
-    wire: WireSize = Field(description="Bare-copper size of one strand: AWG 23 or 0.55 mm.")
+    wire: WireSize = Field(description="Bare-copper size of one strand: AWG 26 or 0.71 mm.")
     strands: int = Field(1, ge=1, le=10_000, description="Strands in parallel.")
     enamel_grade: Literal[1, 2, 3] | None = Field(None, description="IEC 60317 enamel grade 1, 2 or 3; grade 2 is assumed when not given.")
     overall_diameter: Length | None = Field(None, description="Measured or datasheet diameter over the insulation; overrides the enamel grade.")
@@ -117,11 +117,11 @@ class Winding(Section):
 
 class Magnetic(Section):
     ref: Designator
-    role: Literal["transformer", "base-drive", "choke", "mains-transformer", "current-sense"] = Field(description="transformer, base-drive, choke, mains-transformer or current-sense.")
+    role: Literal["transformer", "base-drive", "gate-drive", "choke", "mains-transformer", "current-sense"] = Field(description="transformer, base-drive, gate-drive, choke, mains-transformer or current-sense.")
     title: str = Field("", description="Heading for the component, e.g. 'Main transformer'.")
     core: Core = Field(description="The core: a toroid by its dimensions, or declared effective parameters.")
     windings: list[Winding] = Field(min_length=1, description="Every winding, primary first.")
-    frequency: Frequency | None = Field(None, description="Operating frequency when the excitation is derived from the converter stage, e.g. 40 kHz.")
+    frequency: Frequency | None = Field(None, description="Operating frequency when the excitation is derived from the converter stage, e.g. 50 kHz.")
     cooling: Literal["natural", "forced-air"] = Field("natural", description="natural (convection) or forced-air (a fan blows on it).")
     excitation: Excitation | None = Field(None, description="Declared drive: waveform, voltage, frequency (and the winding it is across).")
     insulation_class: Literal["A", "E", "B", "F", "H", "N", "R"] | None = Field(

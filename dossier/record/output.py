@@ -23,7 +23,7 @@ class Battery(Section):
         json_schema_extra={"examples": ["flooded", "agm", "gel"]},
     )
     cells: int = Field(6, ge=1, le=10_000, description="Cells in series; 6 for a 12 V lead-acid battery.")
-    capacity: Charge = Field(description="Rated capacity, e.g. 40 Ah.")
+    capacity: Charge = Field(description="Rated capacity, e.g. 60 Ah.")
     absorption_voltage: Voltage = Field(
         description="Constant-voltage (absorption) setpoint at 25 degC, e.g. 14.4 V; the fixed setpoint if the charger has no compensation."
     )

@@ -14,7 +14,7 @@ StageKind = Literal["mains-input", "converter", "magnetics", "rectifier", "regul
 class Part(Section):
     ref: Designator
     kind: str = Field(description="What it is: fuse, capacitor, resistor, transistor, diode, ntc, switch, transformer, choke, diac, ...")
-    value: str = Field("", description="Value as printed on a drawing, e.g. '470 uF 400 V'.")
+    value: str = Field("", description="Value as printed on a drawing, e.g. '330 uF 400 V'.")
     role: str = Field("", description="Its job in the stage, e.g. 'upper switch', 'start-up trigger', 'bulk capacitor'.")
     note: str = Field("", description="Anything a reviewer should know about this part.")
 

@@ -33,7 +33,7 @@ def printed(watched_page, sheet, out):
 @pytest.mark.parametrize("paper", PAPERS)
 @pytest.mark.parametrize("revision", ["", "rev-A/"])
 def test_printed_checklist_keeps_every_item_on_one_page(demo_site, watched_page, tmp_path, paper, revision):
-    sheet = demo_site / "builds" / "sw-charger-12v" / f"{revision}checklist-{paper}.html"
+    sheet = demo_site / "builds" / "solar-bank-charger" / f"{revision}checklist-{paper}.html"
     pdf = printed(watched_page, sheet, tmp_path / "sheet.pdf")
     info = subprocess.run(["pdfinfo", str(pdf)], capture_output=True, text=True, check=True).stdout
     width, height = (round(float(v)) for v in SIZE.search(info).groups())
@@ -49,7 +49,7 @@ def test_printed_checklist_keeps_every_item_on_one_page(demo_site, watched_page,
 
 
 def test_the_build_writes_the_checklist_as_pdf_too(demo_site):
-    folder = demo_site / "builds" / "sw-charger-12v"
+    folder = demo_site / "builds" / "solar-bank-charger"
     for paper in PAPERS:
         pdf = folder / f"checklist-{paper}.pdf"
         assert pdf.read_bytes().startswith(b"%PDF")
@@ -58,6 +58,6 @@ def test_the_build_writes_the_checklist_as_pdf_too(demo_site):
 
 
 def test_a_failing_revision_is_blocked_on_paper(demo_site):
-    # demo: sw-charger-12v rev A fails clearance, creepage and the switch-on pulse, among others
-    first = page_text(demo_site / "builds" / "sw-charger-12v" / "rev-A" / "checklist-a4.pdf", 1)
+    # demo: solar-bank-charger rev A fails clearance, creepage and the switch-on pulse, among others
+    first = page_text(demo_site / "builds" / "solar-bank-charger" / "rev-A" / "checklist-a4.pdf", 1)
     assert "Do not power up" in first or "DO NOT POWER UP" in first.upper()

@@ -55,7 +55,7 @@ def outside(requests: list[str]) -> list[str]:
 
 def test_search_over_file_urls_finds_a_build_by_designator(demo_site):
     found, requests = in_browser((demo_site / "builds" / "rotator-control" / "index.html").as_uri(), lambda page, requests: (search(page, "RT1"), requests))
-    assert any("builds/sw-charger-12v/" in href for href in found)
+    assert any("builds/solar-bank-charger/" in href for href in found)
     assert outside(requests) == []
 
 
@@ -69,6 +69,6 @@ def test_schematics_load_from_the_folder(demo_site):
         page.wait_for_load_state("load")
         return page.eval_on_selector_all("article img", "images => images.map(image => image.naturalWidth)"), requests
 
-    loaded, requests = in_browser((demo_site / "builds" / "sw-charger-12v" / "schematics.html").as_uri(), widths)
+    loaded, requests = in_browser((demo_site / "builds" / "solar-bank-charger" / "schematics.html").as_uri(), widths)
     assert loaded and all(width > 0 for width in loaded)
     assert outside(requests) == []

@@ -43,10 +43,10 @@ def hostile_record(source: dict, text: str) -> dict:
 @pytest.fixture(scope="module")
 def hostile_site(tmp_path_factory) -> Path:
     archive = tmp_path_factory.mktemp("hostile") / "archive"
-    build = archive / "sw-charger-12v"
+    build = archive / "solar-bank-charger"
     build.mkdir(parents=True)
     shutil.copy(ROOT / "demo" / "archive" / "archive.yaml", archive / "archive.yaml")
-    demo_build = ROOT / "demo" / "archive" / "sw-charger-12v"
+    demo_build = ROOT / "demo" / "archive" / "solar-bank-charger"
     for folder in ("photos", "sheets"):  # the files rev C attaches
         shutil.copytree(demo_build / folder, build / folder)
     source = yaml.safe_load((demo_build / "rev-C.yaml").read_text(encoding="utf-8"))
@@ -69,7 +69,7 @@ def test_no_script_from_a_record_runs_on_any_page(hostile_site, watched_page):
 
 def test_hostile_text_is_shown_as_text(hostile_site, watched_page):
     watch = watched_page(("file://", "data:", "blob:"))
-    watch.page.goto((hostile_site / "builds" / "sw-charger-12v" / "index.html").as_uri(), wait_until="load")
+    watch.page.goto((hostile_site / "builds" / "solar-bank-charger" / "index.html").as_uri(), wait_until="load")
     body = watch.page.locator("article").inner_text()
     assert "<script>window.__dossier_pwned = 1</script>" in body
     assert watch.page.locator("article script, article iframe, article img[onerror], article svg[onload]").count() == 0

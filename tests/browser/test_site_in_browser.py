@@ -37,7 +37,7 @@ def test_every_page_loads_over_http_with_no_errors_and_no_outside_requests(demo_
 
 def test_schematics_are_visible(demo_site, watched_page):
     watch = watched_page(LOCAL_FILE)
-    watch.page.goto((demo_site / "builds" / "sw-charger-12v" / "schematics.html").as_uri(), wait_until="load")
+    watch.page.goto((demo_site / "builds" / "solar-bank-charger" / "schematics.html").as_uri(), wait_until="load")
     figures = watch.page.locator("article img[src$='.svg']")
     assert figures.count() >= 6
     for index in range(figures.count()):
@@ -48,7 +48,7 @@ def test_schematics_are_visible(demo_site, watched_page):
         assert figure.evaluate("img => img.complete && img.naturalWidth > 0")
 
 
-@pytest.mark.parametrize("query, expected", [("RT1", "sw-charger-12v"), ("rotator", "rotator-control"), ("notebook", "sw-charger-12v")])
+@pytest.mark.parametrize("query, expected", [("RT1", "solar-bank-charger"), ("rotator", "rotator-control"), ("mill", "solar-bank-charger")])
 def test_search_finds_a_build_by_designator_title_or_part(served_site, watched_page, query, expected):
     watch = watched_page((served_site, "data:", "blob:"))
     watch.page.goto(f"{served_site}/index.html", wait_until="load")
@@ -70,12 +70,12 @@ def test_search_finds_a_build_by_designator_title_or_part(served_site, watched_p
 
 
 def test_attached_photos_show_and_datasheets_link(demo_site, watched_page):
-    # demo: sw-charger-12v rev C attaches photos/t1-wound.png and sheets/t1-winding-sheet.pdf
+    # demo: solar-bank-charger rev C attaches photos/t1-winding-plan.png (a drawing, 900 px wide) and sheets/t1-winding-sheet.pdf
     watch = watched_page(LOCAL_FILE)
-    watch.page.goto((demo_site / "builds" / "sw-charger-12v" / "index.html").as_uri(), wait_until="load")
-    photo = watch.page.locator("article img[src$='t1-wound.png']")
+    watch.page.goto((demo_site / "builds" / "solar-bank-charger" / "index.html").as_uri(), wait_until="load")
+    photo = watch.page.locator("article img[src$='t1-winding-plan.png']")
     photo.scroll_into_view_if_needed()
-    assert photo.evaluate("img => img.complete && img.naturalWidth === 640")
+    assert photo.evaluate("img => img.complete && img.naturalWidth === 900")
     sheet = watch.page.locator("article a[href$='t1-winding-sheet.pdf']")
     assert sheet.count() == 1
-    assert (demo_site / "builds" / "sw-charger-12v" / sheet.get_attribute("href")).read_bytes().startswith(b"%PDF")
+    assert (demo_site / "builds" / "solar-bank-charger" / sheet.get_attribute("href")).read_bytes().startswith(b"%PDF")

@@ -17,7 +17,7 @@ from dossier.plugins import load_calcs
 from dossier.wording import comparison_text, margin_text
 
 REVIEWED = ("isolation", "protection", "magnetics", "stress", "thermal")
-DEMOS = [("sw-charger-12v", "A"), ("sw-charger-12v", "B"), ("sw-charger-12v", "C"), ("bench-psu-13v8", "A"), ("rotator-control", "A")]
+DEMOS = [("solar-bank-charger", "A"), ("solar-bank-charger", "B"), ("solar-bank-charger", "C"), ("bench-psu-13v8", "A"), ("rotator-control", "A")]
 WORDING_PHRASES = ("vs at least", "vs at most", "short by", "margin of")  # dossier.wording's comparison phrases
 ASKS_TO_ADD = ("Add ", "add ", "Declare ", "declare ", "give ")
 

@@ -50,8 +50,8 @@ def test_items_not_recorded_not_done_or_only_ticked():
 
 
 def test_the_charger_rev_c_commissioning_passes_in_full():
-    checklist = checklist_of("sw-charger-12v", "C")
-    results = outcomes(checklist, commissioning_of("sw-charger-12v", "C"))
+    checklist = checklist_of("solar-bank-charger", "C")
+    results = outcomes(checklist, commissioning_of("solar-bank-charger", "C"))
     assert len(results) == len(checklist.items)
     assert all(result.judgement.passed for result in results), [r.item.key for r in results if not r.judgement.passed]
     assert summarise(checklist, results).passed
@@ -66,14 +66,14 @@ def test_the_bench_supply_has_one_value_out_of_range():
 
 
 def test_a_passed_commissioning_advances_an_early_status_and_keeps_a_later_one():
-    checklist = checklist_of("sw-charger-12v", "C")
-    summary = summarise(checklist, outcomes(checklist, commissioning_of("sw-charger-12v", "C")))
-    day = datetime.date(2026, 5, 12)
+    checklist = checklist_of("solar-bank-charger", "C")
+    summary = summarise(checklist, outcomes(checklist, commissioning_of("solar-bank-charger", "C")))
+    day = datetime.date(2026, 6, 23)
     bench = effective_status("on-bench", summary, day)
-    assert (bench.code, bench.advanced, bench.title) == ("commissioned", True, "Commissioned 2026-05-12")
+    assert (bench.code, bench.advanced, bench.title) == ("commissioned", True, "Commissioned 2026-06-23")
     assert effective_status("design", summary, day).code == "commissioned"
     boxed = effective_status("in-enclosure", summary, day)
-    assert (boxed.code, boxed.advanced, boxed.title) == ("in-enclosure", False, "In its enclosure, commissioned 2026-05-12")
+    assert (boxed.code, boxed.advanced, boxed.title) == ("in-enclosure", False, "In its enclosure, commissioned 2026-06-23")
     assert effective_status("on-bench").title == "On the bench"
 
 
@@ -85,13 +85,13 @@ def test_a_commissioning_that_did_not_pass_leaves_the_status_alone():
 
 
 def test_the_overview_says_who_powered_it_up_and_when():
-    loaded, _ = demo("sw-charger-12v", "C")
-    state = commissioning_state(loaded, checklist_of("sw-charger-12v", "C"), commissioning_of("sw-charger-12v", "C"))
+    loaded, findings = demo("solar-bank-charger", "C")
+    state = commissioning_state(loaded, list(findings), commissioning_of("solar-bank-charger", "C"))
     assert state.overview_markdown() == (
-        "Powered up on **2026-05-12** by **Tamsin Okonkwo-Reyes**, witnessed by **Desmond Achterberg**. "
-        "Every checklist item was done and in range. Status shown: **In its enclosure, commissioned 2026-05-12**.")
-    loaded, _ = demo("bench-psu-13v8", "A")
-    state = commissioning_state(loaded, checklist_of("bench-psu-13v8", "A"), commissioning_of("bench-psu-13v8", "A"))
+        "Powered up on **2026-06-23** by **Ilse Varga-Mbeki**, witnessed by **Rhodri Castellanos**. "
+        "Every checklist item was done and in range. Status shown: **In its enclosure, commissioned 2026-06-23**.")
+    loaded, findings = demo("bench-psu-13v8", "A")
+    state = commissioning_state(loaded, list(findings), commissioning_of("bench-psu-13v8", "A"))
     assert "Not passed: 1 value out of range." in state.overview_markdown()
     assert commissioning_state(demo("rotator-control", "A")[0], checklist_of("rotator-control", "A")).overview_markdown() == ""
 
@@ -109,7 +109,7 @@ def test_the_page_shows_the_checklist_as_filled_in_and_flags_the_value_out_of_ra
 
 
 def test_a_status_advanced_on_the_page_names_the_records_own():
-    loaded, _ = demo("sw-charger-12v", "C")
-    text = checklist_markdown(with_record(loaded, status="on-bench"), checklist_of("sw-charger-12v", "C"), commissioning_of("sw-charger-12v", "C"))
-    assert "Status shown: **Commissioned 2026-05-12** (the record says on-bench; a passed commissioning advances it)." in text
+    loaded, findings = demo("solar-bank-charger", "C")
+    text = checklist_markdown(with_record(loaded, status="on-bench"), list(findings), commissioning_of("solar-bank-charger", "C"))
+    assert "Status shown: **Commissioned 2026-06-23** (the record says on-bench; a passed commissioning advances it)." in text
     assert "Commissioning passed" in text

@@ -13,11 +13,11 @@ from dossier.units import Q_
 from dossier.wording import problem_line
 
 HEADER = """\
-build: sw-charger-12v
+build: solar-bank-charger
 revision: C
-date: 2026-05-12
-tested_by: Tamsin Okonkwo-Reyes
-witness: Desmond Achterberg
+date: 2026-06-23
+tested_by: Ilse Varga-Mbeki
+witness: Rhodri Castellanos
 """
 
 
@@ -25,24 +25,24 @@ def problems_in(tmp_path, text: str, name: str = "commissioning-C.yaml") -> list
     path = tmp_path / name
     path.write_text(textwrap.dedent(text), encoding="utf-8")
     with pytest.raises(InputError) as caught:
-        load_commissioning(path, checklist_of("sw-charger-12v", "C"), shown_as=name)
+        load_commissioning(path, checklist_of("solar-bank-charger", "C"), shown_as=name)
     return [problem_line(problem) for problem in caught.value.problems]
 
 
 def test_the_demo_commissioning_files_load_with_values_in_their_items_units():
-    charger = commissioning_of("sw-charger-12v", "C")
-    assert charger.entry.tested_by == "Tamsin Okonkwo-Reyes"
+    charger = commissioning_of("solar-bank-charger", "C")
+    assert charger.entry.tested_by == "Ilse Varga-Mbeki"
     assert charger.values["insulation-mains-output"] == Q_(200, "megaohm")
     assert str(charger.values["pe-continuity"].units) == "Ω"
-    assert charger.values["soak-hs2"] == Q_(12, "K")
+    assert charger.values["soak-hs2"] == Q_(23, "K")
     bench = commissioning_of("bench-psu-13v8", "A")
     assert bench.entry.witness == "Priya Vanterpool"
 
 
 def test_revisions_without_a_commissioning_file_have_none(demo_archive):
-    assert commissioning_of("sw-charger-12v", "B") is None
+    assert commissioning_of("solar-bank-charger", "B") is None
     assert commissioning_path(demo_archive / "rotator-control", "A") is None
-    assert commissioning_path(demo_archive / "sw-charger-12v", "C").name == "commissioning-C.yaml"
+    assert commissioning_path(demo_archive / "solar-bank-charger", "C").name == "commissioning-C.yaml"
 
 
 def test_loading_leaves_the_file_as_it_was(tmp_path):
@@ -50,7 +50,7 @@ def test_loading_leaves_the_file_as_it_was(tmp_path):
     path = tmp_path / "commissioning-C.yaml"
     path.write_text(text, encoding="utf-8")
     before = path.read_bytes()
-    load_commissioning(path, checklist_of("sw-charger-12v", "C"))
+    load_commissioning(path, checklist_of("solar-bank-charger", "C"))
     assert path.read_bytes() == before
 
 
@@ -62,7 +62,7 @@ def test_unknown_keys_and_items_are_located_with_a_suggestion(tmp_path):
     lines = problems_in(tmp_path, HEADER + "results:\n  pe-continuty: {value: 0.04 ohm}\n")
     assert lines == [
         "commissioning-C.yaml:7:3: results.pe-continuty: no such item on this revision's checklist; expected an item id "
-        "printed on the checklist of sw-charger-12v rev C, found 'pe-continuty' (did you mean 'pe-continuity'?)",
+        "printed on the checklist of solar-bank-charger rev C, found 'pe-continuty' (did you mean 'pe-continuity'?)",
     ]
 
 
@@ -83,23 +83,23 @@ def test_values_are_checked_against_their_items(tmp_path):
 
 
 def test_the_witness_must_be_a_second_person(tmp_path):
-    text = HEADER.replace("witness: Desmond Achterberg", "witness: tamsin okonkwo-reyes")
+    text = HEADER.replace("witness: Rhodri Castellanos", "witness: ilse varga-mbeki")
     assert problems_in(tmp_path, text) == [
-        "commissioning-C.yaml:5:10: witness: the witness must be a second person; expected a second person, not the tester, found 'tamsin okonkwo-reyes'",
+        "commissioning-C.yaml:5:10: witness: the witness must be a second person; expected a second person, not the tester, found 'ilse varga-mbeki'",
     ]
 
 
 def test_missing_keys_and_bad_dates(tmp_path):
-    lines = problems_in(tmp_path, "build: sw-charger-12v\nrevision: C\ndate: 12 May\n")
+    lines = problems_in(tmp_path, "build: solar-bank-charger\nrevision: C\ndate: 12 May\n")
     assert lines[0].startswith("commissioning-C.yaml:1:1: tested_by: required key is missing")
     assert any(line.startswith("commissioning-C.yaml:3:7: date:") for line in lines)
     assert len(lines) == 3  # tested_by, witness, date
 
 
 def test_a_file_for_another_build_or_revision(tmp_path):
-    text = HEADER.replace("build: sw-charger-12v", "build: bench-psu-13v8").replace("revision: C", "revision: B")
+    text = HEADER.replace("build: solar-bank-charger", "build: bench-psu-13v8").replace("revision: C", "revision: B")
     assert problems_in(tmp_path, text) == [
-        "commissioning-C.yaml:1:8: build: build does not match the folder; expected 'sw-charger-12v', the build this file sits with, found 'bench-psu-13v8'",
+        "commissioning-C.yaml:1:8: build: build does not match the folder; expected 'solar-bank-charger', the build this file sits with, found 'bench-psu-13v8'",
         "commissioning-C.yaml:2:11: revision: revision does not match the file name; expected 'C', the revision this file records, found 'B'",
     ]
 

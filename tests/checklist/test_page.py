@@ -47,32 +47,32 @@ def test_a_failing_finding_blocks_the_power_up(build, revision):
 
 
 def test_the_demo_archive_has_both_a_blocked_and_a_clear_revision():
-    assert checklist_of("sw-charger-12v", "A").blocked
-    assert not checklist_of("sw-charger-12v", "C").blocked
+    assert checklist_of("solar-bank-charger", "A").blocked
+    assert not checklist_of("solar-bank-charger", "C").blocked
 
 
 def test_a_blocked_revision_cannot_pass_commissioning_even_with_every_value_in_range():
-    checklist = checklist_of("sw-charger-12v", "C")
-    blocked = checklist.__class__(**{**checklist.__dict__, "blockers": checklist_of("sw-charger-12v", "A").blockers})
-    summary = summarise(blocked, outcomes(blocked, commissioning_of("sw-charger-12v", "C")))
+    checklist = checklist_of("solar-bank-charger", "C")
+    blocked = checklist.__class__(**{**checklist.__dict__, "blockers": checklist_of("solar-bank-charger", "A").blockers})
+    summary = summarise(blocked, outcomes(blocked, commissioning_of("solar-bank-charger", "C")))
     assert not summary.out_of_range and not summary.incomplete
     assert summary.blocked and not summary.passed
 
 
 def test_the_page_is_markdown_that_renders_to_tables_and_headings():
-    html = markdown.markdown(page("sw-charger-12v", "C"), extensions=["tables"])
-    assert html.count("<table>") == len([i for i in checklist_of("sw-charger-12v", "C").items if i.measured])
+    html = markdown.markdown(page("solar-bank-charger", "C"), extensions=["tables"])
+    assert html.count("<table>") == len([i for i in checklist_of("solar-bank-charger", "C").items if i.measured])
     assert "<h2>Before the mains is connected</h2>" in html
     assert "<h2>Temperature soak</h2>" in html
 
 
 def test_print_links_are_offered_when_given():
-    text = page("sw-charger-12v", "C", print_links={"A4 PDF": "checklist-a4.pdf", "US Letter PDF": "checklist-letter.pdf"})
+    text = page("solar-bank-charger", "C", print_links={"A4 PDF": "checklist-a4.pdf", "US Letter PDF": "checklist-letter.pdf"})
     assert "Printable sheet: [A4 PDF](checklist-a4.pdf) · [US Letter PDF](checklist-letter.pdf)" in text
 
 
 def test_record_text_cannot_inject_markup():
-    loaded, reviewed = demo("sw-charger-12v", "C")
+    loaded, findings = demo("solar-bank-charger", "C")
     barrier = loaded.record.barriers[0].model_dump()
     hostile = Barrier.model_validate({**barrier, "name": "<script>alert(1)</script> *gap*"})
     changed = with_record(loaded, barriers=[hostile], title="<b>bold</b> title")

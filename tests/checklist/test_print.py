@@ -21,7 +21,7 @@ pytestmark = pytest.mark.needs("pango", "poppler")
 
 # Paper sizes in PostScript points: ISO 216 A4 is 210 x 297 mm; US Letter is 8.5 x 11 in.
 PAPER_POINTS = {"a4": (595.28, 841.89), "letter": (612.0, 792.0)}
-SHEETS = [("sw-charger-12v", "C", "a4"), ("sw-charger-12v", "C", "letter"), ("bench-psu-13v8", "A", "a4"), ("rotator-control", "A", "letter")]
+SHEETS = [("solar-bank-charger", "C", "a4"), ("solar-bank-charger", "C", "letter"), ("bench-psu-13v8", "A", "a4"), ("rotator-control", "A", "letter")]
 
 
 def poppler(*args) -> str:
@@ -56,13 +56,12 @@ def printed(tmp_path_factory) -> dict:
     """(build, revision, paper) -> PDF path, rendered once for the module: the blank charger sheet on both
     papers as the build writes it, the filled-in bench supply on A4 and the blocked rotator on Letter."""
     folder = tmp_path_factory.mktemp("sheets")
-    rendered = {}
-    for build, revision, paper in SHEETS:
-        loaded, _ = demo(build, revision)
-        commissioning = commissioning_of(build, revision) if build != "sw-charger-12v" else None
-        html = checklist_html(loaded, checklist_of(build, revision), paper, commissioning)
-        rendered[build, revision, paper] = folder / f"{build}-{revision}-{paper}.pdf"
-        rendered[build, revision, paper].write_bytes(render_pdf(html))  # the renderer the build's PDF cache uses
+    loaded, findings = demo("solar-bank-charger", "C")
+    rendered = {("solar-bank-charger", "C", paper): path for paper, path in write_checklist_pdfs(loaded, list(findings), folder).items()}
+    for build, revision, paper in (("bench-psu-13v8", "A", "a4"), ("rotator-control", "A", "letter")):
+        loaded, findings = demo(build, revision)
+        html = checklist_html(loaded, list(findings), paper, commissioning_of(build, revision))
+        rendered[build, revision, paper] = write_pdf(html, folder / pdf_name(build, revision, paper))
     return rendered
 
 
@@ -111,7 +110,7 @@ def test_a_blocked_sheet_says_do_not_power_up_on_its_first_page(printed):
 
 @pytest.mark.parametrize("paper", list(PAPER_POINTS))
 def test_every_page_as_a_picture_has_the_papers_shape_and_ink(printed, tmp_path, paper):
-    pdf = printed["sw-charger-12v", "C", paper]
+    pdf = printed["solar-bank-charger", "C", paper]
     subprocess.run(["pdftoppm", "-r", "40", "-png", str(pdf), str(tmp_path / "page")], check=True)
     pictures = sorted(tmp_path.glob("page-*.png"))
     assert len(pictures) == page_count(pdf)
@@ -121,6 +120,12 @@ def test_every_page_as_a_picture_has_the_papers_shape_and_ink(printed, tmp_path,
         assert image.height / image.width == pytest.approx(height / width, rel=0.02)
         dark = sum(image.histogram()[:128])
         assert dark > 0.005 * image.width * image.height, f"{picture.name} is nearly blank"
+
+
+def test_the_build_writes_both_papers(printed):
+    written = [printed["solar-bank-charger", "C", paper] for paper in PAPER_POINTS]
+    assert [path.name for path in written] == ["checklist-solar-bank-charger-rev-C-a4.pdf", "checklist-solar-bank-charger-rev-C-letter.pdf"]
+    assert all(path.read_bytes().startswith(b"%PDF-") for path in written)
 
 
 def test_the_pdf_renderer_fetches_nothing_the_html_names(tmp_path):

@@ -27,14 +27,14 @@ def site(demo_site):
 
 
 def test_the_demo_site_is_built_with_every_page(site):
-    for path in ("index.html", "about.html", "status/design.html", "builds/sw-charger-12v/index.html", "builds/sw-charger-12v/rev-A/calcs.html", "builds/sw-charger-12v/changes.html", "search/search_index.js"):
+    for path in ("index.html", "about.html", "status/design.html", "builds/solar-bank-charger/index.html", "builds/solar-bank-charger/rev-A/calcs.html", "builds/solar-bank-charger/changes.html", "search/search_index.js"):
         assert (site / path).is_file(), path
     assert (site / MARKER).is_file()
 
 
 def test_pages_link_as_files_so_the_site_opens_from_a_folder(site):
     index = (site / "index.html").read_text(encoding="utf-8")
-    assert 'href="builds/sw-charger-12v/index.html"' in index
+    assert 'href="builds/solar-bank-charger/index.html"' in index
     assert not re.search(r'href="[^"#:]*/"', index), "a link to a folder does not open over file://"
 
 
@@ -45,18 +45,18 @@ def test_nothing_is_loaded_from_the_network_and_no_script_comes_from_records(sit
 
 
 def test_the_search_shim_is_served_locally(site):
-    overview = (site / "builds/sw-charger-12v/index.html").read_text(encoding="utf-8")
+    overview = (site / "builds/solar-bank-charger/index.html").read_text(encoding="utf-8")
     assert '<script src="../../assets/dossier/vendor/iframe-worker/shim.js"></script>' in overview
     assert "unpkg" not in overview and "fonts.googleapis" not in overview
 
 
 def test_search_index_finds_titles_designators_parts_and_notes(site):
     index = json.loads((site / "search/search_index.json").read_text(encoding="utf-8"))
-    current = [doc for doc in index["docs"] if doc["location"].startswith("builds/sw-charger-12v/index.html")]
+    current = [doc for doc in index["docs"] if doc["location"].startswith("builds/solar-bank-charger/index.html")]
     text = " ".join(doc["title"] + " " + doc["text"] for doc in current)
-    for needle in ("12 V lead-acid charger", "RT1", "dual Schottky 100 V 20 A", "FR-4 offcuts"):
+    for needle in ("24 V charger for the solar-station", "RT1", "ultrafast 200 V 8 A", "small mill"):
         assert needle in text, needle
-    assert not any(doc["location"].startswith("builds/sw-charger-12v/rev-C/") for doc in index["docs"])
+    assert not any(doc["location"].startswith("builds/solar-bank-charger/rev-C/") for doc in index["docs"])
 
 
 def test_every_build_page_with_mains_carries_the_caution(site):

@@ -16,7 +16,7 @@ def run(*args):
 
 
 def test_check_on_a_clean_record_exits_0():
-    result = run("check", DEMO / "sw-charger-12v" / "rev-C.yaml")
+    result = run("check", DEMO / "solar-bank-charger" / "rev-C.yaml")
     assert result.exit_code == 0, result.output
     assert "rev C" in result.output
     assert "Mains voltages can kill" in result.output
@@ -30,7 +30,7 @@ def test_check_on_the_demo_archive_exits_1_because_rev_a_fails_on_purpose():
 
 
 def test_a_broken_commissioning_record_is_located(tmp_path):
-    build = shutil.copytree(DEMO / "sw-charger-12v", tmp_path / "sw-charger-12v")
+    build = shutil.copytree(DEMO / "solar-bank-charger", tmp_path / "solar-bank-charger")
     path = build / "commissioning-C.yaml"
     path.write_text(path.read_text(encoding="utf-8").replace("witness:", "witnes:", 1), encoding="utf-8")
     result = run("check", build / "rev-C.yaml")
@@ -50,8 +50,8 @@ def test_check_on_an_invalid_record_exits_2_with_located_problems(tmp_path):
 
 
 def test_revision_must_match_its_file_name(tmp_path):
-    build = tmp_path / "sw-charger-12v"
-    shutil.copytree(DEMO / "sw-charger-12v", build)
+    build = tmp_path / "solar-bank-charger"
+    shutil.copytree(DEMO / "solar-bank-charger", build)
     (build / "rev-A.yaml").rename(build / "rev-D.yaml")
     result = run("check", build / "rev-D.yaml")
     assert result.exit_code == 2
@@ -65,7 +65,7 @@ def test_missing_path_exits_2():
 
 
 def test_json_output_has_the_documented_shape():
-    result = run("check", "--format", "json", DEMO / "sw-charger-12v" / "rev-A.yaml")
+    result = run("check", "--format", "json", DEMO / "solar-bank-charger" / "rev-A.yaml")
     body = json.loads(result.output)
     assert body["shape"] == 1 and body["exit_code"] == result.exit_code
     (record,) = body["records"]

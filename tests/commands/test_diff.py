@@ -75,23 +75,23 @@ def test_unchanged_findings_are_not_listed(tmp_path):
 
 
 def test_demo_diff_lists_the_widened_barrier_and_its_findings(calcs):
-    text = diff_text(DEMO / "sw-charger-12v" / "rev-A.yaml", DEMO / "sw-charger-12v" / "rev-B.yaml", calcs)
-    assert text.splitlines()[0] == "sw-charger-12v rev A (2026-02-10) -> sw-charger-12v rev B (2026-03-24)"
-    assert "barriers[primary to output].creepage: 3.2 mm -> 6.4 mm" in text
-    assert "protection.fuse.rating: 1 A -> 2 A" in text
-    old, new = (review(load_demo("sw-charger-12v", letter), calcs) for letter in "AB")
+    text = diff_text(DEMO / "solar-bank-charger" / "rev-A.yaml", DEMO / "solar-bank-charger" / "rev-B.yaml", calcs)
+    assert text.splitlines()[0] == "solar-bank-charger rev A (2026-03-03) -> solar-bank-charger rev B (2026-04-28)"
+    assert "barriers[primary to output].creepage: 2.6 mm -> 7.2 mm" in text
+    assert "protection.fuse.rating: 2.5 A -> 3.15 A" in text
+    old, new = (review(load_demo("solar-bank-charger", letter), calcs) for letter in "AB")
     expected = [change.text for change in finding_changes(old, new)]
     assert expected and all(line in text for line in expected)
 
 
 def test_diff_command_prints_the_same(calcs):
-    result = CliRunner().invoke(main, ["diff", str(DEMO / "sw-charger-12v" / "rev-B.yaml"), str(DEMO / "sw-charger-12v" / "rev-C.yaml")])
+    result = CliRunner().invoke(main, ["diff", str(DEMO / "solar-bank-charger" / "rev-B.yaml"), str(DEMO / "solar-bank-charger" / "rev-C.yaml")])
     assert result.exit_code == 0
-    assert "magnetics[T1].windings[secondary].strands: 1 -> 3" in result.output
+    assert "magnetics[T1].windings[primary].turns: 14.0 -> 36.0" in result.output
 
 
 def test_diff_command_refuses_a_folder_or_missing_file(tmp_path):
-    result = CliRunner().invoke(main, ["diff", str(DEMO / "sw-charger-12v"), str(tmp_path / "rev-Z.yaml")])
+    result = CliRunner().invoke(main, ["diff", str(DEMO / "solar-bank-charger"), str(tmp_path / "rev-Z.yaml")])
     assert result.exit_code == 2 and "one record file" in result.output and "Traceback" not in result.output
 
 
@@ -100,6 +100,6 @@ def test_diff_of_mains_revisions_carries_the_caution():
     from dossier.commands.diff import diff_text
     from tests.fixtures.demo import DEMO
 
-    build = DEMO / "sw-charger-12v"
+    build = DEMO / "solar-bank-charger"
     text = diff_text(build / "rev-A.yaml", build / "rev-B.yaml")
     assert text.endswith(f"Caution: {MAINS_CAUTION}")

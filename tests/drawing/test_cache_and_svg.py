@@ -64,21 +64,21 @@ def test_finish_adds_an_escaped_title_and_rejects_broken_svg():
 
 def test_all_demo_figures_on_one_page_have_distinct_ids():
     seen: list[str] = []
-    for build, rev in (("sw-charger-12v", "B"), ("bench-psu-13v8", "A")):
+    for build, rev in (("solar-bank-charger", "B"), ("bench-psu-13v8", "A")):
         for figure in schematics.figures(load_demo(build, rev)):
             seen += ids_and_references(figure.svg)[0]
     assert len(seen) == len(set(seen))
 
 
 def test_the_same_record_draws_byte_identical_svg():
-    record = load_demo("sw-charger-12v", "C")
+    record = load_demo("solar-bank-charger", "C")
     first = [f.svg for f in schematics.figures(record)]
     schematics.figures(load_demo("bench-psu-13v8", "A"))  # other drawings in between change nothing
     assert [f.svg for f in schematics.figures(record)] == first
 
 
 def test_an_unchanged_record_redraws_nothing(tmp_path):
-    record = load_demo("sw-charger-12v", "B")
+    record = load_demo("solar-bank-charger", "B")
     cold = DrawingCache.under(tmp_path)
     first = schematics.figures(record, [], cold)
     assert (cold.hits, cold.misses) == (0, len(first))
@@ -89,7 +89,7 @@ def test_an_unchanged_record_redraws_nothing(tmp_path):
 
 
 def test_a_changed_value_redraws_only_its_stage(tmp_path):
-    record = load_demo("sw-charger-12v", "B")
+    record = load_demo("solar-bank-charger", "B")
     schematics.figures(record, [], DrawingCache(tmp_path))
     output = record.stages[-1]
     parts = [p.model_copy(update={"value": "30 A blade"}) if p.ref == "F2" else p for p in output.parts]
@@ -134,7 +134,7 @@ def test_drawing_changes_no_module_wide_schemdraw_setting():
     style_before = dict(schemdraw.schemdraw.schemdrawstyle)
     resistor_before = elm.Resistor
     canvas_before = schemdraw.default_canvas.default_canvas
-    schematics.figures(load_demo("sw-charger-12v", "C"))
+    schematics.figures(load_demo("solar-bank-charger", "C"))
     assert dict(schemdraw.schemdraw.schemdrawstyle) == style_before
     assert elm.Resistor is resistor_before
     assert schemdraw.default_canvas.default_canvas == canvas_before

@@ -7,7 +7,7 @@ import re
 from xml.etree import ElementTree
 
 import pytest
-from tests.fixtures.demo import DEMO, load_demo
+from tests.fixtures.demo import DEMO, load_demo, load_test_record
 
 from dossier.drawing import schematics
 from dossier.drawing.figure import Figure
@@ -69,7 +69,8 @@ def test_a_block_diagram_then_one_drawing_per_stage(drawn, build, rev):
 @pytest.mark.parametrize("build, rev", DEMO_REVISIONS)
 def test_every_demo_stage_has_a_real_drawing_not_a_placeholder(drawn, build, rev):
     assert drawn[build, rev].notes == ()
-    assert not any("not drawn:" in svg_words(f.svg) for f in drawn[build, rev].figures)
+    # a placeholder says 'not drawn: <reason>' on a line of its own; parts a drawer leaves are listed under 'Also in ...'
+    assert not any(line.startswith("not drawn:") for f in drawn[build, rev].figures for line in svg_lines(f.svg))
 
 
 @pytest.mark.parametrize("build, rev", DEMO_REVISIONS)
@@ -101,27 +102,48 @@ def test_the_block_diagram_names_every_stage_and_designator(drawn, build, rev):
         assert all(has_designator(diagram, part.ref) for part in stage.parts)
 
 
-def test_windings_are_labelled_with_turns_wire_and_centre_tap(drawn):
-    record = load_demo("sw-charger-12v", "C")
-    magnetics = next(f for f in drawn["sw-charger-12v", "C"].figures if f.key.endswith("magnetics"))
+def test_windings_are_labelled_with_turns_and_stranded_wire(drawn):
+    record = load_demo("solar-bank-charger", "C")
+    magnetics = next(f for f in drawn["solar-bank-charger", "C"].figures if f.key.endswith("magnetics"))
     lines = svg_lines(magnetics.svg)
     secondary = next(w for w in record.magnetics[0].windings if w.role == "secondary")
-    assert f"secondary: {secondary.turns:g} t, centre tap" in lines
+    assert f"secondary: {secondary.turns:g} t" in lines
     assert f"{secondary.strands} \u00d7 {secondary.wire.to('mm').magnitude:g} mm" in lines
-    assert "CT" in lines
+    assert "CT" not in lines
 
 
-def test_the_base_drive_windings_carry_their_turns(drawn):
-    record = load_demo("sw-charger-12v", "B")
-    converter = next(f for f in drawn["sw-charger-12v", "B"].figures if f.key.endswith("converter"))
+def test_a_centre_tapped_winding_is_labelled_so():
+    record = load_test_record("selfosc-psu")
+    magnetics = next(f for f in schematics.figures(record) if f.key.endswith("magnetics"))
+    lines = svg_lines(magnetics.svg)
+    assert "secondary: 14 t, centre tap" in lines and "0.9 mm" in lines and "CT" in lines
+
+
+def test_the_base_drive_windings_carry_their_turns():
+    record = load_test_record("selfosc-psu")
+    converter = next(f for f in schematics.figures(record) if f.key.endswith("converter"))
     drive = next(m for m in record.magnetics if m.role == "base-drive")
     flat = " ".join(svg_lines(converter.svg))
     for winding in drive.windings:
         assert f"{drive.ref} {winding.name}: {winding.turns:g} t" in flat
+    assert "T2 current feedback: 1.5 t" in flat  # a fractional turn keeps its fraction
+    assert "D7" in flat and "diac 36 V" in flat  # the start-up trigger is drawn
+
+
+def test_the_gate_drive_windings_carry_their_turns_and_the_controller_is_drawn(drawn):
+    record = load_demo("solar-bank-charger", "C")
+    converter = next(f for f in drawn["solar-bank-charger", "C"].figures if f.key.endswith("converter"))
+    drive = next(m for m in record.magnetics if m.role == "gate-drive")
+    lines = svg_lines(converter.svg)
+    flat = " ".join(lines)
+    for winding in drive.windings:
+        assert f"{drive.ref} {winding.name}: {winding.turns:g} t" in flat
+    assert "U1" in lines and "PWM controller with two alternating outputs" in lines
+    assert not [line for line in lines if line.startswith("Also in this stage")]
 
 
 def test_the_barrier_label_carries_the_isolation_verdict_and_distances():
-    record = load_demo("sw-charger-12v", "B")
+    record = load_demo("solar-bank-charger", "B")
     barrier = record.barriers[0]
     result = schematics.draw(record, barrier_findings(barrier.name, Verdict.PASS, Verdict.MARGINAL))
     magnetics = next(f for f in result.figures if f.key.endswith("magnetics"))
@@ -170,7 +192,7 @@ def test_the_transformer_drawing_splits_mains_and_isolated_sides():
 
 
 def test_an_unknown_stage_kind_gets_a_placeholder_and_an_info_finding():
-    record = load_demo("sw-charger-12v", "B")
+    record = load_demo("solar-bank-charger", "B")
     fan = Stage(kind="other", name="Fan controller", side="isolated",
                 parts=[Part(ref="U7", kind="ic", value="fan controller IC"), Part(ref="M1", kind="fan", value="80 mm 12 V")])
     changed = record.model_copy(update={"stages": [*record.stages, fan]})
@@ -185,18 +207,22 @@ def test_an_unknown_stage_kind_gets_a_placeholder_and_an_info_finding():
     assert schematics.notes(changed) == [note]
 
 
-def test_a_half_bridge_without_its_lower_switch_gets_a_placeholder():
-    record = load_demo("sw-charger-12v", "B")
+@pytest.mark.parametrize("record, words, subject", [
+    (lambda: load_demo("solar-bank-charger", "B"), "controller-driven half-bridge", "stage 2: Controller-driven half-bridge"),
+    (lambda: load_test_record("selfosc-psu"), "self-oscillating half-bridge", "stage 2: Self-oscillating half-bridge"),
+], ids=["controller-driven", "self-oscillating"])
+def test_a_half_bridge_without_its_lower_switch_gets_a_placeholder(record, words, subject):
+    record = record()
     converter = record.stages[1]
     short = converter.model_copy(update={"parts": [p for p in converter.parts if p.role != "lower switch"]})
     changed = record.model_copy(update={"stages": [record.stages[0], short, *record.stages[2:]]})
     result = schematics.draw(changed, [])
-    assert "not drawn: the self-oscillating half-bridge drawing needs a lower switch" in svg_lines(result.figures[2].svg)
-    assert [n.subject for n in result.notes] == ["stage 2: Self-oscillating half-bridge"]
+    assert f"not drawn: the {words} drawing needs a lower switch" in svg_lines(result.figures[2].svg)
+    assert [n.subject for n in result.notes] == [subject]
 
 
 def test_an_unknown_topology_gets_a_placeholder():
-    record = load_demo("sw-charger-12v", "C")
+    record = load_demo("solar-bank-charger", "C")
     flyback = record.stages[1].model_copy(update={"topology": "flyback"})
     changed = record.model_copy(update={"stages": [record.stages[0], flyback, *record.stages[2:]]})
     assert "topology 'flyback'" in schematics.notes(changed)[0].explanation
@@ -223,3 +249,25 @@ def test_an_ac_output_is_not_labelled_with_polarity(drawn):
     lines = svg_lines(output.svg)
     assert "~ from stage 2" in lines
     assert not any(line.startswith("+") for line in lines)
+
+
+def test_a_bridge_of_fewer_than_four_diodes_gets_a_placeholder():
+    record = load_demo("solar-bank-charger", "C")
+    rectifier = record.stages[3]
+    short = rectifier.model_copy(update={"parts": [p for p in rectifier.parts if p.ref != "D8"]})
+    changed = record.model_copy(update={"stages": [*record.stages[:3], short, *record.stages[4:]]})
+    result = schematics.draw(changed, [])
+    assert "not drawn: the rectifier drawing needs a bridge rectifier part or four diodes" in svg_lines(result.figures[4].svg)
+
+
+def test_a_diode_across_the_output_is_drawn_across_the_rails_after_the_fuse(drawn):
+    output = next(f for f in drawn["solar-bank-charger", "C"].figures if f.key.endswith("output"))
+    root = ElementTree.fromstring(output.svg)
+    where = {}
+    for text in root.iter(f"{SVG}text"):
+        first = next(text.iter(f"{SVG}tspan"), None)
+        if first is not None and first.text in ("F2", "D9"):
+            where[first.text] = (float(text.get("x")), float(text.get("y")))
+    # a series part is labelled above the positive lead; a part across the rails beside it, lower down
+    assert where["F2"][0] < where["D9"][0]
+    assert where["D9"][1] > where["F2"][1] + 30

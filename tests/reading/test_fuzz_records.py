@@ -23,7 +23,7 @@ from tests.fixtures.demo import DEMO
 from tests.fixtures.bad_input import tried
 
 EXAMPLES = int(os.environ.get("DOSSIER_FUZZ_EXAMPLES", "150"))
-SOURCE = (DEMO / "sw-charger-12v" / "rev-C.yaml").read_text(encoding="utf-8")
+SOURCE = (DEMO / "solar-bank-charger" / "rev-C.yaml").read_text(encoding="utf-8")
 LINES = SOURCE.splitlines()
 CALCS = load_calcs()
 FUZZ = settings(max_examples=EXAMPLES, deadline=None, suppress_health_check=[HealthCheck.function_scoped_fixture, HealthCheck.too_slow])
@@ -38,10 +38,10 @@ ATTACHED = ("photos", "sheets")  # the folders rev C's attachments live in
 
 
 def demo_build_in(tmp: Path) -> Path:
-    build = tmp / "sw-charger-12v"
+    build = tmp / "solar-bank-charger"
     build.mkdir(parents=True, exist_ok=True)
     for folder in ATTACHED:
-        shutil.copytree(DEMO / "sw-charger-12v" / folder, build / folder, dirs_exist_ok=True)
+        shutil.copytree(DEMO / "solar-bank-charger" / folder, build / folder, dirs_exist_ok=True)
     return build
 
 
@@ -51,7 +51,7 @@ def check_mutant(tmp: Path, text: str) -> None:
     path = build / "rev-C.yaml"
     path.write_text(text, encoding="utf-8")
     try:
-        loaded = load_revision(RevisionFile("sw-charger-12v", "C", path))
+        loaded = load_revision(RevisionFile("solar-bank-charger", "C", path))
     except InputError as error:
         assert error.problems and all(p.location.file and p.location.line >= 1 for p in error.problems)
         return
@@ -63,7 +63,7 @@ def test_the_unmutated_record_loads_and_runs_every_calc(tmp_path):
     """Guards the fuzzing itself: if the untouched record did not load, every mutant would 'pass'."""
     build = demo_build_in(tmp_path)
     (build / "rev-C.yaml").write_text(SOURCE, encoding="utf-8")
-    loaded = load_revision(RevisionFile("sw-charger-12v", "C", build / "rev-C.yaml"))
+    loaded = load_revision(RevisionFile("solar-bank-charger", "C", build / "rev-C.yaml"))
     assert len(review(loaded.record, CALCS)) > 50
 
 
@@ -127,6 +127,6 @@ def test_byte_splices(tmp_path_factory, offset, chunk):
     build = demo_build_in(tmp_path_factory.mktemp("m"))
     (build / "rev-C.yaml").write_bytes(mutant)
     try:
-        load_revision(RevisionFile("sw-charger-12v", "C", build / "rev-C.yaml"))
+        load_revision(RevisionFile("solar-bank-charger", "C", build / "rev-C.yaml"))
     except InputError as error:
         assert all(p.location.line >= 1 or p.code == "file_unreadable" for p in error.problems)

@@ -12,15 +12,15 @@ from dossier.reading.record import load_record
 from dossier.units import Q_
 from dossier.wording import problem_line
 
-DEMO_TEXT = (DEMO / "sw-charger-12v" / "rev-C.yaml").read_text(encoding="utf-8")
+DEMO_TEXT = (DEMO / "solar-bank-charger" / "rev-C.yaml").read_text(encoding="utf-8")
 
 
 def write_variant(tmp_path: Path, old: str, new: str) -> tuple[Path, int, int]:
     """The demo charger with one line changed; returns the file and the changed value's line and column."""
     assert old in DEMO_TEXT
     text = DEMO_TEXT.replace(old, new)
-    (tmp_path / "sw-charger-12v").mkdir()
-    path = tmp_path / "sw-charger-12v" / "rev-C.yaml"
+    (tmp_path / "solar-bank-charger").mkdir()
+    path = tmp_path / "solar-bank-charger" / "rev-C.yaml"
     path.write_text(text, encoding="utf-8")
     changed = new.splitlines()[-1]
     line_index = text.splitlines().index(changed)
@@ -36,11 +36,11 @@ def problems(path: Path) -> list[str]:
 
 @pytest.mark.parametrize("old, new, key, words", [
     ("    chemistry: agm", "    chemistry: lithium", "output.battery.chemistry", "expected one of flooded, agm, gel, found 'lithium'"),
-    ("    float_voltage: 13.6 V", "    float_voltage: 14.6 V", "output.battery.float_voltage", "expected below absorption_voltage (14.4 V)"),
-    ("    capacity: 40 Ah", "    capacity: 0 Ah", "output.battery.capacity", "value out of range; expected at least 0.001 A·h"),
-    ("    capacity: 40 Ah", "    capacity: 40 V", "output.battery.capacity", "wrong kind of unit"),
-    ("    temperature: 25 degC", "    start_state_of_charge: 120 %", "output.battery.start_state_of_charge", "at least 0 % and below 100 %"),
-    ("    temperature: 25 degC", "    compensation: -18 mV", "output.battery.compensation", "voltage per kelvin"),
+    ("    float_voltage: 27.3 V", "    float_voltage: 29.2 V", "output.battery.float_voltage", "expected below absorption_voltage (29 V)"),
+    ("    capacity: 65 Ah", "    capacity: 0 Ah", "output.battery.capacity", "expected a value above zero"),
+    ("    capacity: 65 Ah", "    capacity: 65 V", "output.battery.capacity", "wrong kind of unit"),
+    ("    temperature: 15 degC", "    start_state_of_charge: 120 %", "output.battery.start_state_of_charge", "at least 0 % and below 100 %"),
+    ("    compensation: -36 mV/K", "    compensation: -36 mV", "output.battery.compensation", "voltage per kelvin"),
 ])
 def test_bad_battery_values_are_located(tmp_path, old, new, key, words):
     path, line, column = write_variant(tmp_path, old, new)
@@ -50,19 +50,19 @@ def test_bad_battery_values_are_located(tmp_path, old, new, key, words):
 
 
 def test_temperatures_out_of_order_are_an_error(tmp_path):
-    path, _, _ = write_variant(tmp_path, "    temperature: 25 degC", "    temperature: 25 degC\n    lowest_temperature: 30 degC")
+    path, _, _ = write_variant(tmp_path, "    lowest_temperature: 0 degC", "    lowest_temperature: 20 degC")
     [found] = problems(path)
     assert "output.battery" in found and "lowest_temperature <= temperature <= highest_temperature" in found
 
 
 def test_a_misspelt_battery_key_gets_a_suggestion(tmp_path):
-    path, _, _ = write_variant(tmp_path, "    temperature: 25 degC", "    temprature: 25 degC")
+    path, _, _ = write_variant(tmp_path, "    temperature: 15 degC", "    temprature: 15 degC")
     [found] = problems(path)
     assert "unknown key" in found and "did you mean 'temperature'?" in found
 
 
 def test_the_demo_battery_reads_with_its_defaults():
-    battery = load_record(DEMO / "sw-charger-12v" / "rev-C.yaml").record.output.battery
+    battery = load_record(DEMO / "solar-bank-charger" / "rev-C.yaml").record.output.battery
     assert battery.start_state_of_charge == Q_(20, "percent")
-    assert battery.compensation is None and battery.charge_current is None
-    assert battery.temperature_span == (Q_(25, "degC"), Q_(25, "degC"))
+    assert battery.charge_current is None and battery.compensation == Q_(-36, "mV/K")
+    assert battery.temperature_span == (Q_(0, "degC"), Q_(30, "degC"))

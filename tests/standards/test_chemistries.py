@@ -71,7 +71,7 @@ def with_test_chemistry(monkeypatch):
 def test_a_record_may_name_a_plugin_chemistry_and_the_calc_uses_it(with_test_chemistry):
     record = charger(chemistry="testcell", cells=4, absorption_voltage="14.2 V", float_voltage=None, output={"tolerance": None})
     found = findings_by_code(record)
-    # 4 x 3.50-3.60 V = 14.0-14.4 V: 14.2 V is inside; 6 A on 40 Ah is 0.15 C, below 0.2 C.
+    # 4 x 3.50-3.60 V = 14.0-14.4 V: 14.2 V is inside; 7 A on 65 Ah is 0.11 C, below 0.2 C.
     assert found["CHG-SETPOINT"].verdict is Verdict.PASS
     assert found["CHG-CURRENT"].verdict is Verdict.MARGINAL
     assert "CHG-FLOAT" not in found and "CHG-COMPENSATION" not in found

@@ -7,7 +7,7 @@ from dossier.calcs.magnetics.context import CHOKE, FARADAY, TEMPERATURE_RISE, ma
 from dossier.citations import IEC_60028
 from dossier.findings import Verdict
 
-DRIVEN_ROLES = ("transformer", "mains-transformer", "base-drive")  # a current-sense core is judged only when declared
+DRIVEN_ROLES = ("transformer", "mains-transformer", "base-drive", "gate-drive")  # a current-sense core is judged only when declared
 
 
 def input_findings(ctx):

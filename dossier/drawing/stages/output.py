@@ -1,5 +1,6 @@
-"""The output: the series parts in the positive lead (reverse-polarity diode, fuse, switch, in the
-record's order), the output terminals and, for a charger, the battery."""
+"""The output: the series parts in the positive lead (reverse-polarity diode, fuse, switch) and a diode
+whose role says it sits across the output, in the record's order, then the output terminals and, for a
+charger, the battery."""
 
 from __future__ import annotations
 
@@ -13,6 +14,7 @@ from dossier.drawing.views import PartView, StageView
 
 POSITIVE, NEGATIVE = 2.4, 0.0
 SERIES = P.either(P.FUSE, P.SWITCH, P.DIODE, P.kind("resistor", "ntc", "thermistor", "shunt"))
+ACROSS = P.kind_and_role(("diode", "schottky", "rectifier"), ("across", "shunt"))
 
 
 def draw(view: StageView):
@@ -20,8 +22,8 @@ def draw(view: StageView):
     picker = Picker(view.parts)
     _inputs(drawing, view)
     x = 0.0
-    for part in picker.take_all(SERIES):
-        x = _series(drawing, x, part)
+    for part in picker.take_all(P.either(ACROSS, SERIES)):
+        x = _across(drawing, x, part) if ACROSS(part) else _series(drawing, x, part)
     x = _terminals(drawing, x, picker.take(P.TERMINAL))
     if view.output is not None and view.output.battery:
         _battery(drawing, x, view.output.battery)
@@ -40,6 +42,18 @@ def _series(drawing, x: float, part: PartView) -> float:
     sheet.text(drawing, (x + length / 2, POSITIVE + 0.45), part.label, halign="center", valign="bottom")
     sheet.wire(drawing, (x, NEGATIVE), (x + length, NEGATIVE))
     return x + length
+
+
+def _across(drawing, x: float, part: PartView) -> float:
+    """A diode across the rails, cathode to the positive one: it conducts only when the battery is reversed."""
+    at = x + 0.8
+    sheet.add(drawing, _symbol(part).at((at, NEGATIVE)).to((at, POSITIVE)))
+    sheet.text(drawing, (at + 0.45, (POSITIVE + NEGATIVE) / 2), part.label)
+    end = at + sheet.text_width(part.label) + 0.9
+    for y in (POSITIVE, NEGATIVE):
+        sheet.wire(drawing, (x, y), (end, y))
+        sheet.dot(drawing, (at, y))
+    return end
 
 
 def _symbol(part: PartView):

@@ -1,5 +1,5 @@
-"""Output rectifier: a centre-tapped pair of diodes (one dual part or two) or a bridge, fed from
-the transformer secondary, then the output choke and capacitor when the stage has them."""
+"""Output rectifier: a centre-tapped pair of diodes (one dual part or two) or a bridge (one part
+or four diodes), fed from the transformer secondary, then the output choke and capacitor when the stage has them."""
 
 from __future__ import annotations
 
@@ -41,7 +41,7 @@ def draw(view: StageView):
     drawing = sheet.new_drawing()
     picker = Picker(view.parts)
     if topology(view) == "bridge":
-        x, positive, negative = _bridge(drawing, view, picker.take(P.BRIDGE))
+        x, positive, negative = _bridge(drawing, view, _bridge_label(picker))
     else:
         x, positive, negative = _centre_tapped(drawing, view, _rectifier_diodes(picker))
     x = _filter(drawing, x, positive, negative, picker)
@@ -79,13 +79,23 @@ def _diode_symbol(part: PartView):
     return elm.Schottky() if "schottky" in f"{part.kind} {part.value}".lower() else elm.Diode()
 
 
-def _bridge(drawing, view: StageView, bridge: PartView):
+def _bridge_label(picker: Picker) -> str:
+    """A bridge part's label, else the four diodes that make the bridge: 'D5, D6, D7, D8' over their value."""
+    bridge = picker.take(P.BRIDGE)
+    if bridge is not None:
+        return bridge.label
+    diodes = [d for d in (picker.take(P.RECTIFIER_DIODE) or picker.take(P.DIODE) for _ in range(4)) if d is not None]
+    values = sorted({d.value for d in diodes if d.value})
+    return "\n".join([", ".join(d.ref for d in diodes)] + values)
+
+
+def _bridge(drawing, view: StageView, label: str):
     """The secondary into the bridge's AC pins; DC leaves on the right."""
     _secondary(drawing, view, TOP - 0.8, BOTTOM + 0.8, humps=6)
     body = sheet.add(drawing, BridgeRectifier().at((2.0, (TOP + BOTTOM) / 2)))
     sheet.wire(drawing, (0, TOP - 0.8), (1.4, TOP - 0.8), (1.4, body.ac1[1]), body.ac1)
     sheet.wire(drawing, (0, BOTTOM + 0.8), (1.4, BOTTOM + 0.8), (1.4, body.ac2[1]), body.ac2)
-    sheet.text(drawing, (2.8, (TOP + BOTTOM) / 2 + 1.05), bridge.label, halign="center", valign="bottom")
+    sheet.text(drawing, (2.8, (TOP + BOTTOM) / 2 + 1.05), label, halign="center", valign="bottom")
     right = body.plus[0] + 0.6
     sheet.wire(drawing, body.plus, (right, body.plus[1]), (right, TOP))
     sheet.wire(drawing, body.minus, (right, body.minus[1]), (right, BOTTOM))
@@ -133,7 +143,8 @@ def handles(view: StageView) -> bool:
 def missing(view: StageView) -> list[str]:
     picker = Picker(view.parts)
     if topology(view) == "bridge":
-        return [] if picker.peek(P.BRIDGE) else ["a bridge rectifier part"]
+        four_diodes = len(picker.take_all(P.DIODE)) >= 4
+        return [] if Picker(view.parts).peek(P.BRIDGE) or four_diodes else ["a bridge rectifier part or four diodes"]
     return [] if picker.peek(P.DIODE) else ["a rectifier diode"]
 
 

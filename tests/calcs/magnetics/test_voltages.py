@@ -5,7 +5,7 @@ from __future__ import annotations
 import math
 
 import pytest
-from tests.fixtures.demo import load_demo
+from tests.fixtures.demo import load_demo, load_test_record
 
 from dossier.calcs.magnetics.voltages import drive_of, winding_voltages
 from dossier.calcs.shared.mains_lines import line_peaks
@@ -21,30 +21,41 @@ def volts(quantity):
 
 def test_half_bridge_primary_sees_half_the_rectified_peak():
     # A half-bridge primary sees plus and minus half the bus; the bus is the rectified mains peak (textbook).
-    record = load_demo("sw-charger-12v", "A")
+    record = load_demo("solar-bank-charger", "A")
     found = winding_voltages(record, magnetic(record, "T1"))
     for line, factor in (("low", 0.9), ("nominal", 1.0), ("high", 1.1)):
         assert volts(found["primary"][line]) == pytest.approx(230 * factor * math.sqrt(2) / 2)
 
 
+def test_bridge_secondary_has_no_halves():
+    # the same volts per turn in every winding (Faraday's law): 4 of rev A's 14 turns
+    record = load_demo("solar-bank-charger", "A")
+    found = winding_voltages(record, magnetic(record, "T1"))
+    assert volts(found["secondary"]["high"]) == pytest.approx(volts(found["primary"]["high"]) * 4 / 14)
+    assert set(found) == {"primary", "secondary"}
+
+
 def test_centre_tapped_secondary_and_each_half():
-    # the same volts per turn in every winding (Faraday's law): 18 of 60 turns, and 9 for each half
-    record = load_demo("sw-charger-12v", "A")
+    # the same volts per turn in every winding (Faraday's law): 14 of 72 turns, and 7 for each half
+    record = load_test_record("selfosc-psu")
     found = winding_voltages(record, magnetic(record, "T1"))
     primary = volts(found["primary"]["high"])
-    assert volts(found["secondary"]["high"]) == pytest.approx(primary * 18 / 60)
-    assert volts(found["secondary/half"]["high"]) == pytest.approx(primary * 9 / 60)
+    assert volts(found["secondary"]["high"]) == pytest.approx(primary * 14 / 72)
+    assert volts(found["secondary/half"]["high"]) == pytest.approx(primary * 7 / 72)
     assert set(found) == {"primary", "secondary", "secondary/half"}
     assert set(found["secondary"]) == {"low", "nominal", "high"}
 
 
-def test_declared_excitation_follows_the_mains_when_its_supply_is_not_given():
-    # a declared 1.2 V across the 4-turn base winding, no excitation.supply: taken as following the 230 V +-10 % mains
-    # (harsher reading), 1.08 / 1.2 / 1.32 V; 0.33 V per turn at high line across the 1-turn feedback winding
-    record = load_demo("sw-charger-12v", "C")
+def test_declared_excitation_is_the_same_at_every_line():
+    # a declared 1.5 V across the 5-turn base winding: 0.3 V per turn, so 0.45 V across the 1.5-turn feedback winding
+    record = load_test_record("selfosc-psu")
     found = winding_voltages(record, magnetic(record, "T2"))
-    assert [volts(found["upper base"][line]) for line in ("low", "nominal", "high")] == pytest.approx([1.08, 1.2, 1.32])
-    assert volts(found["current feedback"]["high"]) == pytest.approx(0.33)
+    assert [volts(v) for v in found["upper base"].values()] == pytest.approx([1.5, 1.5, 1.5])
+    assert volts(found["current feedback"]["high"]) == pytest.approx(0.45)
+    # the demo's gate-drive transformer: 12 V declared across its primary, 1 : 1 to each gate winding
+    record = load_demo("solar-bank-charger", "C")
+    found = winding_voltages(record, magnetic(record, "T2"))
+    assert [volts(v) for v in found["upper gate"].values()] == pytest.approx([12, 12, 12])
 
 
 def test_mains_transformer_sees_the_mains_sine():
@@ -59,12 +70,12 @@ def test_mains_transformer_sees_the_mains_sine():
 
 
 def test_a_choke_with_no_circuit_has_no_winding_voltages():
-    record = load_demo("sw-charger-12v", "A")
+    record = load_demo("solar-bank-charger", "A")
     choke = magnetic(record, "L1").model_copy(update={"excitation": None})
     assert winding_voltages(record, choke) == {}
 
 
 def test_bus_is_the_rectified_peak():
     # 230 V x sqrt 2 = 325.27 V (peak of a sine)
-    record = load_demo("sw-charger-12v", "A")
+    record = load_demo("solar-bank-charger", "A")
     assert volts(line_peaks(record.mains)["nominal"]) == pytest.approx(325.27, abs=0.01)

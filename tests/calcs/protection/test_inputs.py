@@ -133,10 +133,10 @@ def test_fuse_voltage_below_the_mains_fails():
 
 
 def test_ntc_energy_over_its_rating_fails():
-    # NTC makers' selection guides: E = 1/2 C V_peak^2 = 0.5 x 470 uF x (253 V x sqrt 2)^2 = 30.1 J > 20 J.
-    energy = codes(record_with(protection__bulk_capacitance="470 uF"))["PROT-NTC-ENERGY"]
+    # NTC makers' selection guides: E = 1/2 C V_peak^2 = 0.5 x 390 uF x (253 V x sqrt 2)^2 = 25.0 J > 20 J.
+    energy = codes(record_with(protection__bulk_capacitance="390 uF"))["PROT-NTC-ENERGY"]
     assert energy.verdict is Verdict.FAIL
-    assert energy.value.quantity.to("J").magnitude == pytest.approx(0.5 * 470e-6 * (253 * math.sqrt(2)) ** 2)
+    assert energy.value.quantity.to("J").magnitude == pytest.approx(0.5 * 390e-6 * (253 * math.sqrt(2)) ** 2)
 
 
 def test_ntc_maximum_capacitance_is_used_when_no_energy_is_given():
@@ -159,7 +159,7 @@ def test_earth_terminal_without_earth_section_fails():
 
 
 def test_output_fuse_larger_than_its_lead_fails():
-    battery = {"chemistry": "agm", "capacity": "40 Ah", "absorption_voltage": "14.4 V"}
+    battery = {"chemistry": "agm", "capacity": "60 Ah", "absorption_voltage": "14.4 V"}
     record = record_with(output__battery=battery, protection__reverse_polarity="series diode",
                          protection__output_fuse={"ref": "F2", "rating": "20 A", "lead_wire": "AWG 18", "distance_to_battery": "100 mm"})
     found = codes(record)

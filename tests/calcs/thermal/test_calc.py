@@ -59,9 +59,9 @@ def test_devices_on_one_heatsink_share_its_rise():
 
 def test_switching_loss_linear_crossover_estimate():
     # P_sw = 1/2 V I (t_on + t_off) f for linear voltage and current transitions (Mohan et al., chapter 2,
-    # switching power loss; from memory): 0.5 x 340 V x 1 A x 0.25 us x 40 kHz = 1.7 W.
-    estimate = Switching(frequency="40 kHz", voltage="340 V", current="1 A", crossover_time="0.25 us")
-    assert float(switching_loss(estimate).to("W").magnitude) == pytest.approx(1.7)
+    # switching power loss; from memory): 0.5 x 300 V x 1.5 A x 0.1 us x 50 kHz = 1.125 W.
+    estimate = Switching(frequency="50 kHz", voltage="300 V", current="1.5 A", crossover_time="0.1 us")
+    assert float(switching_loss(estimate).to("W").magnitude) == pytest.approx(1.125)
 
 
 def test_switching_loss_from_energy_per_cycle():
@@ -70,17 +70,17 @@ def test_switching_loss_from_energy_per_cycle():
 
 
 def test_conduction_and_switching_add_up():
-    # 1.0 V x 0.7 A = 0.7 W conduction; 1/2 x 340 V x 1 A x 0.25 us x 40 kHz = 1.7 W switching (Mohan et al., from memory)
-    switching = {"frequency": "40 kHz", "voltage": "340 V", "current": "1 A", "crossover_time": "0.25 us"}
-    record = unit([device(kind="bjt", forward_voltage="1.0 V", current="0.7 A", heatsink="HS1", pad="1.5 K/W", switching=switching)], [sink()])
+    # 1.2 V x 0.6 A = 0.72 W conduction; 1/2 x 300 V x 1.5 A x 0.1 us x 50 kHz = 1.125 W switching (Mohan et al., from memory)
+    switching = {"frequency": "50 kHz", "voltage": "300 V", "current": "1.5 A", "crossover_time": "0.1 us"}
+    record = unit([device(forward_voltage="1.2 V", current="0.6 A", heatsink="HS1", pad="1.5 K/W", switching=switching)], [sink()])
     finding = by(thermal.run(record), "THERM-JUNCTION", "Q1")
     losses = {m.label: float(m.quantity.to("W").magnitude) for m in finding.extra if m.label.endswith("loss")}
-    assert losses == pytest.approx({"conduction loss": 0.7, "switching loss": 1.7, "loss": 2.4})
+    assert losses == pytest.approx({"conduction loss": 0.72, "switching loss": 1.125, "loss": 1.845})
 
 
 def test_switching_data_must_be_complete():
     with pytest.raises(ValueError, match="crossover_time"):
-        Switching(frequency="40 kHz", voltage="340 V", current="1 A")
+        Switching(frequency="50 kHz", voltage="300 V", current="1.5 A")
 
 
 @pytest.mark.parametrize("loss, verdict", [("10 W", Verdict.PASS), ("25 W", Verdict.MARGINAL), ("30 W", Verdict.FAIL)])

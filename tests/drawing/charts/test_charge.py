@@ -32,13 +32,13 @@ def texts(root) -> list[str]:
 
 @pytest.fixture(scope="module")
 def demo_svg() -> str:
-    return chart(load_demo("sw-charger-12v", "C"))
+    return charge_chart_svg(load_demo("solar-bank-charger", "C"))
 
 
 def test_chart_is_well_formed_svg_with_a_title(demo_svg):
     root = parsed(demo_svg)
     assert root.tag == f"{SVG}svg"
-    assert "AGM 40 Ah" in root.find(f"{SVG}title").text
+    assert "AGM 65 Ah" in root.find(f"{SVG}title").text
 
 
 def test_axis_titles_carry_units(demo_svg):
@@ -52,24 +52,24 @@ def test_legend_names_both_curves_and_the_marker(demo_svg):
 
 
 def test_time_to_full_marker_stands_at_the_estimate(demo_svg):
-    curve = charge_curve(load_demo("sw-charger-12v", "C"))
+    curve = charge_curve(load_demo("solar-bank-charger", "C"))
     x = number(axes_for(curve).x(curve.estimate.full_hours))
     root = parsed(demo_svg)
     verticals = [line for line in root.iter(f"{SVG}line") if line.get("x1") == x == line.get("x2")]
     assert verticals, "no vertical marker line at the time to full"
-    assert "full in about 8.7 h" in texts(root)
+    assert "full in about 11.3 h" in texts(root)
 
 
 def test_ids_are_unique_and_belong_to_the_chart(demo_svg):
     ids = re.findall(r'\bid="([^"]+)"', demo_svg)
     assert ids and len(ids) == len(set(ids))
-    assert all(i.startswith("charge-sw-charger-12v-rev-C-") for i in ids)
-    other = re.findall(r'\bid="([^"]+)"', chart(load_demo("sw-charger-12v", "B")))
+    assert all(i.startswith("charge-solar-bank-charger-rev-C-") for i in ids)
+    other = re.findall(r'\bid="([^"]+)"', charge_chart_svg(load_demo("solar-bank-charger", "B")))
     assert not set(ids) & set(other)
 
 
 def test_output_is_deterministic(demo_svg):
-    assert chart(load_demo("sw-charger-12v", "C")) == demo_svg
+    assert charge_chart_svg(load_demo("solar-bank-charger", "C")) == demo_svg
 
 
 def test_curves_stay_inside_the_plot_area(demo_svg):
@@ -80,16 +80,15 @@ def test_curves_stay_inside_the_plot_area(demo_svg):
 
 
 def test_tick_labels_cover_the_data():
-    curve = charge_curve(load_demo("sw-charger-12v", "C"))
+    curve = charge_curve(load_demo("solar-bank-charger", "C"))
     axes = axes_for(curve)
-    assert axes.volts.low <= min(p.volts for p in curve.points) and axes.volts.high >= 14.4
-    assert axes.amps.low == 0 and axes.amps.high >= 6
+    assert axes.volts.low <= min(p.volts for p in curve.points) and axes.volts.high >= 29.36
+    assert axes.amps.low == 0 and axes.amps.high >= 7
     assert axes.time.high >= curve.estimate.full_hours
 
 
 def test_figures_for_a_charger_and_for_other_builds():
-    record = load_demo("sw-charger-12v", "C")
-    [figure] = figures(record, charge_curve(record))
+    [figure] = figures(load_demo("solar-bank-charger", "C"))
     assert (figure.key, figure.section) == ("charge-curve", "charge")
     assert figure.svg.startswith("<?xml")
     assert figures(load_demo("bench-psu-13v8"), None) == []
@@ -100,7 +99,7 @@ def test_figures_for_a_charger_and_for_other_builds():
     {"float_voltage": DROP},
     {"start_state_of_charge": "90 %"},
     {"charge_current": "1 A"},
-    {"chemistry": "gel", "absorption_voltage": "14.1 V", "capacity": "7 Ah", "charge_current": "1.4 A"},
+    {"chemistry": "gel", "absorption_voltage": "28.2 V", "capacity": "7 Ah", "charge_current": "1.4 A"},
 ], ids=["no-float", "nearly-full", "trickle", "small-gel"])
 def test_unusual_chargers_still_draw(changes):
     root = parsed(chart(charger(**changes)))
@@ -138,7 +137,7 @@ def test_writer_escapes_text_and_rounds_numbers():
 
 def test_a_long_heading_shrinks_to_fit_the_chart():
     long = charger(chemistry="flooded", capacity="110 Ah", charge_current="16.5 A", output={"current": "20 A"},
-                   absorption_voltage="14.55 V", float_voltage="13.45 V", temperature="12.5 degC")
-    heading = next(parsed(chart(long)).iter(f"{SVG}text"))
-    demo_heading = next(parsed(chart(load_demo("sw-charger-12v", "C"))).iter(f"{SVG}text"))
+                   absorption_voltage="29.1 V", float_voltage="26.9 V", temperature="12.5 degC")
+    heading = next(parsed(charge_chart_svg(long)).iter(f"{SVG}text"))
+    demo_heading = next(parsed(charge_chart_svg(load_demo("solar-bank-charger", "C"))).iter(f"{SVG}text"))
     assert float(heading.get("font-size")) < float(demo_heading.get("font-size")) <= 15
