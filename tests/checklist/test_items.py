@@ -7,7 +7,7 @@ from tests.fixtures.checklists import DEMO_REVISIONS, checklist_of, demo
 
 from tests.fixtures.demo import RECORDS
 
-from dossier.archive import RevisionFile, load_revision
+from dossier.reading.archive import RevisionFile, load_revision
 from dossier.calcs.protection import recommended_fuse
 from dossier.checklist.items import Expected, Origin, Phase
 from dossier.checklist.output_items import e12_at_most, resistor_rating
