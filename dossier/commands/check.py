@@ -2,7 +2,11 @@
 
 from __future__ import annotations
 
+from functools import lru_cache, partial
 from pathlib import Path
+
+from dossier.collect.archive import configured_calcs
+from dossier.reading.settings import load_settings
 
 from dossier.problems import InputError
 from dossier.reading.archive import RevisionFile, expand, load_revision
@@ -17,12 +21,19 @@ def run_check(paths: list[Path]) -> CheckResult:
         revisions = expand(paths)
     except InputError as error:
         return CheckResult([RecordCheck(str(paths[0]), problems=error.problems)])
-    return CheckResult([_check_one(rev, calcs) for rev in revisions])
+    calcs_in = lru_cache(maxsize=None)(partial(_archive_calcs, calcs))
+    return CheckResult([_check_one(rev, calcs_in) for rev in revisions])
 
 
-def _check_one(rev: RevisionFile, calcs) -> RecordCheck:
+def _archive_calcs(calcs, archive: Path):
+    """The calcs as the site build runs them for this archive: its archive.yaml settings applied."""
+    return configured_calcs(calcs, load_settings(archive))
+
+
+def _check_one(rev: RevisionFile, calcs_in) -> RecordCheck:
     try:
         loaded = load_revision(rev)
+        calcs = calcs_in(rev.path.resolve().parent.parent)
     except InputError as error:
         return RecordCheck(str(rev.path), problems=error.problems)
     reviewed = run_review(loaded.record, calcs)

@@ -229,3 +229,20 @@ def test_an_archive_that_allows_interpolation_gets_it_in_its_site(tmp_path):
     record = record_with(REINFORCED_120, MAINS_120)
     # IEC 60664-1:2020 Table F.2 case A, 2400 V interpolated between 2.0 kV (1.0 mm) and 2.5 kV (1.5 mm)
     assert mm(by_code(calc.run(record))["ISO-CLEARANCE"].limit.quantity) == pytest.approx(1.4)
+
+
+def test_check_applies_the_archive_settings_as_the_site_build_does(tmp_path):
+    from dossier.commands.check import run_check
+
+    barrier = dict(REINFORCED_120, name="primary to output", between=["mains", "output"])
+    path = write_record(tmp_path, "unit", barriers=[barrier], mains=dict(MAINS_120, frequency="60 Hz"))
+
+    def clearance_limit():
+        (record,) = run_check([path]).records
+        (finding,) = [f for f in record.findings if f.code == "ISO-CLEARANCE"]
+        return mm(finding.limit.quantity)
+
+    # IEC 60664-1:2020 Table F.2 case A: 1.5 mm on the next row up, 1.4 mm interpolated (2400 V between 2.0 and 2.5 kV)
+    assert clearance_limit() == pytest.approx(1.5)
+    (tmp_path / "archive.yaml").write_text("table_interpolation:\n  allowed: true\n  clause: IEC 60664-1:2020, Table F.2 note\n", encoding="utf-8")
+    assert clearance_limit() == pytest.approx(1.4)
