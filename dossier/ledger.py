@@ -242,6 +242,12 @@ def _event_problem(ledger: Ledger, index: int, link: Link, seen: set) -> list[Pr
     return [Problem("ledger_event_invalid", ledger.where(("chain", index)), key=f"chain[{index}]", expected="one publication per revision, then amendments of its text only", found=f"{link.build} rev {link.revision}: {fault}")]
 
 
+def published_revision_problems(archive: Path, ledger: Ledger, build_id: str, letter: str) -> list[Problem]:
+    """For one revision: its record or attached files changed since it was published ([] when unpublished)."""
+    publication = ledger.entry(build_id, letter)
+    return _revision_problems(archive, build_id, letter, publication) if publication is not None else []
+
+
 def _revision_problems(archive: Path, build_id: str, letter: str, publication: Publication) -> list[Problem]:
     rev = _revision_file(archive, build_id, letter)
     if rev is None:

@@ -319,3 +319,13 @@ def test_the_site_shows_the_ledger_head(archive, tmp_path):
     assert result.exit_code in (0, 1), result.output
     assert head in (tmp_path / "site" / "index.html").read_text(encoding="utf-8")
     assert head in (tmp_path / "site" / "builds" / "amp" / "checklist.html").read_text(encoding="utf-8")
+
+
+def test_check_says_when_a_published_revision_was_edited(archive):
+    published(archive)
+    path = archive / "psu" / "rev-A.yaml"
+    assert "has changed since" not in CliRunner().invoke(main, ["check", str(path)]).output
+    path.write_text(path.read_text(encoding="utf-8").replace("club's winder", "club's coil winder"), encoding="utf-8")
+    result = CliRunner().invoke(main, ["check", str(path)])
+    assert result.exit_code == 2
+    assert any(line.startswith(str(path)) and "has changed since" in line for line in result.output.splitlines()), result.output

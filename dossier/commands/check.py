@@ -6,6 +6,7 @@ from functools import lru_cache, partial
 from pathlib import Path
 
 from dossier.collect.archive import configured_calcs
+from dossier.ledger import load_ledger, published_revision_problems
 from dossier.reading.settings import load_settings
 
 from dossier.problems import InputError
@@ -26,19 +27,21 @@ def run_check(paths: list[Path]) -> CheckResult:
 
 
 def _archive_calcs(calcs, archive: Path):
-    """The calcs as the site build runs them for this archive: its archive.yaml settings applied."""
-    return configured_calcs(calcs, load_settings(archive))
+    """The calcs as the site build runs them for this archive, its archive.yaml settings applied, and its ledger."""
+    return configured_calcs(calcs, load_settings(archive)), load_ledger(archive)
 
 
 def _check_one(rev: RevisionFile, calcs_in) -> RecordCheck:
     try:
         loaded = load_revision(rev)
-        calcs = calcs_in(rev.path.resolve().parent.parent)
+        archive = rev.path.resolve().parent.parent
+        calcs, ledger = calcs_in(archive)
     except InputError as error:
         return RecordCheck(str(rev.path), problems=error.problems)
     reviewed = run_review(loaded.record, calcs)
     title = f"{rev.path}  ({loaded.record.id} rev {loaded.record.revision}: {loaded.record.title})"
     checked = RecordCheck(str(rev.path), title, list(reviewed.findings), loaded.locate)
+    checked.problems.extend(published_revision_problems(archive, ledger, rev.build_id, rev.letter))
     _check_signoffs(loaded, checked)
     _check_commissioning(loaded, reviewed, checked)
     return checked
