@@ -23,7 +23,9 @@ from typing import Literal
 
 from pydantic import BaseModel, ConfigDict, Field, PrivateAttr, model_validator
 
-from dossier.reading.archive import RevisionFile, build_dirs, file_problems, load_revision, revision_files, revision_order
+from dossier.reading.archive import (
+    RevisionFile, build_dirs, file_problems, load_revision, revision_files, revision_order, signoff_paths,
+)
 from dossier.files import write_whole
 from dossier.problems import InputError, Location, Problem
 from dossier.reading.model_file import load_model_file
@@ -385,6 +387,7 @@ def _load_problems(rev: RevisionFile) -> list[Problem]:
 def _state(rev: RevisionFile) -> RevisionState:
     record = load_revision(rev).record
     files = {a.path: file_digest(rev.path.parent / a.path) for a in record.attachments}
+    files.update({path.name: file_digest(path) for path in signoff_paths(rev.path.parent, rev.letter)})  # frozen with it
     return RevisionState(record_digest(rev.path), values_digest(record), dict(sorted(files.items())))
 
 

@@ -12,6 +12,12 @@ from dossier.reading.record import LoadedRecord, load_record
 
 REVISION_FILE = re.compile(r"^rev-(?P<letter>[A-Z]{1,2})\.ya?ml$")
 COMMISSIONING_FILE = re.compile(r"^commissioning-(?P<letter>[A-Z]{1,2})\.ya?ml$")
+SIGNOFF_FILE = re.compile(r"^signoff-(?P<letter>[A-Z]{1,2})(?:-(?P<tag>[a-z0-9][a-z0-9-]{0,40}))?\.ya?ml$")
+
+
+def signoff_paths(build_dir: Path, revision: str) -> list[Path]:
+    """The sign-off files of one revision in its build folder, in name order."""
+    return [path for path in sorted(build_dir.iterdir()) if (match := SIGNOFF_FILE.match(path.name)) and match["letter"] == revision]
 
 
 def revision_order(letter: str) -> tuple[int, str]:

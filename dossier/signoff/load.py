@@ -2,17 +2,16 @@
 
 from __future__ import annotations
 
-import re
 from dataclasses import dataclass
 from pathlib import Path
 
 from dossier.problems import InputError, Location, Problem
+from dossier.reading.archive import signoff_paths
 from dossier.reading.model_file import load_model_file
 from dossier.reading.yaml_source import SourceMap
 from dossier.signoff.model import SignoffFile
 
 SIGNOFF_EXAMPLE = "build: ..., revision: ..., reviewer: ..."
-SIGNOFF_FILE = re.compile(r"^signoff-(?P<letter>[A-Z]{1,2})(?:-(?P<tag>[a-z0-9][a-z0-9-]{0,40}))?\.ya?ml$")
 
 
 @dataclass(frozen=True)
@@ -23,16 +22,6 @@ class LoadedSignoff:
 
     def locate(self, key_path) -> Location:
         return self.sources.locate(tuple(key_path))
-
-
-def signoff_paths(build_dir: Path, revision: str) -> list[Path]:
-    """The sign-off files of one revision in its build folder, in name order."""
-    found = []
-    for path in sorted(build_dir.iterdir()):
-        match = SIGNOFF_FILE.match(path.name)
-        if match and match["letter"] == revision:
-            found.append(path)
-    return found
 
 
 def load_signoffs(build_dir: Path, build_id: str, revision: str) -> list[LoadedSignoff]:

@@ -7,7 +7,7 @@ from pathlib import Path
 
 from dossier.markup import yaml_string
 from dossier.signoff.binding import content_digest
-from dossier.signoff.load import signoff_paths
+from dossier.reading.archive import signoff_paths
 from dossier.signoff.state import NEEDS_DECISION
 
 HEADER = """\

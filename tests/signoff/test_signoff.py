@@ -205,3 +205,17 @@ def test_the_checklist_opens_with_not_cleared_or_names_the_sign_off_that_cleared
     page, sheet = sheets()
     assert "Not cleared" not in page and "Signed off" in page
     assert "cleared for first power-up, by Second Member" in page and "cleared for first power-up, by Second Member" in sheet
+
+
+def test_a_published_revision_keeps_its_sign_offs_frozen_with_it(record, monkeypatch):
+    from dossier.calcs.isolation import CALC
+    from dossier.ledger import frozen_problems, load_ledger
+
+    path, data = started(record)
+    monkeypatch.setattr("dossier.plugins.load_calcs", lambda: [CALC])
+    assert run("publish", record.parent.parent, "--even-if-blocked").exit_code == 0
+    archive = record.parent.parent
+    assert frozen_problems(archive, load_ledger(archive)) == []
+    path.write_text(path.read_text(encoding="utf-8").replace("Second Member", "Someone Else"), encoding="utf-8")
+    problems = [problem_line(p) for p in frozen_problems(archive, load_ledger(archive))]
+    assert any("signoff-A.yaml" in line for line in problems), problems
