@@ -376,3 +376,26 @@ PROBLEM_TEXT.update({
     "published_values_changed": "a published revision's values have changed",
     "ledger_history_rewritten": "the ledger no longer holds a head shown before",
 })
+
+
+# Where the docs explain each kind of problem: printed once per kind after a list of problems.
+HELP_SECTIONS = {
+    "units and values": ("docs/writing-records.md#units-and-values", (
+        "missing_unit", "wrong_dimension", "unknown_unit", "not_a_quantity", "below_absolute_zero", "value_out_of_range",
+        "temperature_not_rise", "temperature_difference")),
+    "keys": ("docs/writing-records.md#keys", ("missing", "extra_forbidden", "duplicate_key", "literal_error", "string_pattern_mismatch")),
+    "YAML": ("docs/writing-records.md#yaml-itself", (
+        "yaml_syntax", "yaml_value", "yaml_tag", "merge_key", "bad_key", "not_a_mapping", "not_utf8", "control_character",
+        "too_many_nodes", "too_deep", "file_too_large")),
+    "where a record sits": ("docs/writing-records.md#where-a-record-sits", ("id_mismatch", "revision_mismatch", "revision_spelt_twice", "build_mismatch")),
+    "text": ("docs/writing-records.md#text", ("blank_text", "hidden_character")),
+    "attachments": ("docs/writing-records.md#attachments", ("attachment_missing", "unsafe_path", "attachment_type", "attachment_name")),
+    "published revisions": ("docs/writing-records.md#published-revisions", (
+        "published_changed", "published_missing", "published_file_changed", "published_values_changed")),
+}
+
+
+def help_lines(problems) -> list[str]:
+    """'help with units and values: docs/writing-records.md#units-and-values', once per kind met, in a stable order."""
+    codes = {problem.code for problem in problems}
+    return [f"help with {kind}: {where}" for kind, (where, kinds) in HELP_SECTIONS.items() if codes & set(kinds)]

@@ -19,7 +19,7 @@ from dossier.problems import InputError
 from dossier.render.mkdocs_run import RenderError
 from dossier.report.result import CheckResult
 from dossier.standards.chemistries import ChemistryError
-from dossier.wording import problem_line
+from dossier.wording import help_lines, problem_line
 
 
 class Exit(IntEnum):
@@ -49,7 +49,7 @@ def message_of(error: BaseException, command: str) -> str:
     """What the user reads about an error that ends a command: located problem lines, or one line
     starting with the command ('dossier check: calc plugin ...')."""
     if isinstance(error, InputError):
-        return "\n".join(problem_line(problem) for problem in error.problems)
+        return "\n".join([problem_line(problem) for problem in error.problems] + help_lines(error.problems))
     if isinstance(error, RenderError):
         return f"{error.output}\n{command}: {error}".strip()
     if isinstance(error, OSError):

@@ -5,7 +5,7 @@ from __future__ import annotations
 from dossier.caution import MAINS_CAUTION
 from dossier.findings import Finding, Verdict, counts
 from dossier.report.result import CheckResult, RecordCheck
-from dossier.wording import comparison_text, margin_text, problem_line, signoff_line, sources_text, verdict_word
+from dossier.wording import comparison_text, help_lines, margin_text, problem_line, signoff_line, sources_text, verdict_word
 
 # The verdict's own word, as the summary line and the JSON say it; capitals so a line's verdict stands out.
 MARKS = {verdict: verdict.value.upper().ljust(max(len(v.value) for v in Verdict)) for verdict in Verdict}
@@ -15,7 +15,8 @@ def check_text(result: CheckResult, verbose: bool) -> str:
     lines: list[str] = []
     for record in result.records:
         lines.extend(record_lines(record, verbose))
-    return "\n".join(lines + ["", f"Caution: {MAINS_CAUTION}"])
+    helps = help_lines([problem for record in result.records for problem in record.problems])
+    return "\n".join(lines + ([""] + helps if helps else []) + ["", f"Caution: {MAINS_CAUTION}"])
 
 
 def record_lines(record: RecordCheck, verbose: bool) -> list[str]:
