@@ -48,6 +48,17 @@ def test_schematics_are_visible(demo_site, watched_page):
         assert figure.evaluate("img => img.complete && img.naturalWidth > 0")
 
 
+@pytest.mark.parametrize("width", [1280, 390])
+def test_schematic_labels_are_shown_at_their_drawn_size_at_desktop_and_phone_widths(demo_site, watched_page, width):
+    # the drawings' text is 9.5 to 11 px in the SVG; shown scaled down to fit a column it fell to about 6 px
+    watch = watched_page(LOCAL_FILE)
+    watch.page.set_viewport_size({"width": width, "height": 900})
+    watch.page.goto((demo_site / "builds" / "solar-bank-charger" / "schematics.html").as_uri(), wait_until="load")
+    scales = watch.page.evaluate("""() => [...document.querySelectorAll('article img[src$=".svg"]')]
+        .map(img => img.getBoundingClientRect().width / img.naturalWidth)""")
+    assert scales and min(scales) > 0.99
+
+
 @pytest.mark.parametrize("query, expected", [("RT1", "solar-bank-charger"), ("rotator", "rotator-control"), ("mill", "solar-bank-charger")])
 def test_search_finds_a_build_by_designator_title_or_part(served_site, watched_page, query, expected):
     watch = watched_page((served_site, "data:", "blob:"))
