@@ -13,10 +13,9 @@ from dossier.drawing import sheet
 from dossier.drawing.drawers import StageDrawer, finish_stage, lacking
 from dossier.drawing.parts import Picker
 from dossier.drawing.symbols import Winding
+from dossier.drawing.stages.split_bus import BOTTOM, CAP_X, MID, TOP, bus_inputs, split_capacitors
 from dossier.drawing.views import PartView, StageView
 
-TOP, MID, BOTTOM = 8.0, 4.0, 0.0
-CAP_X = 2.6
 TOPOLOGY = "self-oscillating-half-bridge"
 NEEDS = {
     "an upper switch": P.UPPER_SWITCH,
@@ -37,8 +36,8 @@ class DriveWindings:
 def draw(view: StageView):
     drawing = sheet.new_drawing()
     picker = Picker(view.parts)
-    _inputs(drawing, view)
-    _capacitors(drawing, picker.take(P.either(P.SPLIT, P.BULK)), picker.take(P.either(P.SPLIT, P.BULK)))
+    bus_inputs(drawing, view)
+    split_capacitors(drawing, picker.take(P.either(P.SPLIT, P.BULK)), picker.take(P.either(P.SPLIT, P.BULK)), polar=True)
     drive = picker.take(P.DRIVE_TRANSFORMER)
     windings = drive_windings(view, drive)
     switch_x = _bridge_path(drawing, view, windings)
@@ -52,18 +51,6 @@ def draw(view: StageView):
         start_x = _start_up(drawing, base_x, labels_end, network)
         _rails(drawing, start_x, start_x, taps)
     return finish_stage(drawing, view, picker)
-
-
-def _inputs(drawing, view: StageView) -> None:
-    origin = f" from {view.came_from}" if view.came_from else ""
-    sheet.terminal(drawing, (-0.11, TOP), f"+DC{origin}", side="left")
-    sheet.terminal(drawing, (-0.11, BOTTOM), f"\u2212DC{origin}", side="left")
-
-
-def _capacitors(drawing, upper: PartView, lower: PartView) -> None:
-    for part, (top, bottom) in ((upper, (TOP, MID)), (lower, (MID, BOTTOM))):
-        sheet.add(drawing, elm.Capacitor(polar=True).at((CAP_X, top)).to((CAP_X, bottom)))
-        sheet.text(drawing, (CAP_X - 0.45, (top + bottom) / 2), part.label, halign="right")
 
 
 def drive_windings(view: StageView, drive: PartView) -> DriveWindings:

@@ -13,10 +13,9 @@ from dossier.drawing import sheet
 from dossier.drawing.drawers import StageDrawer, finish_stage, lacking
 from dossier.drawing.parts import Picker
 from dossier.drawing.symbols import Box, Winding
+from dossier.drawing.stages.split_bus import BOTTOM, CAP_X, MID, TOP, bus_inputs, split_capacitors
 from dossier.drawing.views import PartView, StageView
 
-TOP, MID, BOTTOM = 8.0, 4.0, 0.0
-CAP_X = 2.6
 TOPOLOGY = "half-bridge"
 CONTROLLER = P.either(P.kind("controller", "ic"), P.role("controller", "pwm"))
 NEEDS = {
@@ -38,8 +37,8 @@ class GateWindings:
 def draw(view: StageView):
     drawing = sheet.new_drawing()
     picker = Picker(view.parts)
-    _inputs(drawing, view)
-    _capacitors(drawing, picker.take(P.either(P.SPLIT, P.BULK)), picker.take(P.either(P.SPLIT, P.BULK)))
+    bus_inputs(drawing, view)
+    split_capacitors(drawing, picker.take(P.either(P.SPLIT, P.BULK)), picker.take(P.either(P.SPLIT, P.BULK)), polar=False)
     upper, lower = picker.take(P.UPPER_SWITCH), picker.take(P.LOWER_SWITCH)
     switch_x = _primary(drawing, view, room=max(sheet.text_width(upper.label), sheet.text_width(lower.label)) + 1.4)
     gates = _switches(drawing, switch_x, upper, lower)
@@ -48,18 +47,6 @@ def draw(view: StageView):
     _controller(drawing, primary_x, windings, picker.take(CONTROLLER))
     _rails(drawing, switch_x, winding_x)
     return finish_stage(drawing, view, picker)
-
-
-def _inputs(drawing, view: StageView) -> None:
-    origin = f" from {view.came_from}" if view.came_from else ""
-    sheet.terminal(drawing, (-0.11, TOP), f"+DC{origin}", side="left")
-    sheet.terminal(drawing, (-0.11, BOTTOM), f"\u2212DC{origin}", side="left")
-
-
-def _capacitors(drawing, upper: PartView, lower: PartView) -> None:
-    for part, (top, bottom) in ((upper, (TOP, MID)), (lower, (MID, BOTTOM))):
-        sheet.add(drawing, elm.Capacitor().at((CAP_X, top)).to((CAP_X, bottom)))
-        sheet.text(drawing, (CAP_X - 0.45, (top + bottom) / 2), part.label, halign="right")
 
 
 def _primary(drawing, view: StageView, room: float) -> float:
