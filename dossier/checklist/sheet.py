@@ -23,6 +23,7 @@ class Checklist:
     items: tuple[Item, ...]
     signoff: str = ""  # the sign-off state in words, e.g. 'cleared for first power-up, by ... on ...'
     cleared: bool = False  # a current sign-off cleared the revision for first power-up
+    ledger_head: str = ""  # the publication ledger's head when the sheet was made, to check the history against later
 
     @property
     def blocked(self) -> bool:
@@ -40,12 +41,13 @@ class Checklist:
         return [phase for phase in Phase if self.in_phase(phase)]
 
 
-def build_checklist(record, review: Review, signoff=None) -> Checklist:
+def build_checklist(record, review: Review, signoff=None, ledger_head: str = "") -> Checklist:
     """The checklist from the record, its review and its sign-off state (dossier.signoff.state.SignoffState);
     made once per revision and handed to every page and sheet."""
     return Checklist(
         signoff=signoff_line(signoff) if signoff is not None else "",
         cleared=signoff is not None and signoff.cleared_for_power_up,
+        ledger_head=ledger_head,
         build=record.id,
         revision=record.revision,
         title=record.title,

@@ -92,6 +92,7 @@ class SheetView:
     commissioning_file: str = ""
     signoff: str = ""
     cleared: bool = False
+    ledger_head: str = ""
 
 
 def sheet_view(checklist: Checklist, record_status: str, commissioning=None) -> SheetView:
@@ -109,6 +110,7 @@ def sheet_view(checklist: Checklist, record_status: str, commissioning=None) -> 
         commissioning_file=f"commissioning-{checklist.revision}.yaml",
         signoff=checklist.signoff or "not reviewed",
         cleared=checklist.cleared,
+        ledger_head=checklist.ledger_head,
     )
 
 

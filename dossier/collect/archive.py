@@ -143,7 +143,7 @@ def _collect_revision(archive: Archive, rev: RevisionFile, cache) -> Revision:
     loaded = load_revision(rev, shown_as=f"{rev.build_id}/{rev.path.name}")
     review = run_review(loaded.record, archive.calcs)
     signoff = revision_signoffs(loaded, review.findings)
-    checklist = build_checklist(loaded.record, review, signoff)
+    checklist = build_checklist(loaded.record, review, signoff, archive.ledger.head if archive.ledger.chain else "")
     caches = cache or Caches()
     extras = revision_extras(loaded, review, checklist, caches.drawings, CHECKLIST_SHEETS, caches.pdfs)
     return Revision(rev, loaded, review, checklist, extras, archive.ledger.entry(rev.build_id, rev.letter), signoff)

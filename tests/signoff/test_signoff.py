@@ -219,3 +219,21 @@ def test_a_published_revision_keeps_its_sign_offs_frozen_with_it(record, monkeyp
     path.write_text(path.read_text(encoding="utf-8").replace("Second Member", "Someone Else"), encoding="utf-8")
     problems = [problem_line(p) for p in frozen_problems(archive, load_ledger(archive))]
     assert any("signoff-A.yaml" in line for line in problems), problems
+
+
+def test_the_printed_sheet_carries_the_ledger_head_once_something_is_published(record, monkeypatch):
+    from dossier.calcs.isolation import CALC
+    from dossier.checklist.page import checklist_html
+    from dossier.collect.archive import collect
+    from dossier.ledger import load_ledger
+
+    archive = record.parent.parent
+
+    def sheet() -> str:
+        revision = collect(archive).builds[0].current
+        return checklist_html(revision.loaded, revision.checklist)
+
+    assert "ledger head" not in sheet()
+    monkeypatch.setattr("dossier.plugins.load_calcs", lambda: [CALC])
+    assert run("publish", archive, "--even-if-blocked").exit_code == 0
+    assert f"<code>{load_ledger(archive).head}</code>" in sheet()
