@@ -10,12 +10,13 @@ from dataclasses import dataclass
 
 from dossier.calcs.charge.curve import charge_current, charge_curve, compensated
 from dossier.calcs.charge.temperature import compensation_finding, range_finding
+from dossier.calcs.charge import words
 from dossier.calcs.charge.windows import judge_window, tolerance_band
 from dossier.findings import Finding, Measure, Verdict, judge
 from dossier.plugins import Calc, CalcResult
 from dossier.standards.battery import Chemistry, Window
 from dossier.standards.chemistries import chemistry
-from dossier.units import Q_, fmt
+from dossier.units import Q_
 
 __all__ = ["CALC", "CURVE", "charge_curve", "run"]
 
@@ -75,52 +76,50 @@ def run(record) -> CalcResult:
     return CalcResult([finding for finding in found if finding is not None], {CURVE: curve})
 
 
-def _temperature_note(charger) -> str:
-    if charger.battery.temperature is None:
-        return " No battery temperature is given; 25 °C is assumed."
-    return ""
-
-
-def _window_text(window: Window) -> str:
-    return f"{fmt(window.low)} to {fmt(window.high)}"
-
-
 def voltage_finding(charger, code: str, stage: str, declared, window: Window, key: str) -> Finding:
     value = charger.at_temperature(declared)
     band = tolerance_band(value, charger.output.tolerance)
     judged = judge_window(value, window, f"{charger.chemistry.label} {stage}", band=band)
-    where = f"at {fmt(charger.temperature)}"
+    where = words.setpoint_where(charger.temperature)
     return Finding(
         code=code, calc="charge", subject="battery",
-        title=f"{stage.capitalize()} setpoint for a {charger.battery.cells}-cell {charger.chemistry.label} battery {where}",
+        title=words.setpoint_title(stage, charger.battery.cells, charger.chemistry.label, where),
         verdict=judged.verdict,
-        values=(Measure(f"{stage} setpoint {where}", value),),
+        values=(Measure(words.setpoint_label(stage, where), value),),
         limit=judged.limit, relation=judged.relation, method=WINDOW_METHOD,
-        explanation=_voltage_text(judged.verdict, value, window, band, stage) + _temperature_note(charger),
+        explanation=_voltage_text(judged.verdict, value, window, band, stage)
+        + words.temperature_note(charger.battery.temperature is not None),
         keys=(BATTERY + (key,),),
         sources=window.sources,
         extra=(Measure("window low", window.low), Measure("window high", window.high),
-               Measure("per cell", value / charger.battery.cells)),
+               Measure("per cell", value / charger.battery.cells)) + _setpoint_measures(charger, window, band),
     )
 
 
+def _setpoint_measures(charger, window: Window, band) -> tuple[Measure, ...]:
+    """The numbers the setpoint's title and sentences print besides the value and the window."""
+    measures = (Measure("battery temperature", charger.temperature), Measure("cells", Q_(charger.battery.cells)),
+                Measure("window middle", (window.low + window.high) / 2))
+    if band is not None:
+        measures += (Measure("tolerance band low", band[0]), Measure("tolerance band high", band[1]))
+    return measures
+
+
 def _voltage_text(verdict: Verdict, value, window: Window, band, stage: str) -> str:
-    span = f"the {stage} window is {_window_text(window)}"
+    span = words.window_span(stage, window)
     if verdict is Verdict.FAIL and value < window.low:
-        return f"{fmt(value)} is below the window ({span}): the battery is left undercharged and sulphates over time."
+        return words.below_window(value, span)
     if verdict is Verdict.FAIL:
-        return (f"{fmt(value)} is above the window ({span}): the battery gasses and loses water "
-                "(a sealed one dries out for good) and runs hot.")
+        return words.above_window(value, span)
     if verdict is Verdict.MARGINAL:
-        return (f"{fmt(value)} is inside the window, but with the output tolerance it may sit anywhere from "
-                f"{fmt(band[0])} to {fmt(band[1])}, past an edge ({span}). {_band_advice(window, band)}")
-    return f"Inside the window ({span})."
+        return words.band_past_edge(value, band, span, _band_advice(window, band))
+    return words.inside_window(span)
 
 
 def _band_advice(window: Window, band) -> str:
     if band[1] - band[0] > window.high - window.low:
-        return "The tolerance band is wider than the window itself: tighten the tolerance (or trim the setting on the bench)."
-    return f"Set it nearer {fmt((window.low + window.high) / 2)} or tighten the tolerance."
+        return words.BAND_WIDER_THAN_WINDOW
+    return words.set_nearer((window.low + window.high) / 2)
 
 
 def setpoint_finding(charger) -> Finding:
@@ -143,22 +142,21 @@ def float_finding(charger) -> Finding:
 def _no_float_stage(charger, window: Window) -> Finding:
     return Finding(
         code="CHG-FLOAT", calc="charge", subject="battery",
-        title=f"No float stage declared for the {charger.chemistry.label} battery",
+        title=words.no_float_title(charger.chemistry.label),
         verdict=Verdict.INFO,
-        explanation=(f"A {charger.chemistry.label} battery left on at its absorption voltage overcharges. Without a float "
-                     f"stage ({_window_text(window)} here), the charger must end the charge once the current has "
-                     "tapered, or the battery must be taken off when full."),
+        explanation=words.no_float_stage(charger.chemistry.label, window),
         keys=(BATTERY,), sources=window.sources,
+        extra=(Measure("float window low", window.low), Measure("float window high", window.high)),
     )
 
 
 def _float_not_wanted(charger) -> Finding:
     return Finding(
         code="CHG-FLOAT", calc="charge", subject="battery",
-        title=f"Float stage declared for {charger.chemistry.label}",
+        title=words.float_not_wanted_title(charger.chemistry.label),
         verdict=Verdict.MARGINAL,
         values=(Measure("float setpoint", charger.battery.float_voltage),),
-        explanation=f"The {charger.chemistry.title} windows take no float stage; the charge should end when full.",
+        explanation=words.float_not_wanted(charger.chemistry.title),
         keys=(BATTERY + ("float_voltage",),), sources=charger.chemistry.absorption.sources,
     )
 
@@ -180,9 +178,10 @@ def current_finding(charger) -> Finding:
     window = current_window(charger)
     judged = judge_window(current, window, f"{charger.chemistry.label} charge-current")
     verdict = Verdict.MARGINAL if judged.verdict is Verdict.FAIL and current < window.low else judged.verdict
+    rates = charger.chemistry.charge_rate
     return Finding(
         code="CHG-CURRENT", calc="charge", subject="battery",
-        title=f"Charge current {fmt(current)} for a {fmt(capacity)} {charger.chemistry.label} battery ({rate:.2g} C)",
+        title=words.current_title(current, capacity, charger.chemistry.label, rate),
         verdict=verdict,
         values=(Measure("constant-current limit", current),),
         limit=judged.limit, relation=judged.relation,
@@ -190,19 +189,20 @@ def current_finding(charger) -> Finding:
         explanation=_current_text(verdict, current, window, charger),
         keys=(_current_key(charger),),
         sources=window.sources,
-        extra=(Measure("C-rate (per hour)", Q_(round(rate, 4), "1/h")),),
+        extra=(Measure("C-rate (per hour)", Q_(round(rate, 4), "1/h")), Measure("battery capacity", capacity),
+               Measure("usual range low", window.low), Measure("usual range high", window.high),
+               Measure("C-rate low", rates.low), Measure("C-rate high", rates.high)),
     )
 
 
 def _current_text(verdict: Verdict, current, window: Window, charger) -> str:
-    rates = f"{charger.chemistry.charge_rate.low.magnitude:g} C to {charger.chemistry.charge_rate.high.magnitude:g} C"
-    span = f"{_window_text(window)}, i.e. {rates}"
+    rates = charger.chemistry.charge_rate
+    span = words.current_span(window, rates.low.magnitude, rates.high.magnitude)
     if verdict is Verdict.FAIL:
-        return f"{fmt(current)} is more than the battery should take ({span}): it heats and gasses, and its life shortens."
+        return words.current_too_high(current, span)
     if verdict is Verdict.MARGINAL:
-        return (f"{fmt(current)} is below the usual range ({span}): charging is slow, and a flooded battery's "
-                "electrolyte may stratify without the stirring a stronger charge gives.")
-    return f"Inside the usual range ({span})."
+        return words.current_too_low(current, span)
+    return words.current_inside(span)
 
 
 def rating_finding(charger) -> Finding | None:
@@ -213,12 +213,12 @@ def rating_finding(charger) -> Finding | None:
     verdict = judge(limit_set, rating, "<=")
     return Finding(
         code="CHG-RATING", calc="charge", subject="battery",
-        title=f"Charge-current limit {fmt(limit_set)} against the charger's rating",
+        title=words.rating_title(limit_set),
         verdict=verdict,
         values=(Measure("constant-current limit", limit_set),),
         limit=Measure("charger's current rating", rating.to(limit_set.units)), relation="<=",
         method="the limit set for the battery must not exceed the output's rated current",
-        explanation="" if verdict is Verdict.PASS else "The charger cannot deliver the limit set for the battery; lower it or uprate the charger.",
+        explanation="" if verdict is Verdict.PASS else words.RATING_EXCEEDED,
         keys=(BATTERY + ("charge_current",), ("output", "current")),
     )
 
@@ -228,7 +228,7 @@ def time_finding(record, curve) -> Finding:
     chem = chemistry(record.output.battery.chemistry)
     return Finding(
         code="CHG-TIME", calc="charge", subject="battery",
-        title=f"Estimated time to full from {plan.start_soc * 100:g} % charge",
+        title=words.time_title(plan.start_soc * 100),
         verdict=Verdict.INFO,
         values=(Measure("estimated time to full", Q_(round(result.full_hours, 2), "h")),),
         method=("CC to the CV-onset charge, then I = I_cc exp(-t / tau) to the termination current; "
@@ -241,12 +241,8 @@ def time_finding(record, curve) -> Finding:
 
 
 def _time_text(plan, result) -> str:
-    hours = lambda value: fmt(Q_(round(value, 2), "h"))  # noqa: E731 - a local formatter
-    taper = (f"then {hours(result.cv_hours)} at {plan.setpoint_v:.3g} V while the current tapers to "
-             f"{plan.termination_a:.3g} A" if plan.tapers else "the limit is below the termination current, so there is no taper")
-    return (f"About {hours(result.cc_hours)} at a constant {plan.current_a:.3g} A to {plan.cv_onset * 100:g} % charge, {taper}; "
-            f"charge efficiency taken as {plan.efficiency * 100:g} %. An estimate from a simple model, not a measurement: "
-            "an old, cold or sulphated battery takes longer.")
+    taper = words.taper_text(result.cv_hours, plan.setpoint_v, plan.termination_a) if plan.tapers else words.NO_TAPER
+    return words.time_text(result.cc_hours, plan.current_a, plan.cv_onset * 100, taper, plan.efficiency * 100)
 
 
 def _time_measures(plan, result) -> tuple[Measure, ...]:
@@ -256,6 +252,10 @@ def _time_measures(plan, result) -> tuple[Measure, ...]:
         Measure("taper time constant", Q_(round(result.tau_hours, 2), "h")),
         Measure("termination current", Q_(round(plan.termination_a, 3), "A")),
         Measure("charge efficiency", Q_(plan.efficiency * 100, "percent")),
+        Measure("starting charge", Q_(plan.start_soc * 100, "percent")),
+        Measure("constant current", Q_(plan.current_a, "A")),
+        Measure("charge at the start of constant voltage", Q_(plan.cv_onset * 100, "percent")),
+        Measure("constant-voltage setpoint", Q_(plan.setpoint_v, "V")),
     )
 
 

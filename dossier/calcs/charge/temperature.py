@@ -118,7 +118,7 @@ def _with_compensation(charger) -> Finding:
     verdict = min(verdict, room_verdict, key=lambda v: v.rank)
     return _finding(
         charger,
-        title=f"Temperature compensation of {fmt(battery.compensation)} against {chem.label}",
+        title=words.compensation_title(battery.compensation, chem.label),
         verdict=verdict,
         values=(Measure("declared coefficient per cell", per_cell),),
         limit=limit,
@@ -126,7 +126,7 @@ def _with_compensation(charger) -> Finding:
         explanation=" ".join(part for part in (_coefficient_text(per_cell, verdict), room_text) if part),
         keys=(("output", "battery", "compensation"),),
         sources=chem.compensation.sources + _range_sources(chem),
-        extra=_compensated_measures(charger),
+        extra=_compensated_measures(charger) + _band_measures(charger) + _room_measure(charger),
     )
 
 
@@ -142,6 +142,27 @@ def _compensated_measures(charger) -> tuple:
                  for t in span)
 
 
+def _band_measures(charger) -> tuple:
+    """The numbers the band's sentences print: the expected battery temperatures and the band's finite edges."""
+    span = expected_span(charger.battery)
+    found = charger_band(charger)
+    measures = (Measure("coldest expected battery temperature", Q_(span[0], "degC")),
+                Measure("warmest expected battery temperature", Q_(span[1], "degC")))
+    if found.empty:
+        return measures
+    edges = (("coldest battery temperature inside every window", found.coldest),
+             ("warmest battery temperature inside every window", found.warmest))
+    return measures + tuple(Measure(label, Q_(value, "degC")) for label, value in edges if not math.isinf(value))
+
+
+def _room_measure(charger) -> tuple:
+    found = charger_band(charger)
+    room = found.room(expected_span(charger.battery))
+    if found.empty or math.isinf(room):
+        return ()
+    return (Measure("room in the windows beyond the expected battery temperatures", _kelvin(room)),)
+
+
 def _coefficient_text(per_cell, verdict) -> str:
     if per_cell.magnitude >= 0:
         return words.rising_coefficient(per_cell)
@@ -154,7 +175,7 @@ def _without_compensation(charger) -> Finding:
     room = charger_band(charger).room(expected_span(battery))
     return _finding(
         charger,
-        title=f"No temperature compensation declared for the {chem.label} battery",
+        title=words.no_compensation_title(chem.label),
         verdict=Verdict.INFO if verdict is Verdict.PASS else verdict,
         values=(Measure("room in the windows beyond the expected battery temperatures", _kelvin(room)),),
         limit=Measure("allowance for battery-temperature drift", Q_(DRIFT_ALLOWANCE_K, "K")),
@@ -162,6 +183,7 @@ def _without_compensation(charger) -> Finding:
         explanation=words.without_compensation(text, chem.typical_compensation * battery.cells),
         keys=(("output", "battery"),),
         sources=chem.compensation.sources + _range_sources(chem) + (DRIFT_SOURCE,),
+        extra=_band_measures(charger) + (Measure("typical compensation for this battery", chem.typical_compensation * battery.cells),),
     )
 
 
@@ -187,7 +209,7 @@ def _tight_side_text(found: Band, span: tuple[float, float], room: float) -> str
 def _not_wanted(charger) -> Finding:
     return _finding(
         charger,
-        title=f"Temperature compensation declared for {charger.chemistry.label}",
+        title=words.compensation_not_wanted_title(charger.chemistry.label),
         verdict=Verdict.MARGINAL,
         values=(Measure("declared coefficient", charger.battery.compensation),),
         explanation=words.not_wanted(charger.chemistry.title),

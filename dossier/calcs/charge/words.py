@@ -1,10 +1,10 @@
-"""Every sentence the charge calc's temperature findings write; the logic stays numbers and rules."""
+"""Every sentence the charge calc writes; the logic stays numbers and rules."""
 
 from __future__ import annotations
 
 import math
 
-from dossier.units import fmt
+from dossier.units import Q_, fmt
 
 
 def band_text(coldest: float, warmest: float) -> str:
@@ -94,3 +94,140 @@ def inside_range(span, low, high) -> str:
 
 def compensated_label(stage: str, temperature: float) -> str:
     return f"{stage} setpoint compensated to {temperature:g} °C"
+
+
+def compensation_title(compensation, label: str) -> str:
+    return f"Temperature compensation of {fmt(compensation)} against {label}"
+
+
+def no_compensation_title(label: str) -> str:
+    return f"No temperature compensation declared for the {label} battery"
+
+
+def compensation_not_wanted_title(label: str) -> str:
+    return f"Temperature compensation declared for {label}"
+
+
+# --- setpoints against their windows ------------------------------------------------------------------------
+
+NO_TEMPERATURE = " No battery temperature is given; 25 °C is assumed."
+
+
+def temperature_note(declared: bool) -> str:
+    return "" if declared else NO_TEMPERATURE
+
+
+def window_text(window) -> str:
+    return f"{fmt(window.low)} to {fmt(window.high)}"
+
+
+def setpoint_where(temperature) -> str:
+    return f"at {fmt(temperature)}"
+
+
+def setpoint_title(stage: str, cells: int, label: str, where: str) -> str:
+    return f"{stage.capitalize()} setpoint for a {cells}-cell {label} battery {where}"
+
+
+def setpoint_label(stage: str, where: str) -> str:
+    return f"{stage} setpoint {where}"
+
+
+def below_window(value, span: str) -> str:
+    return f"{fmt(value)} is below the window ({span}): the battery is left undercharged and sulphates over time."
+
+
+def above_window(value, span: str) -> str:
+    return (f"{fmt(value)} is above the window ({span}): the battery gasses and loses water "
+            "(a sealed one dries out for good) and runs hot.")
+
+
+def band_past_edge(value, band, span: str, advice: str) -> str:
+    return (f"{fmt(value)} is inside the window, but with the output tolerance it may sit anywhere from "
+            f"{fmt(band[0])} to {fmt(band[1])}, past an edge ({span}). {advice}")
+
+
+def window_span(stage: str, window) -> str:
+    return f"the {stage} window is {window_text(window)}"
+
+
+def inside_window(span: str) -> str:
+    return f"Inside the window ({span})."
+
+
+BAND_WIDER_THAN_WINDOW = "The tolerance band is wider than the window itself: tighten the tolerance (or trim the setting on the bench)."
+
+
+def set_nearer(middle) -> str:
+    return f"Set it nearer {fmt(middle)} or tighten the tolerance."
+
+
+def no_float_title(label: str) -> str:
+    return f"No float stage declared for the {label} battery"
+
+
+def no_float_stage(label: str, window) -> str:
+    return (f"A {label} battery left on at its absorption voltage overcharges. Without a float "
+            f"stage ({window_text(window)} here), the charger must end the charge once the current has "
+            "tapered, or the battery must be taken off when full.")
+
+
+def float_not_wanted_title(label: str) -> str:
+    return f"Float stage declared for {label}"
+
+
+def float_not_wanted(title: str) -> str:
+    return f"The {title} windows take no float stage; the charge should end when full."
+
+
+# --- charge current and the charger's rating ----------------------------------------------------------------
+
+def current_title(current, capacity, label: str, rate: float) -> str:
+    return f"Charge current {fmt(current)} for a {fmt(capacity)} {label} battery ({rate:.2g} C)"
+
+
+def current_span(window, low_rate: float, high_rate: float) -> str:
+    return f"{window_text(window)}, i.e. {low_rate:g} C to {high_rate:g} C"
+
+
+def current_too_high(current, span: str) -> str:
+    return f"{fmt(current)} is more than the battery should take ({span}): it heats and gasses, and its life shortens."
+
+
+def current_too_low(current, span: str) -> str:
+    return (f"{fmt(current)} is below the usual range ({span}): charging is slow, and a flooded battery's "
+            "electrolyte may stratify without the stirring a stronger charge gives.")
+
+
+def current_inside(span: str) -> str:
+    return f"Inside the usual range ({span})."
+
+
+def rating_title(limit_set) -> str:
+    return f"Charge-current limit {fmt(limit_set)} against the charger's rating"
+
+
+RATING_EXCEEDED = "The charger cannot deliver the limit set for the battery; lower it or uprate the charger."
+
+
+# --- time to full --------------------------------------------------------------------------------------------
+
+def time_title(start_percent: float) -> str:
+    return f"Estimated time to full from {start_percent:g} % charge"
+
+
+def _hours(value: float) -> str:
+    return fmt(Q_(round(value, 2), "h"))
+
+
+def taper_text(cv_hours: float, setpoint_v: float, termination_a: float) -> str:
+    return f"then {_hours(cv_hours)} at {setpoint_v:.3g} V while the current tapers to {termination_a:.3g} A"
+
+
+NO_TAPER = "the limit is below the termination current, so there is no taper"
+
+
+def time_text(cc_hours: float, current_a: float, cv_onset_percent: float, taper: str, efficiency_percent: float) -> str:
+    return (f"About {_hours(cc_hours)} at a constant {current_a:.3g} A to {cv_onset_percent:g} % charge, {taper}; "
+            f"charge efficiency taken as {efficiency_percent:g} %. An estimate from a simple model, not a measurement: "
+            "an old, cold or sulphated battery takes longer.")

@@ -20,7 +20,7 @@ NAME = "protection"
 FUSE_RECOMMENDED = "PROT-FUSE-RECOMMENDED"
 FUSE = "fuse"  # product: the FuseChoice, for the checklist's mains-fuse item
 
-CHECKS = (fuse_findings, inrush_findings, limiter_findings, earth_findings, output_findings)
+CHECKS = (inrush_findings, limiter_findings, earth_findings, output_findings)
 
 CODES = {
     "PROT-INPUT-CURRENT": "RMS and peak mains input current at low line, from output power, efficiency and power factor",
@@ -45,10 +45,11 @@ CODES = {
 
 
 def run(record) -> CalcResult:
-    findings = []
+    choice = recommended_fuse(record) if record.mains is not None else None
+    findings = fuse_findings(record, choice)
     for check in CHECKS:
         findings.extend(check(record))
-    return CalcResult(findings, {FUSE: recommended_fuse(record)} if record.mains is not None else {})
+    return CalcResult(findings, {FUSE: choice} if record.mains is not None else {})
 
 
 CALC = Calc(

@@ -62,12 +62,5 @@ def lowered(verdict: Verdict, missing: list[str]) -> Verdict:
     return Verdict.INFO if missing else verdict
 
 
-def add_text(missing: list[str]) -> str:
-    """' Add protection.bulk_esr and protection.source_resistance.' or ''."""
-    if not missing:
-        return ""
-    return " Add " + " and ".join(missing) + "."
-
-
 def percent(ratio) -> float:
     return round(float(ratio) * 100, 1)

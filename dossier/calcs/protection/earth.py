@@ -69,7 +69,7 @@ def _claimed(earth):
 
 
 def _class_i_unbonded(earth):
-    where = "the metal enclosure" if earth.enclosure == "metal" else "touchable metal parts"
+    where = words.unbonded_where(earth.enclosure == "metal")
     return finding(code="PROT-EARTH-BOND", subject="earth", title="No earth bond", verdict=Verdict.FAIL,
                    values=(measure("enclosure", earth.enclosure), measure("bonding", earth.bonding.strip())),
                    explanation=words.class_i_unbonded_text(where, bool(earth.bonding.strip())) + words.add_text(["protection.earth.bonding"]),

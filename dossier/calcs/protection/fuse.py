@@ -10,12 +10,12 @@ from dossier.calcs.protection.common import (
     PLAUSIBLE_EFFICIENCY, POWER_FACTOR, RUNNING_SOURCES, finding, internal_ambient, measure, percent,
 )
 from dossier.calcs.protection.inrush import minimum_melting_i2t, pulse_fits
-from dossier.calcs.protection.input import LEAST, TOPOLOGY_WORDS, has_inrush, input_current
+from dossier.calcs.protection.input import LEAST, has_inrush, input_current
 from dossier.findings import Verdict, common_practice, judge
 from dossier.standards.fuses import (
     HIGH_BREAKING_CAPACITY_A, ambient_factor, ambient_in_range, marking, minimum_rating, next_preferred,
 )
-from dossier.units import Q_, fmt
+from dossier.units import Q_
 
 TIME_LAG_PRACTICE = common_practice("a unit that draws a surge at switch-on (capacitor input or mains transformer) takes a time-lag fuse")
 BREAKING_PRACTICE = common_practice(
@@ -81,10 +81,11 @@ def _declared_fits(record, minimum, speed: str) -> bool:
     return pulse_fits(record) is not False
 
 
-def fuse_findings(record) -> list:
+def fuse_findings(record, choice: FuseChoice | None) -> list:
+    """The mains-fuse findings, given the recommendation worked out once for the whole calc."""
     if record.mains is None:
         return []
-    found = [_input_current_finding(record), *_rating_findings(record)]
+    found = [_input_current_finding(record), *_rating_findings(record, choice)]
     fuse = record.protection.fuse
     if fuse is not None:
         found += [_speed_finding(record, fuse), _voltage_finding(record, fuse), _breaking_finding(fuse)]
@@ -108,7 +109,7 @@ def _input_current_finding(record):
     )
     return finding(code="PROT-INPUT-CURRENT", subject="mains input", title="Mains input current at low line", verdict=Verdict.INFO,
                    values=values, method="I_rms = P_out / (efficiency x power factor x V_low); I_pk = I_rms sqrt(2 pi / conduction angle)",
-                   explanation=words.input_text(TOPOLOGY_WORDS[running.topology], running.input_power)
+                   explanation=words.input_text(words.TOPOLOGY_WORDS[running.topology], running.input_power)
                    + words.assumed_text(running.assumed, words.MORE_CURRENT),
                    keys=OUTPUT_KEYS, sources=_input_sources(running))
 
@@ -122,9 +123,8 @@ def _input_sources(running) -> tuple:
     return tuple(sources)
 
 
-def _rating_findings(record) -> list:
+def _rating_findings(record, choice: FuseChoice | None) -> list:
     fuse = record.protection.fuse
-    choice = recommended_fuse(record)
     if fuse is None:
         return [_no_fuse(choice)] + ([_recommendation_finding(record, choice)] if choice else [])
     oversize = _oversize_finding(record, fuse)

@@ -6,6 +6,8 @@ import math
 import re
 from dataclasses import dataclass
 
+from dossier.calcs.protection import words
+
 CAPACITOR_INPUT = "capacitor-input"
 TRANSFORMER_CAPACITOR_INPUT = "transformer-capacitor-input"
 NO_BULK_CAPACITOR = "no-bulk-capacitor"
@@ -17,11 +19,6 @@ LEAST = "least"
 # for "is the fuse too big".
 PLAUSIBLE_POWER_FACTOR = {CAPACITOR_INPUT: (0.4, 0.6), TRANSFORMER_CAPACITOR_INPUT: (0.55, 0.8), NO_BULK_CAPACITOR: (0.7, 1.0)}
 PLAUSIBLE_EFFICIENCY = (0.6, 0.9)
-TOPOLOGY_WORDS = {
-    CAPACITOR_INPUT: "capacitor-input rectifier on the mains",
-    TRANSFORMER_CAPACITOR_INPUT: "mains transformer feeding a capacitor-input rectifier",
-    NO_BULK_CAPACITOR: "input with no bulk capacitor",
-}
 _BULK_ROLE = re.compile(r"bulk|split|reservoir|smoothing", re.IGNORECASE)
 
 
@@ -101,7 +98,7 @@ def _ratio(quantity, key: str, typical: float, assumed: list[str]) -> float:
         return typical
     value = float(quantity.to("").magnitude)
     if not 0 < value <= 1:
-        assumed.append(f"{key} between 0 and 100 % (found {value * 100:g} %)")
+        assumed.append(words.ratio_out_of_range(key, value))
         return typical
     return value
 

@@ -9,7 +9,7 @@ import math
 
 from dossier.calcs.protection import words
 from dossier.calcs.protection.common import (
-    FUSEOLOGY_PULSE_CYCLES, FUSEOLOGY_WAVESHAPES, INTERNAL_RISE, RC_CHARGE, add_text, finding, internal_ambient, lowered, measure,
+    FUSEOLOGY_PULSE_CYCLES, FUSEOLOGY_WAVESHAPES, INTERNAL_RISE, RC_CHARGE, finding, internal_ambient, lowered, measure,
     percent,
 )
 from dossier.calcs.protection.input import CAPACITOR_INPUT, input_topology
@@ -17,7 +17,7 @@ from dossier.findings import Verdict, common_practice, judge
 from dossier.standards.fuses import (
     exponential_i2t, melting_i2t_at, pulse_fraction, pulses_in_chart, single_figure_share,
 )
-from dossier.units import Q_, fmt
+from dossier.units import Q_
 
 DEFAULT_SWITCH_ONS = 10_000
 SWITCH_ON_GUESS = common_practice("about 10 000 switch-ons in a unit's life: a few a day for ten years (assumed when not declared)")
@@ -139,14 +139,11 @@ def inrush_findings(record) -> list:
 
 def _not_computed(record):
     if record.protection.bulk_capacitance is None and input_topology(record) != CAPACITOR_INPUT:
-        text = ("No capacitance charged straight from the mains is declared, so no capacitor inrush is computed. "
-                "A mains transformer's switch-on surge depends on core remanence and the switch-on angle and is not computed here; "
-                "a time-lag fuse is the usual answer.")
         return finding(code="PROT-INRUSH", subject="switch-on", title="No capacitor inrush to compute", verdict=Verdict.INFO,
-                       explanation=text, keys=(("protection",),), sources=(RC_CHARGE,))
+                       explanation=words.NO_CAPACITOR_INRUSH, keys=(("protection",),), sources=(RC_CHARGE,))
     missing = ["protection.bulk_capacitance"] if record.protection.bulk_capacitance is None else ["protection.source_resistance", "protection.bulk_esr"]
     return finding(code="PROT-INRUSH", subject="switch-on", title="Inrush not computed", verdict=Verdict.INFO,
-                   explanation="The switch-on surge cannot be computed from what is declared." + add_text(missing),
+                   explanation=words.INRUSH_NOT_COMPUTED + words.add_text(missing),
                    keys=(("protection",),), sources=(RC_CHARGE,))
 
 
@@ -163,24 +160,19 @@ def _peak_finding(record, pulse: Pulse):
     limiter = record.protection.inrush_limiter
     if limiter is not None:
         resistance, air = ntc_start_resistance(record)
-        text = f"{limiter.ref} ({fmt(resistance)} at {fmt(air)}) limits the switch-on peak to {fmt(pulse.peak)} at the crest of high line."
+        text = words.limited_peak_text(limiter.ref, resistance, air, pulse.peak)
         verdict = Verdict.INFO
+        extra = (measure("limiter resistance at switch-on", resistance), measure("air at the limiter", air))
     else:
-        text = _unlimited_text(pulse)
+        text = words.unlimited_peak_text(pulse.line_peak, pulse.peak, pulse.resistance)
         verdict = Verdict.MARGINAL
+        extra = (measure("crest of high line", pulse.line_peak), measure("charging-path resistance", pulse.resistance))
     return finding(code="PROT-INRUSH-PEAK", subject=limiter.ref if limiter else "switch-on", title="Switch-on peak current",
                    verdict=lowered(verdict, list(pulse.assumed)), values=(measure("peak current at high line", pulse.peak), measure("time constant", pulse.time_constant)),
                    method="I_pk = sqrt(2) V_high / (R_limiter + R_source + ESR); tau = R C",
-                   explanation=text + add_text(list(pulse.assumed)),
+                   explanation=text + words.add_text(list(pulse.assumed)), extra=extra,
                    keys=(("protection", "inrush_limiter", "cold_resistance") if limiter else ("protection", "bulk_capacitance"),),
                    sources=(RC_CHARGE,) if limiter else (RC_CHARGE, NO_LIMITER))
-
-
-def _unlimited_text(pulse: Pulse) -> str:
-    return (f"No inrush limiter is declared: at the crest of high line ({fmt(pulse.line_peak)}) the empty capacitors draw "
-            f"{fmt(pulse.peak)}, limited only by the mains wiring and the capacitors' ESR ({fmt(pulse.resistance)} together). "
-            "A pulse like that can melt or weaken the fuse, exceed the bridge rectifier's surge rating (I_FSM), "
-            "pit the switch contacts and trip the breaker upstream. Fit an NTC thermistor, or a resistor bypassed by a relay.")
 
 
 def _fuse_finding(record, pulse: Pulse, fuse):
@@ -193,10 +185,12 @@ def _fuse_finding(record, pulse: Pulse, fuse):
     verdict = lowered(judge(pulse.i2t, allowed, "<="), list(pulse.assumed))
     return finding(code="PROT-INRUSH", subject=fuse.ref, title="Switch-on pulse against the fuse's melting I^2 t", verdict=verdict,
                    values=_pulse_values(pulse) + _melting_values(fuse, melting, share) + _ntc_values(record),
-                   limit=measure(f"{percent(share)} % of {fuse.ref}'s melting I^2 t at {fmt(pulse.time_constant)}, for {pulses} switch-ons", allowed),
+                   limit=measure(words.pulse_limit_label(percent(share), fuse.ref, pulse.time_constant, pulses), allowed),
                    relation="<=",
                    method="I^2 t = I_pk^2 tau / 2 (exponential pulse); allowed = pulse-cycle share x melting I^2 t at t = tau",
-                   explanation=_fuse_text(record, pulse, fuse, pulses, melting) + add_text(list(pulse.assumed)),
+                   explanation=_fuse_text(record, pulse, fuse, pulses, melting) + words.add_text(list(pulse.assumed)),
+                   extra=(measure("switch-on pulse share of the melting I^2 t", Q_(percent((pulse.i2t / melting.i2t).to("")), "percent")),
+                          measure("switch-ons", Q_(pulses))),
                    keys=(("protection", "fuse", "melting_curve" if melting.basis == "curve" else "melting_i2t"), ("protection", "bulk_capacitance")),
                    sources=_fuse_sources(record))
 
@@ -247,5 +241,5 @@ def _fuse_unknown(record, pulse: Pulse, fuse):
     return finding(code="PROT-INRUSH", subject=fuse.ref, title="Switch-on pulse against the fuse (melting I^2 t not declared)", verdict=Verdict.INFO,
                    values=(measure("melting I^2 t the fuse needs at least", needed),) + _pulse_values(pulse),
                    method="I^2 t = I_pk^2 tau / 2 (exponential pulse); needed = pulse I^2 t / pulse-cycle share",
-                   explanation=f"Look up {fuse.ref}'s nominal melting I^2 t in its maker's data." + add_text(["protection.fuse.melting_i2t"] + list(pulse.assumed)),
+                   explanation=words.melting_unknown_text(fuse.ref) + words.add_text(["protection.fuse.melting_i2t"] + list(pulse.assumed)),
                    keys=(("protection", "fuse"),), sources=_fuse_sources(record))

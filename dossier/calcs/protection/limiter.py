@@ -3,13 +3,13 @@
 from __future__ import annotations
 
 from dossier.calcs.protection import words
-from dossier.calcs.protection.common import NTC_GUIDES, RC_CHARGE, add_text, finding, measure, percent
+from dossier.calcs.protection.common import NTC_GUIDES, RC_CHARGE, finding, measure, percent
 from dossier.calcs.shared.mains_lines import high_line_peak
 from dossier.calcs.protection.inrush import MELTING_CURVE, charging_pulse, fuse_melting
 from dossier.findings import Source
 from dossier.calcs.protection.input import input_current
 from dossier.findings import Verdict, common_practice, judge
-from dossier.units import Q_, fmt
+from dossier.units import Q_
 
 ENERGY_MARGIN = 0.2
 CURRENT_MARGIN = 0.2
@@ -55,6 +55,7 @@ def _energy_against(limiter, value, limit, energy):
     return finding(code="PROT-NTC-ENERGY", subject=limiter.ref, title="Inrush limiter switch-on energy", verdict=verdict,
                    values=_unique((value, measure("switch-on energy at high line", energy))), limit=limit, relation="<=",
                    method="E = 1/2 C V_pk^2 at the crest of high line", explanation=_energy_text(limiter, verdict, energy),
+                   extra=(_headroom(),),
                    keys=(("protection", "inrush_limiter"), ("protection", "bulk_capacitance")), sources=(NTC_GUIDES, MARGIN_PRACTICE))
 
 
@@ -75,7 +76,7 @@ def _capacitance_against(record, limiter, capacitance, energy):
     return finding(code="PROT-NTC-ENERGY", subject=limiter.ref, title="Inrush limiter switch-on energy", verdict=verdict,
                    values=values, limit=measure(f"{limiter.ref} maximum capacitance at high line", allowed), relation="<=",
                    method="C_allowed = C_max (V_quoted / V_high)^2 (equal energy 1/2 C V^2)",
-                   explanation=(text + " " + _energy_text(limiter, verdict, energy)).strip(),
+                   explanation=(text + " " + _energy_text(limiter, verdict, energy)).strip(), extra=(_headroom(),),
                    keys=(("protection", "inrush_limiter", "max_capacitance"), ("protection", "inrush_limiter", "max_capacitance_voltage"),
                          ("protection", "bulk_capacitance")),
                    sources=(NTC_GUIDES, CAPACITANCE_SCALING, MARGIN_PRACTICE))
@@ -85,11 +86,15 @@ def _unique(measures: tuple) -> tuple:
     return tuple({m.label: m for m in measures}.values())
 
 
+def _headroom():
+    return measure("headroom kept below the rating", Q_(percent(ENERGY_MARGIN), "percent"))
+
+
 def _energy_text(limiter, verdict: Verdict, energy) -> str:
     if verdict is Verdict.FAIL:
-        return f"Charging the bulk capacitance puts {fmt(energy)} into {limiter.ref}, more than it is rated for; it can crack at switch-on."
+        return words.energy_too_high_text(energy, limiter.ref)
     if verdict is Verdict.MARGINAL:
-        return f"{limiter.ref} is within {percent(ENERGY_MARGIN)} % of its rating at every switch-on at high line."
+        return words.energy_near_rating_text(limiter.ref, percent(ENERGY_MARGIN))
     return ""
 
 
@@ -97,7 +102,7 @@ def _energy_info(limiter, energy, missing: list[str]):
     values = (measure("switch-on energy at high line", energy),) if energy is not None else ()
     return finding(code="PROT-NTC-ENERGY", subject=limiter.ref, title="Inrush limiter switch-on energy", verdict=Verdict.INFO,
                    values=values, method="E = 1/2 C V_pk^2 at the crest of high line",
-                   explanation="The limiter's energy rating is not compared." + add_text(missing),
+                   explanation=words.ENERGY_NOT_COMPARED + words.add_text(missing),
                    keys=(("protection", "inrush_limiter"),), sources=(NTC_GUIDES,))
 
 
@@ -121,25 +126,24 @@ def _ntc_current(limiter, current, power, assumed):
     if limiter.max_current is None:
         return _dissipation_info(limiter, values, ["protection.inrush_limiter.max_current"])
     verdict = Verdict.INFO if assumed else judge(current, limiter.max_current, "<=", CURRENT_MARGIN)
-    text = (f"{limiter.ref} dissipates about {fmt(power)} while running, from its residual resistance "
-            f"(the maker quotes it at full current; at lower current it runs cooler and its resistance is higher).")
+    text = words.ntc_dissipation_text(limiter.ref, power)
     return finding(code="PROT-NTC-DISSIPATION", subject=limiter.ref, title="Inrush limiter running current and dissipation", verdict=verdict,
                    values=values, limit=measure(f"{limiter.ref} maximum current", limiter.max_current), relation="<=",
-                   method="P = I_rms^2 R_hot at low line", explanation=text + add_text(list(assumed)),
+                   method="P = I_rms^2 R_hot at low line", explanation=text + words.add_text(list(assumed)),
                    keys=(("protection", "inrush_limiter", "max_current"),), sources=(NTC_GUIDES, MARGIN_PRACTICE))
 
 
 def _resistor_power(limiter, power):
-    text = f"{limiter.ref} stays in circuit and dissipates {fmt(power)}; rate it for at least {fmt(power * 2)}."
+    text = words.resistor_power_text(limiter.ref, power, power * 2)
     return finding(code="PROT-NTC-DISSIPATION", subject=limiter.ref, title="Inrush resistor running dissipation", verdict=Verdict.INFO,
-                   values=(measure("dissipation at running current", power),), method="P = I_rms^2 R at low line",
+                   values=(measure("dissipation at running current", power),), extra=(measure("power rating it needs at least", power * 2),), method="P = I_rms^2 R at low line",
                    explanation=text, keys=(("protection", "inrush_limiter"),), sources=(RESISTOR_POWER,))
 
 
 def _dissipation_info(limiter, values, missing: list[str]):
     return finding(code="PROT-NTC-DISSIPATION", subject=limiter.ref, title="Inrush limiter running current and dissipation", verdict=Verdict.INFO,
                    values=values, method="P = I_rms^2 R_hot at low line",
-                   explanation="The running dissipation is not checked." + add_text(missing),
+                   explanation=words.DISSIPATION_NOT_CHECKED + words.add_text(missing),
                    keys=(("protection", "inrush_limiter"),), sources=(NTC_GUIDES,))
 
 

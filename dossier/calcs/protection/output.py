@@ -6,11 +6,11 @@ import dataclasses
 import math
 
 from dossier.calcs.protection import words
-from dossier.calcs.protection.common import RUNNING_SOURCES, add_text, finding, internal_ambient, measure
+from dossier.calcs.protection.common import RUNNING_SOURCES, finding, internal_ambient, measure
 from dossier.citations import ABYC_E11, IEC_60335_1
 from dossier.findings import Verdict, common_practice, judge
 from dossier.standards.fuses import minimum_rating
-from dossier.units import Q_, fmt
+from dossier.units import Q_
 
 # IEC 60335-1 (ed. 5.0, 2010), clause 25.8, Table 11: minimum cross-section of a supply cord's conductors by the
 # appliance's rated current, read the other way: the largest current a conductor of that section is allowed to carry.
@@ -54,12 +54,9 @@ def lead_ampacity(wire_diameter):
 
 
 def _no_fuse(output):
-    text = (f"No fuse is declared in the battery lead. A charged battery can deliver hundreds of amperes into a short in the lead "
-            f"or inside the charger; the charger's own {fmt(output.current)} limit does not stop that current, it comes from the battery. "
-            "Without a fuse near the battery the lead itself becomes the fuse: it overheats, its insulation melts and it can start a fire. "
-            "Fit a fuse in the positive lead close to the battery.")
     return finding(code="PROT-OUTPUT-FUSE", subject="battery lead", title="No battery-lead fuse", verdict=Verdict.FAIL,
-                   explanation=text + add_text(["protection.output_fuse"]), keys=(("protection",),), sources=(BATTERY_FAULT,))
+                   extra=(measure("charger's current limit", output.current),),
+                   explanation=words.no_lead_fuse_text(output.current) + words.add_text(["protection.output_fuse"]), keys=(("protection",),), sources=(BATTERY_FAULT,))
 
 
 def battery_voltage(output):
@@ -105,7 +102,7 @@ def _fuse_rating(record, fuse):
                    values=(measure("fuse rating", fuse.rating), measure("maximum charge current", charge)),
                    limit=measure("charge current / (75 % x ambient re-rating)", minimum),
                    method="I_rating >= I_charge / (0.75 x re-rating(ambient))",
-                   explanation=f"{fuse.ref} must carry the full charge current without ageing, and blow on a fault from the battery.",
+                   explanation=words.lead_fuse_rating_text(fuse.ref),
                    keys=(("protection", "output_fuse", "rating"), ("output", "current")), sources=(BATTERY_FAULT,) + RUNNING_SOURCES)
 
 
@@ -122,9 +119,7 @@ def _lead(fuse):
 
 def _lead_against(fuse, rated, source):
     verdict = judge(fuse.rating, rated, "<=")
-    text = (f"The lead must survive any current that {fuse.ref} lets through for long."
-            if verdict is not Verdict.FAIL else
-            f"{fuse.ref} is larger than the lead can carry: a fault could overheat the lead without blowing the fuse. Use a thicker lead or a smaller fuse.")
+    text = words.lead_survives_text(fuse.ref) if verdict is not Verdict.FAIL else words.lead_too_thin_text(fuse.ref)
     values = (measure("fuse rating", fuse.rating),) + ((measure("lead diameter", fuse.lead_wire),) if fuse.lead_wire is not None else ())
     return finding(code="PROT-OUTPUT-LEAD", subject=fuse.ref, title="Battery-lead fuse against the lead's rating", verdict=verdict,
                    values=values, limit=measure("lead current rating", rated), relation="<=",
@@ -134,20 +129,20 @@ def _lead_against(fuse, rated, source):
 
 def _lead_info(fuse, missing: list[str]):
     return finding(code="PROT-OUTPUT-LEAD", subject=fuse.ref, title="Battery-lead fuse against the lead's rating", verdict=Verdict.INFO,
-                   values=(measure("fuse rating", fuse.rating),), explanation="The lead's rating is not compared." + add_text(missing),
+                   values=(measure("fuse rating", fuse.rating),), explanation=words.LEAD_NOT_COMPARED + words.add_text(missing),
                    keys=(("protection", "output_fuse"),), sources=(AMPACITY_TABLE,))
 
 
 def _distance(fuse):
     if fuse.distance_to_battery is None:
         return finding(code="PROT-OUTPUT-DISTANCE", subject=fuse.ref, title="Battery-lead fuse position", verdict=Verdict.INFO,
-                       explanation="Unfused lead between the battery and the fuse is unprotected." + add_text(["protection.output_fuse.distance_to_battery"]),
+                       explanation=words.UNFUSED_LEAD + words.add_text(["protection.output_fuse.distance_to_battery"]),
                        keys=(("protection", "output_fuse"),), sources=(FUSE_NEAR_BATTERY,))
     verdict = Verdict.PASS if fuse.distance_to_battery <= MAX_FUSE_DISTANCE else Verdict.MARGINAL
     return finding(code="PROT-OUTPUT-DISTANCE", subject=fuse.ref, title="Battery-lead fuse position", verdict=verdict,
                    values=(measure("lead between battery and fuse", fuse.distance_to_battery),), limit=measure("usual longest unfused lead", MAX_FUSE_DISTANCE), relation="<=",
                    method="unfused lead between battery terminal and fuse <= 178 mm (7 in)",
-                   explanation="" if verdict is Verdict.PASS else "The lead between the battery and the fuse is unprotected; move the fuse nearer the battery.",
+                   explanation="" if verdict is Verdict.PASS else words.MOVE_FUSE_NEARER,
                    keys=(("protection", "output_fuse", "distance_to_battery"),), sources=(FUSE_NEAR_BATTERY,))
 
 
@@ -156,8 +151,5 @@ def _reverse_polarity(record):
     if declared:
         return finding(code="PROT-REVERSE-POLARITY", subject="battery output", title="Reverse-polarity protection declared", verdict=Verdict.PASS,
                        values=(measure("protection", declared),), keys=(("protection", "reverse_polarity"),), sources=(REVERSED_LEADS,))
-    text = ("No reverse-polarity protection is declared. Battery leads get swapped; a reversed battery drives its full fault current "
-            "backwards through the output rectifier and capacitors, which can burst or burn. Add a series diode, a fuse with a reverse diode "
-            "across the output, or a relay or MOSFET that only closes with the right polarity.")
     return finding(code="PROT-REVERSE-POLARITY", subject="battery output", title="No reverse-polarity protection", verdict=Verdict.FAIL,
-                   explanation=text + add_text(["protection.reverse_polarity"]), keys=(("protection",),), sources=(REVERSED_LEADS,))
+                   explanation=words.NO_REVERSE_POLARITY + words.add_text(["protection.reverse_polarity"]), keys=(("protection",),), sources=(REVERSED_LEADS,))

@@ -221,3 +221,103 @@ def lead_fuse_dc_text(ref: str, voltage_ok: bool, breaking_ok: bool, prospective
         text += (" The battery's short-circuit current is taken as 30 A per Ah of capacity (the harsher reading, from memory);"
                  " declare protection.output_fuse.prospective_current from the battery maker's data.")
     return text.strip()
+
+
+# The input, as words
+
+TOPOLOGY_WORDS = {
+    "capacitor-input": "capacitor-input rectifier on the mains",
+    "transformer-capacitor-input": "mains transformer feeding a capacitor-input rectifier",
+    "no-bulk-capacitor": "input with no bulk capacitor",
+}
+
+
+def ratio_out_of_range(key: str, value: float) -> str:
+    return f"{key} between 0 and 100 % (found {value * 100:g} %)"
+
+
+# The switch-on surge
+
+NO_CAPACITOR_INRUSH = ("No capacitance charged straight from the mains is declared, so no capacitor inrush is computed. "
+                       "A mains transformer's switch-on surge depends on core remanence and the switch-on angle and is not computed here; "
+                       "a time-lag fuse is the usual answer.")
+INRUSH_NOT_COMPUTED = "The switch-on surge cannot be computed from what is declared."
+
+
+def limited_peak_text(ref: str, resistance, air, peak) -> str:
+    return f"{ref} ({fmt(resistance)} at {fmt(air)}) limits the switch-on peak to {fmt(peak)} at the crest of high line."
+
+
+def unlimited_peak_text(line_peak, peak, resistance) -> str:
+    return (f"No inrush limiter is declared: at the crest of high line ({fmt(line_peak)}) the empty capacitors draw "
+            f"{fmt(peak)}, limited only by the mains wiring and the capacitors' ESR ({fmt(resistance)} together). "
+            "A pulse like that can melt or weaken the fuse, exceed the bridge rectifier's surge rating (I_FSM), "
+            "pit the switch contacts and trip the breaker upstream. Fit an NTC thermistor, or a resistor bypassed by a relay.")
+
+
+def pulse_limit_label(share_percent: float, ref: str, time, pulses: int) -> str:
+    return f"{share_percent} % of {ref}'s melting I^2 t at {fmt(time)}, for {pulses} switch-ons"
+
+
+def melting_unknown_text(ref: str) -> str:
+    return f"Look up {ref}'s nominal melting I^2 t in its maker's data."
+
+
+# The limiter's energy and dissipation
+
+def energy_too_high_text(energy, ref: str) -> str:
+    return f"Charging the bulk capacitance puts {fmt(energy)} into {ref}, more than it is rated for; it can crack at switch-on."
+
+
+def energy_near_rating_text(ref: str, margin_percent: float) -> str:
+    return f"{ref} is within {margin_percent} % of its rating at every switch-on at high line."
+
+
+ENERGY_NOT_COMPARED = "The limiter's energy rating is not compared."
+
+
+def ntc_dissipation_text(ref: str, power) -> str:
+    return (f"{ref} dissipates about {fmt(power)} while running, from its residual resistance "
+            f"(the maker quotes it at full current; at lower current it runs cooler and its resistance is higher).")
+
+
+def resistor_power_text(ref: str, power, rating) -> str:
+    return f"{ref} stays in circuit and dissipates {fmt(power)}; rate it for at least {fmt(rating)}."
+
+
+DISSIPATION_NOT_CHECKED = "The running dissipation is not checked."
+
+
+# Earth, where the bond goes
+
+def unbonded_where(metal_enclosure: bool) -> str:
+    return "the metal enclosure" if metal_enclosure else "touchable metal parts"
+
+
+# Battery side
+
+def no_lead_fuse_text(charger_current) -> str:
+    return (f"No fuse is declared in the battery lead. A charged battery can deliver hundreds of amperes into a short in the lead "
+            f"or inside the charger; the charger's own {fmt(charger_current)} limit does not stop that current, it comes from the battery. "
+            "Without a fuse near the battery the lead itself becomes the fuse: it overheats, its insulation melts and it can start a fire. "
+            "Fit a fuse in the positive lead close to the battery.")
+
+
+def lead_fuse_rating_text(ref: str) -> str:
+    return f"{ref} must carry the full charge current without ageing, and blow on a fault from the battery."
+
+
+def lead_survives_text(ref: str) -> str:
+    return f"The lead must survive any current that {ref} lets through for long."
+
+
+def lead_too_thin_text(ref: str) -> str:
+    return f"{ref} is larger than the lead can carry: a fault could overheat the lead without blowing the fuse. Use a thicker lead or a smaller fuse."
+
+
+LEAD_NOT_COMPARED = "The lead's rating is not compared."
+UNFUSED_LEAD = "Unfused lead between the battery and the fuse is unprotected."
+MOVE_FUSE_NEARER = "The lead between the battery and the fuse is unprotected; move the fuse nearer the battery."
+NO_REVERSE_POLARITY = ("No reverse-polarity protection is declared. Battery leads get swapped; a reversed battery drives its full fault current "
+                       "backwards through the output rectifier and capacitors, which can burst or burn. Add a series diode, a fuse with a reverse diode "
+                       "across the output, or a relay or MOSFET that only closes with the right polarity.")
