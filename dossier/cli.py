@@ -86,15 +86,23 @@ def schema(output: Path | None, kind: str) -> None:
 @main.command()
 @click.argument("build_id")
 @click.option("--archive", type=click.Path(path_type=Path, file_okay=False), default=Path("."), show_default=True, help="The archive folder; started (with archive.yaml) if it does not exist yet.")
-def new(build_id: str, archive: Path) -> None:
+@click.option("--start", metavar="KIND", help="Begin from a worked, commented record of a common unit kind instead of the blank one: "
+              "linear-supply, amplifier-supply or switch-mode-supply.")
+def new(build_id: str, archive: Path, start: str | None) -> None:
     """Start a new build: writes BUILD_ID/rev-A.yaml, a commented record to fill in.
+
+    With --start KIND the record is a starting point: a complete, valid example unit of that kind
+    (linear-supply: a mains toroid, bridge, reservoir and series regulator; amplifier-supply: a
+    toroid feeding split +/- rails for a class-AB amplifier; switch-mode-supply: a controller-driven
+    half-bridge), with the working of every figure and what to change beside each key.
+    Walk-through: docs/first-record.md.
 
     Also writes record.schema.json beside the builds (kept current on every run), which the record's
     first line names, so an editor with a YAML language server checks the record as it is typed.
     """
     from dossier.commands.new import scaffold
 
-    path = scaffold(archive, build_id)
+    path = scaffold(archive, build_id, start=start)
     click.echo(f"wrote {path}")
 
 
