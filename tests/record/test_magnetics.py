@@ -10,7 +10,7 @@ from dossier.problems import InputError
 from dossier.reading.record import load_record
 from dossier.wording import problem_line
 
-DEMO = Path(__file__).resolve().parents[1] / "demo" / "archive" / "solar-bank-charger" / "rev-C.yaml"
+DEMO = Path(__file__).resolve().parents[2] / "demo" / "archive" / "solar-bank-charger" / "rev-C.yaml"
 
 CASES = {
     "inner-not-inside-outer": (
