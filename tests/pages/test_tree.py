@@ -255,3 +255,10 @@ def test_the_checklist_page_shows_one_caution_and_keeps_the_print_links_apart(tr
     line = next(line for line in checklist.splitlines() if line.startswith("Printable sheet:"))
     after = checklist.split(line, 1)[1]
     assert after.startswith("\n\n"), "the next paragraph must not run on from the print links"
+
+
+def test_the_sign_off_filter_separates_its_links_like_the_status_filter(tree):
+    index = page(tree, "index.md")
+    line = next(text for text in index.splitlines() if text.startswith("By sign-off:"))
+    assert "](signoff/not-reviewed.md) · [stale (1)](signoff/stale.md) · [" in line
+    assert ")·" not in line
