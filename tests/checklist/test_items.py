@@ -15,14 +15,19 @@ from dossier.checklist.sheet import build_checklist
 from dossier.record.protection import Earth
 from dossier.standards.fuses import marking
 from dossier.plugins import load_calcs
-from dossier.review import review
+from dossier.review import run_review
 from dossier.units import Q_
 
 
 def selfosc_checklist():
     """The checklist of the test-only self-oscillating supply (its rectifier heatsink can be touched)."""
     loaded = load_revision(RevisionFile("selfosc-psu", "A", RECORDS / "selfosc-psu" / "rev-A.yaml"))
-    return build_checklist(loaded.record, list(review(loaded.record, load_calcs())))
+    return checklist_for(loaded.record)
+
+
+def checklist_for(record):
+    """The checklist of a (possibly changed) record, from its own review: findings and products agree with it."""
+    return build_checklist(record, run_review(record, load_calcs()))
 
 
 def keys(build, revision) -> list[str]:
@@ -78,10 +83,10 @@ def test_insulation_resistance_minimums_and_test_voltage():
 
 
 def test_a_class_ii_unit_has_no_earth_item_and_the_higher_insulation_minimum():
-    loaded, findings = demo("solar-bank-charger", "C")
+    loaded, _ = demo("solar-bank-charger", "C")
     protection = loaded.record.protection.model_copy(update={"earth": Earth(protective_class="II", enclosure="plastic")})
     record = loaded.record.model_copy(update={"protection": protection})
-    checklist = build_checklist(record, reviewed)
+    checklist = checklist_for(record)
     assert checklist.item("pe-continuity") is None
     # DIN EN 50678:2021: class II at least 2.0 MOhm at 500 V DC.
     assert checklist.item("insulation-mains-metal").expected.low == Q_(2.0, "megaohm")
@@ -100,11 +105,11 @@ def test_a_declared_fuse_that_passes_is_the_one_to_fit():
 
 
 def test_a_declared_fuse_larger_than_needed_names_the_smallest_that_would_do():
-    loaded, findings = demo("solar-bank-charger", "C")
+    loaded, _ = demo("solar-bank-charger", "C")
     fuse = loaded.record.protection.fuse.model_copy(update={"rating": Q_(4, "A")})
     record = loaded.record.model_copy(update={"protection": loaded.record.protection.model_copy(update={"fuse": fuse})})
     choice = recommended_fuse(record)
-    entry = build_checklist(record, list(findings)).item("mains-fuse")
+    entry = checklist_for(record).item("mains-fuse")
     assert entry.title == "Mains fuse F1: fit T4A"
     assert f"The smallest preferred rating that would also do is {marking(choice.rating, choice.speed)}" in entry.steps
 
@@ -189,9 +194,9 @@ def test_a_chargers_battery_lead_fuse_and_polarity():
     assert "F2" in fuse.title
     polarity = item("solar-bank-charger", "C", "output-polarity")
     assert "diode D9 across the output" in polarity.steps
-    loaded, findings = demo("solar-bank-charger", "A")
+    loaded, _ = demo("solar-bank-charger", "A")
     unfused = loaded.record.model_copy(update={"protection": loaded.record.protection.model_copy(update={"output_fuse": None})})
-    assert build_checklist(unfused, list(findings)).item("output-lead-fuse").title == "Battery-lead fuse: none recorded"
+    assert checklist_for(unfused).item("output-lead-fuse").title == "Battery-lead fuse: none recorded"
     assert "output-polarity" not in keys("bench-psu-13v8", "A")
 
 
@@ -227,11 +232,11 @@ def test_capacitors_to_bleed_and_their_peak_voltage():
 
 
 def test_a_chargers_own_current_limit_and_compensation_are_used():
-    loaded, findings = demo("solar-bank-charger", "C")
+    loaded, _ = demo("solar-bank-charger", "C")
     output = loaded.record.output
     battery = output.battery.model_copy(update={"charge_current": Q_(5, "A"), "compensation": Q_(-30, "mV/K")})
     record = loaded.record.model_copy(update={"output": output.model_copy(update={"battery": battery})})
-    checklist = build_checklist(record, reviewed)
+    checklist = checklist_for(record)
     current = checklist.item("output-current")
     assert current.title == "Charge current limit, 5 A"
     assert current.expected.contains(Q_(5.02, "A")) and not current.expected.contains(Q_(7, "A"))
@@ -240,11 +245,11 @@ def test_a_chargers_own_current_limit_and_compensation_are_used():
 
 
 def test_a_live_tab_without_a_pad_makes_the_heatsink_live():
-    loaded, findings = demo("solar-bank-charger", "C")
+    loaded, _ = demo("solar-bank-charger", "C")
     devices = loaded.record.devices
     bare = [d.model_copy(update={"insulated": False}) if d.ref == "Q1" else d for d in devices.semiconductors]
     record = loaded.record.model_copy(update={"devices": devices.model_copy(update={"semiconductors": bare})})
-    checklist = build_checklist(record, reviewed)
+    checklist = checklist_for(record)
     live = checklist.item("tab-isolation-q1")
     assert live.title == "Heatsink HS1 is live through Q1's tab"
     assert not live.measured

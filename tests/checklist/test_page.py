@@ -13,7 +13,9 @@ from dossier.checklist.outcome import outcomes, summarise
 from dossier.checklist.page import checklist_html, checklist_markdown
 from dossier.checklist.sheet import build_checklist
 from dossier.findings import Verdict
+from dossier.plugins import load_calcs
 from dossier.record.insulation import Barrier
+from dossier.review import run_review
 
 
 def page(build, revision, commissioning=None, **kwargs) -> str:
@@ -72,11 +74,11 @@ def test_print_links_are_offered_when_given():
 
 
 def test_record_text_cannot_inject_markup():
-    loaded, findings = demo("solar-bank-charger", "C")
+    loaded, _ = demo("solar-bank-charger", "C")
     barrier = loaded.record.barriers[0].model_dump()
     hostile = Barrier.model_validate({**barrier, "name": "<script>alert(1)</script> *gap*"})
     changed = with_record(loaded, barriers=[hostile], title="<b>bold</b> title")
-    checklist = build_checklist(changed.record, reviewed)
+    checklist = build_checklist(changed.record, run_review(changed.record, load_calcs()))
     text = checklist_markdown(changed, checklist)
     assert "<script>" not in text and "<b>bold</b>" not in text
     assert "&lt;script&gt;" in text

@@ -139,7 +139,10 @@ def test_the_gate_drive_windings_carry_their_turns_and_the_controller_is_drawn(d
     for winding in drive.windings:
         assert f"{drive.ref} {winding.name}: {winding.turns:g} t" in flat
     assert "U1" in lines and "PWM controller with two alternating outputs" in lines
-    assert not [line for line in lines if line.startswith("Also in this stage")]
+    # the half-bridge drawer has no symbol for rev C's balancing resistors: they, and only they, are listed as not drawn
+    start = lines.index("Also in this stage, not drawn:")
+    listed = [line for line in lines[start + 1:] if not line.startswith("MAINS-CONNECTED")]
+    assert listed == ["R5 220 kohm (balancing resistor across C5)", "R6 220 kohm (balancing resistor across C6)"]
 
 
 def test_the_barrier_label_carries_the_isolation_verdict_and_distances():

@@ -94,14 +94,13 @@ def test_overview_has_what_mains_hazards_and_caution(tree):
 def test_overview_lists_failing_findings_first_with_links_into_the_calcs_page(demo, tree):
     build = next(b for b in demo.builds if b.id == "solar-bank-charger")
     findings = build.revisions[0].findings
-    failing = [f for f in findings if f.verdict is Verdict.FAIL]
-    marginal = [f for f in findings if f.verdict is Verdict.MARGINAL]
-    assert failing, "revision A of the demo charger is meant to fail"
+    counts = {verdict: sum(f.verdict is verdict for f in findings) for verdict in (Verdict.FAIL, Verdict.NOT_ASSESSED, Verdict.MARGINAL)}
+    assert counts[Verdict.FAIL], "revision A of the demo charger is meant to fail"
     overview = page(tree, "builds/solar-bank-charger/rev-A/index.md")
-    verdict_rows = [line for line in overview.split("## Verdicts")[1].split("| Calc |")[0].splitlines() if line.startswith("| **")]
-    assert len(verdict_rows) == len(failing) + len(marginal)
-    assert all("**fail**" in row for row in verdict_rows[: len(failing)])
-    assert all("**marginal**" in row for row in verdict_rows[len(failing) :])
+    verdict_rows = [line for line in overview.split("## Verdicts")[1].split("| Calc |")[0].splitlines() if line.startswith('| <span class="dossier-verdict')]
+    # every finding that needs attention, most severe first: fail, then not assessed, then marginal
+    expected = [verdict.value for verdict, count in counts.items() for _ in range(count)]
+    assert [row.split("dossier-verdict-")[1].split('"')[0] for row in verdict_rows] == expected
     assert all("](calcs.md#" in row for row in verdict_rows)
 
 
@@ -256,3 +255,10 @@ def test_the_checklist_page_shows_one_caution_and_keeps_the_print_links_apart(tr
     line = next(line for line in checklist.splitlines() if line.startswith("Printable sheet:"))
     after = checklist.split(line, 1)[1]
     assert after.startswith("\n\n"), "the next paragraph must not run on from the print links"
+
+
+def test_the_sign_off_filter_separates_its_links_like_the_status_filter(tree):
+    index = page(tree, "index.md")
+    line = next(text for text in index.splitlines() if text.startswith("By sign-off:"))
+    assert "](signoff/not-reviewed.md) · [stale (1)](signoff/stale.md) · [" in line
+    assert ")·" not in line

@@ -37,7 +37,7 @@ def problems(path: Path) -> list[str]:
 @pytest.mark.parametrize("old, new, key, words", [
     ("    chemistry: agm", "    chemistry: lithium", "output.battery.chemistry", "expected one of flooded, agm, gel, found 'lithium'"),
     ("    float_voltage: 27.3 V", "    float_voltage: 29.2 V", "output.battery.float_voltage", "expected below absorption_voltage (29 V)"),
-    ("    capacity: 65 Ah", "    capacity: 0 Ah", "output.battery.capacity", "expected a value above zero"),
+    ("    capacity: 65 Ah", "    capacity: 0 Ah", "output.battery.capacity", "value out of range; expected at least 0.001 A·h and at most 1e6 A·h, found 0 Ah"),
     ("    capacity: 65 Ah", "    capacity: 65 V", "output.battery.capacity", "wrong kind of unit"),
     ("    temperature: 15 degC", "    start_state_of_charge: 120 %", "output.battery.start_state_of_charge", "at least 0 % and below 100 %"),
     ("    compensation: -36 mV/K", "    compensation: -36 mV", "output.battery.compensation", "voltage per kelvin"),

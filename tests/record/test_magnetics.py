@@ -10,7 +10,7 @@ from dossier.problems import InputError
 from dossier.reading.record import load_record
 from dossier.wording import problem_line
 
-DEMO = Path(__file__).resolve().parents[1] / "demo" / "archive" / "solar-bank-charger" / "rev-C.yaml"
+DEMO = Path(__file__).resolve().parents[2] / "demo" / "archive" / "solar-bank-charger" / "rev-C.yaml"
 
 CASES = {
     "inner-not-inside-outer": (
@@ -28,7 +28,7 @@ CASES = {
     ),
     "duty-over-100-percent": (
         "duty: 61 %", "duty: 120 %",
-        "magnetics[2].excitation.duty: value out of range; expected more than 0 % and at most 100 %, found 120 %",
+        "magnetics[2].excitation.duty: value out of range; expected at least 1 % and at most 100 %, found 120 %",
     ),
     "toroid-without-height": (
         "      height: 14 mm\n", "",
@@ -36,7 +36,7 @@ CASES = {
     ),
     "negative-wire": (
         "turns: 36, wire: 0.45 mm", "turns: 36, wire: -0.45 mm",
-        "magnetics[0].windings[0].wire: value out of range; expected more than zero, found -0.45 mm",
+        "magnetics[0].windings[0].wire: value out of range; expected at least 0.01 mm and at most 20 mm, found -0.45 mm",
     ),
     "field-limit-in-amperes": (
         "max_field: 3800 A/m", "max_field: 3800 A",
@@ -49,7 +49,7 @@ CASES = {
     ),
     "zero-frequency": (
         "frequency: 65 kHz\n    core", "frequency: 0 kHz\n    core",
-        "magnetics[0].frequency: value out of range; expected more than zero, found 0 kHz",
+        "magnetics[0].frequency: value out of range; expected at least 0.001 Hz and at most 1e8 Hz, found 0 kHz",
     ),
 }
 

@@ -75,10 +75,15 @@ def barrier_findings(record, site: Site, reading: Reading = NEXT_ROW_UP) -> list
         return [no_voltage_finding(record, site)]
     inputs = derive_inputs(record, site, working, reading)
     clearance = clearance_finding(site, inputs)
-    findings = [inputs_finding(site, inputs), clearance, creepage_finding(site, inputs, _required(clearance))]
+    judged = [clearance, creepage_finding(site, inputs, _required(clearance))]
     if site.barrier.slots:
-        findings.append(slot_finding(site, inputs))
-    return findings
+        judged.append(slot_finding(site, inputs))
+    return [inputs_finding(site, inputs), *(_guarding(site, f) for f in judged)]
+
+
+def _guarding(site: Site, finding: Finding) -> Finding:
+    """Clearance, creepage and slot of a safety barrier guard a hazard, whatever their verdict."""
+    return replace(finding, guards_hazard=not site.guidance_only)
 
 
 def _required(clearance: Finding):

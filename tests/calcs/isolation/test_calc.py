@@ -285,3 +285,14 @@ def test_printed_board_at_pollution_degree_3_uses_the_general_column():
     # IEC 60664-1:2020 Table F.5: no printed-board column at PD3; PD3 group I 3.2 mm at 250 V
     assert findings["ISO-CREEPAGE"].limit.quantity.to("mm").magnitude == pytest.approx(3.2)
     assert "no printed-board column at pollution degree 3" in findings["ISO-CREEPAGE"].explanation
+
+
+@pytest.mark.parametrize("revision", ["A", "B"])
+def test_a_mains_barriers_distances_guard_a_hazard_whatever_their_verdict(revision):
+    # the charger's primary-to-output barrier is reinforced insulation between mains and the battery leads: its
+    # clearance and creepage findings guard a hazard when they fail (rev A) and when they pass (rev B), as
+    # check --format json reports them (docs/reference/json.md, guards_hazard)
+    findings = [f for f in CALC.run(load_demo("solar-bank-charger", revision)) if f.code in ("ISO-CLEARANCE", "ISO-CREEPAGE", "ISO-SLOT")]
+    assert {f.code for f in findings} >= {"ISO-CLEARANCE", "ISO-CREEPAGE"}
+    assert all(f.guards_hazard for f in findings)
+    assert {f.verdict for f in findings} == ({Verdict.FAIL} if revision == "A" else {Verdict.PASS})

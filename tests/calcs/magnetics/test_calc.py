@@ -78,11 +78,16 @@ def test_stranded_windings_of_rev_c_run_inside_the_density_band():
 
 
 def test_a_single_thick_secondary_runs_too_dense():
-    # Test record: 4 A in one 0.9 mm wire: 4 / 0.636173 mm^2 = 6.288 A/mm^2, above the 2-5 A/mm^2 band (common practice).
+    # Test record: 4 A in one 0.9 mm wire: 4 / 0.636173 mm^2 = 6.288 A/mm^2. Limit J = K_j A_p^x (McLyman, Transformer
+    # and Inductor Design Handbook, 3rd ed., CRC Press, chapter 5; from memory): a ferrite toroid counts as a powder
+    # core, K_j 590, x -0.12 on the 50 K row (allowed rise 100 degC - 30 degC = 70 K). 32 x 19 x 13 mm by IEC 60205:
+    # A_e = 82.612 mm^2, W_a = pi 9.5^2 = 283.53 mm^2, A_p = 2.3423 cm^4; J = 590 x 2.3423^-0.12 = 532.72 A/cm^2
+    # = 5.327 A/mm^2, so short by 6.288 - 5.327 = 0.96 A/mm^2.
     finding = one(findings_of(load_test_record("selfosc-psu")), "MAG-CURRENT-DENSITY", "T1 secondary")
     assert finding.verdict is Verdict.FAIL
     assert finding.value.quantity.to("A/mm**2").magnitude == pytest.approx(4 / (math.pi * 0.45**2), rel=1e-6)
-    assert "1.29" in margin_text(finding) and "strands" in finding.explanation
+    assert finding.limit.quantity.to("A/mm**2").magnitude == pytest.approx(5.327, abs=0.001)
+    assert "0.96" in margin_text(finding) and "strands" in finding.explanation
 
 
 @pytest.mark.parametrize("ref", ["T1", "T2", "L1"])
@@ -101,13 +106,21 @@ def test_charger_core_by_hand():
     assert extra_value(core, "effective volume").to("mm**3").magnitude == pytest.approx(T1_VOLUME_MM3, abs=0.5)
 
 
-def test_core_loss_by_steinmetz_at_nominal_line():
-    # Steinmetz P_v = k f^alpha B^beta (McLyman, CRC Press; from memory) with the record's k 0.9, alpha 1.5, beta 2.6.
-    # Nominal line: 230 x sqrt 2 / 2 = 162.63 V; B = 162.63 / (4 x 65e3 x 36 x 109.878e-6) = 0.158135 T;
-    # P_v = 0.9 x 65000^1.5 x 0.158135^2.6 = 123 334 W/m^3; x V_e 11.298e-6 m^3 = 1.393 W.
+# iGSE (Venkatachalam, Sullivan, Abdallah, Tacca, IEEE COMPEL 2002) for a full bipolar square of flux swing dB = 2 B_pk:
+# P_v = k_i f^alpha dB^beta 2^alpha, k_i = k / ((2 pi)^(alpha - 1) x integral_0^2pi |cos|^alpha x 2^(beta - alpha)),
+# the integral = 4 sqrt(pi) Gamma((alpha + 1) / 2) / (2 Gamma(alpha / 2 + 1)). Record's k 0.9, alpha 1.5, beta 2.6:
+# integral 3.4961, k_i = 0.9 / (2.5066 x 3.4961 x 2.1435) = 0.047911.
+
+
+def test_core_loss_by_igse_at_nominal_line():
+    # Nominal line: 230 x sqrt 2 / 2 = 162.63 V; B = 162.63 / (4 x 65e3 x 36 x 109.878e-6) = 0.158135 T, dB 0.31627 T;
+    # P_v = 0.047911 x 65000^1.5 x 0.31627^2.6 x 2^1.5 = 112 590 W/m^3; x V_e 11.298e-6 m^3 = 1.272 W
+    # (a sine of the same peak would give Steinmetz's 1.393 W: the square's steady dB/dt loses less).
     loss = one(findings_of(load_demo("solar-bank-charger", "C")), "MAG-CORE-LOSS", "T1")
     assert extra(loss, "peak flux").to("T").magnitude == pytest.approx(0.158135, abs=0.000001)
-    assert loss.value.quantity.to("W").magnitude == pytest.approx(1.393, abs=0.001)
+    assert extra(loss, "flux swing").to("T").magnitude == pytest.approx(0.31627, abs=0.00001)
+    assert loss.value.quantity.to("W").magnitude == pytest.approx(1.272, abs=0.001)
+    assert "iGSE" in loss.method
 
 
 def test_bridge_secondary_ratio_has_no_halves():
@@ -127,10 +140,13 @@ def test_centre_tapped_secondary_ratio_reports_both_halves():
 
 
 def test_a_fractional_feedback_turn_scales_the_declared_drive():
-    # test record: 1.5 V across the 5-turn base winding; the 1.5-turn feedback winding sees 1.5 x 1.5 / 5 = 0.45 V
+    # test record: 1.5 V across the 5-turn base winding; the 1.5-turn feedback winding sees 1.5 x 1.5 / 5 = 0.45 V at
+    # nominal line. The drive is taken as following the mains (harsher reading): x 1.1 at high line = 0.495 V.
     finding = one(findings_of(load_test_record("selfosc-psu")), "MAG-RATIO", "T2 current feedback")
     assert finding.value.quantity.magnitude == pytest.approx(5 / 1.5)
-    assert extra_value(finding, "peak voltage at high line").to("V").magnitude == pytest.approx(0.45)
+    assert extra_value(finding, "peak voltage at nominal line").to("V").magnitude == pytest.approx(0.45)
+    assert extra_value(finding, "peak voltage at high line").to("V").magnitude == pytest.approx(0.495)
+    assert "excitation.supply" in finding.method  # the harsher reading is said, with the key that would make it exact
 
 
 def test_secondary_wire_is_thicker_than_two_skin_depths():
@@ -182,22 +198,24 @@ def test_choke_over_its_field_limit_fails(tmp_path):
 
 def test_temperature_rise_judged_against_the_material_limit():
     # Test record, losses at 100 degC: primary 0.45^2 x 0.5406 = 0.1095 W (mean turn 26 + 13 + 4 x 0.659 mm),
-    # secondary 0.3848 W, core 3.1 x 32000^1.35 x 0.21361^2.5 x 6.3276e-6 m^3 = 0.4996 W: 0.9939 W.
+    # secondary 0.3848 W, core by the iGSE (as above) with k 3.1, alpha 1.35, beta 2.5: integral 3.6275,
+    # B = 162.63 / (4 x 32e3 x 72 x 82.612e-6) = 0.21361 T, P_v = 74 335 W/m^3 x 6.3276e-6 m^3 = 0.4704 W: 0.9647 W.
     # Wound surface: the core grown by the 1.648 mm build at the hole, 35.296 x 15.704 x 16.296 mm:
     # pi/2 (35.296^2 - 15.704^2) + pi (35.296 + 15.704) 16.296 = 4180.5 mm^2 = 41.805 cm^2.
-    # McLyman (CRC Press; from memory): T_r = 450 (0.9939 / 41.805)^0.826 = 20.5 K, under 100 - 30 = 70 K.
+    # McLyman (CRC Press; from memory): T_r = 450 (0.9647 / 41.805)^0.826 = 20.0 K, under 100 - 30 = 70 K.
     finding = one(findings_of(load_test_record("selfosc-psu")), "MAG-TEMP-RISE", "T1")
     assert finding.limit.quantity.to("K").magnitude == pytest.approx(100 - 30)
-    assert extra(finding, "total loss").to("W").magnitude == pytest.approx(0.9939, abs=0.001)
+    assert extra(finding, "total loss").to("W").magnitude == pytest.approx(0.9647, abs=0.001)
     assert extra(finding, "outside surface").to("cm**2").magnitude == pytest.approx(41.805, abs=0.01)
-    assert finding.value.quantity.to("K").magnitude == pytest.approx(20.5, abs=0.05)
+    assert finding.value.quantity.to("K").magnitude == pytest.approx(20.0, abs=0.05)
 
 
 def test_saturating_core_runs_far_too_hot():
-    # Rev A: 14 turns drive the core to 0.4066 T at nominal line; 0.9 x 65000^1.5 x 0.4066^2.6 x 11.298e-6 m^3 = 16.2 W
-    # of core loss (Steinmetz, McLyman; from memory), far beyond what the wound toroid can shed.
+    # Rev A: 14 turns drive the core to 162.63 / (4 x 65e3 x 14 x 109.878e-6) = 0.40663 T at nominal line; iGSE as
+    # above: 0.047911 x 65000^1.5 x 0.81326^2.6 x 2^1.5 = 1.3121e6 W/m^3 x 11.298e-6 m^3 = 14.82 W of core loss,
+    # far beyond what the wound toroid can shed.
     findings = findings_of(load_demo("solar-bank-charger", "A"))
-    assert one(findings, "MAG-CORE-LOSS", "T1").value.quantity.to("W").magnitude == pytest.approx(16.24, abs=0.01)
+    assert one(findings, "MAG-CORE-LOSS", "T1").value.quantity.to("W").magnitude == pytest.approx(14.82, abs=0.01)
     assert one(findings, "MAG-TEMP-RISE", "T1").verdict is Verdict.FAIL
 
 

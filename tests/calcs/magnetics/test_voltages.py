@@ -46,15 +46,22 @@ def test_centre_tapped_secondary_and_each_half():
     assert set(found["secondary"]) == {"low", "nominal", "high"}
 
 
-def test_declared_excitation_is_the_same_at_every_line():
+def test_declared_excitation_follows_the_mains_unless_fixed():
     # a declared 1.5 V across the 5-turn base winding: 0.3 V per turn, so 0.45 V across the 1.5-turn feedback winding
+    # at nominal line; taken as following the mains (harsher reading), so -10 % / +10 % at low and high line
     record = load_test_record("selfosc-psu")
     found = winding_voltages(record, magnetic(record, "T2"))
-    assert [volts(v) for v in found["upper base"].values()] == pytest.approx([1.5, 1.5, 1.5])
-    assert volts(found["current feedback"]["high"]) == pytest.approx(0.45)
+    assert [volts(v) for v in found["upper base"].values()] == pytest.approx([1.35, 1.5, 1.65])
+    assert volts(found["current feedback"]["nominal"]) == pytest.approx(0.45)
+    assert volts(found["current feedback"]["high"]) == pytest.approx(0.495)
     # the demo's gate-drive transformer: 12 V declared across its primary, 1 : 1 to each gate winding
     record = load_demo("solar-bank-charger", "C")
-    found = winding_voltages(record, magnetic(record, "T2"))
+    t2 = magnetic(record, "T2")
+    found = winding_voltages(record, t2)
+    assert [volts(v) for v in found["upper gate"].values()] == pytest.approx([10.8, 12, 13.2])
+    # supply: fixed keeps the one declared figure at every line
+    fixed = t2.model_copy(update={"excitation": t2.excitation.model_copy(update={"supply": "fixed"})})
+    found = winding_voltages(record, fixed)
     assert [volts(v) for v in found["upper gate"].values()] == pytest.approx([12, 12, 12])
 
 

@@ -70,9 +70,10 @@ def test_switching_loss_from_energy_per_cycle():
 
 
 def test_conduction_and_switching_add_up():
-    # 1.2 V x 0.6 A = 0.72 W conduction; 1/2 x 300 V x 1.5 A x 0.1 us x 50 kHz = 1.125 W switching (Mohan et al., from memory)
+    # A MOSFET conducts as a resistor: I_rms^2 R_DS(on),hot = 0.6^2 A^2 x 2 ohm = 0.72 W conduction;
+    # 1/2 x 300 V x 1.5 A x 0.1 us x 50 kHz = 1.125 W switching (Mohan et al., from memory)
     switching = {"frequency": "50 kHz", "voltage": "300 V", "current": "1.5 A", "crossover_time": "0.1 us"}
-    record = unit([device(forward_voltage="1.2 V", current="0.6 A", heatsink="HS1", pad="1.5 K/W", switching=switching)], [sink()])
+    record = unit([device(rds_on_hot="2 ohm", current_rms="0.6 A", heatsink="HS1", pad="1.5 K/W", switching=switching)], [sink()])
     finding = by(thermal.run(record), "THERM-JUNCTION", "Q1")
     losses = {m.label: float(m.quantity.to("W").magnitude) for m in finding.extra if m.label.endswith("loss")}
     assert losses == pytest.approx({"conduction loss": 0.72, "switching loss": 1.125, "loss": 1.845})

@@ -79,15 +79,17 @@ def test_bench_supply_soak_agrees_with_the_estimate():
     assert finding.verdict is Verdict.PASS
 
 
-def test_charger_rev_b_switch_sink_ran_hotter_than_estimated():
-    # HS1 carries Q1 and Q2, each 0.9 V x 0.9 A + 1/2 x 330 V x 2.0 A x 0.06 us x 65 kHz = 0.81 + 1.287 = 2.097 W
-    # (conduction plus crossover switching loss, Mohan et al.): at the 22 degC of the run, 22 + 4.194 W x 3.5 K/W =
-    # 36.68 degC; a 20 % allowance on the 14.68 K rise (common practice, from memory) gives 39.62 degC, and 63 degC was
-    # measured: rev B's saturating T1 drove the switch current up.
-    finding = soak(load_demo("solar-bank-charger", "B"), "HS1")
-    assert degc(finding.values[1].quantity) == pytest.approx(22 + 2 * (0.9 * 0.9 + 0.5 * 330 * 2.0 * 0.06e-6 * 65e3) * 3.5)
-    assert degc(finding.limit.quantity) == pytest.approx(39.62, abs=0.01)
-    assert finding.verdict is Verdict.MARGINAL
+def test_charger_rev_b_switch_sink_reading_cannot_be_judged_without_the_mosfet_losses():
+    # Rev B declares Q1 and Q2 with a forward voltage but no R_DS(on) or RMS current: a MOSFET conducts as a
+    # resistor (I_rms^2 R_DS(on); Mohan et al., from memory), so HS1's estimate is unknown and the 63 degC reading of
+    # the 25-minute run cannot be compared with it: not assessed, never a pass.
+    record = load_demo("solar-bank-charger", "B")
+    finding = soak(record, "HS1")
+    assert finding.verdict is Verdict.NOT_ASSESSED
+    assert "estimate" in finding.explanation
+    junctions = {f.subject: f for f in thermal.run(record) if f.code == "THERM-JUNCTION" and f.subject in ("Q1", "Q2")}
+    assert {ref: f.verdict for ref, f in junctions.items()} == {"Q1": Verdict.NOT_ASSESSED, "Q2": Verdict.NOT_ASSESSED}
+    assert all("rds_on" in f.explanation and "current_rms" in f.explanation for f in junctions.values())
 
 
 def test_charger_switches_have_pads_on_the_earthed_sink():

@@ -32,7 +32,7 @@ def texts(root) -> list[str]:
 
 @pytest.fixture(scope="module")
 def demo_svg() -> str:
-    return charge_chart_svg(load_demo("solar-bank-charger", "C"))
+    return chart(load_demo("solar-bank-charger", "C"))
 
 
 def test_chart_is_well_formed_svg_with_a_title(demo_svg):
@@ -64,12 +64,12 @@ def test_ids_are_unique_and_belong_to_the_chart(demo_svg):
     ids = re.findall(r'\bid="([^"]+)"', demo_svg)
     assert ids and len(ids) == len(set(ids))
     assert all(i.startswith("charge-solar-bank-charger-rev-C-") for i in ids)
-    other = re.findall(r'\bid="([^"]+)"', charge_chart_svg(load_demo("solar-bank-charger", "B")))
+    other = re.findall(r'\bid="([^"]+)"', chart(load_demo("solar-bank-charger", "B")))
     assert not set(ids) & set(other)
 
 
 def test_output_is_deterministic(demo_svg):
-    assert charge_chart_svg(load_demo("solar-bank-charger", "C")) == demo_svg
+    assert chart(load_demo("solar-bank-charger", "C")) == demo_svg
 
 
 def test_curves_stay_inside_the_plot_area(demo_svg):
@@ -88,7 +88,8 @@ def test_tick_labels_cover_the_data():
 
 
 def test_figures_for_a_charger_and_for_other_builds():
-    [figure] = figures(load_demo("solar-bank-charger", "C"))
+    record = load_demo("solar-bank-charger", "C")
+    [figure] = figures(record, charge_curve(record))
     assert (figure.key, figure.section) == ("charge-curve", "charge")
     assert figure.svg.startswith("<?xml")
     assert figures(load_demo("bench-psu-13v8"), None) == []
@@ -138,6 +139,6 @@ def test_writer_escapes_text_and_rounds_numbers():
 def test_a_long_heading_shrinks_to_fit_the_chart():
     long = charger(chemistry="flooded", capacity="110 Ah", charge_current="16.5 A", output={"current": "20 A"},
                    absorption_voltage="29.1 V", float_voltage="26.9 V", temperature="12.5 degC")
-    heading = next(parsed(charge_chart_svg(long)).iter(f"{SVG}text"))
-    demo_heading = next(parsed(charge_chart_svg(load_demo("solar-bank-charger", "C"))).iter(f"{SVG}text"))
+    heading = next(parsed(chart(long)).iter(f"{SVG}text"))
+    demo_heading = next(parsed(chart(load_demo("solar-bank-charger", "C"))).iter(f"{SVG}text"))
     assert float(heading.get("font-size")) < float(demo_heading.get("font-size")) <= 15
