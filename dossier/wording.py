@@ -399,3 +399,10 @@ def help_lines(problems) -> list[str]:
     """'help with units and values: docs/writing-records.md#units-and-values', once per kind met, in a stable order."""
     codes = {problem.code for problem in problems}
     return [f"help with {kind}: {where}" for kind, (where, kinds) in HELP_SECTIONS.items() if codes & set(kinds)]
+
+
+def fix_text(decision) -> str:
+    """Beside a finding the sign-off sent back: 'to fix' with what must change; '' for any other decision."""
+    if decision is None or decision.decision.value != "fix":
+        return ""
+    return decision.reason or "to fix"

@@ -21,7 +21,7 @@ from dossier.collect.extras import is_active_svg
 from dossier.pages.hazards import hazards
 from dossier.reading.yaml_source import dotted
 from dossier.wording import (
-    CLEARANCE_WORDS, accepted_text, decision_text, signoff_line,
+    CLEARANCE_WORDS, accepted_text, decision_text, fix_text, signoff_line,
     comparison_text, finding_label, finding_state_text, margin_text, measure_text, source_text, verdict_counts_text,
 )
 
@@ -42,6 +42,7 @@ class FindingView:
     sources: list[str]
     anchor: str = ""
     accepted: str = ""  # the sign-off's acceptance of this finding, in words, or ''
+    to_fix: str = ""  # the sign-off's demand that this finding be fixed, in words, or ''
 
 
 @dataclass(frozen=True)
@@ -277,6 +278,7 @@ def _finding_view(finding: Finding, revision: Revision, calcs_page: str, anchors
         sources=[source_text(source) for source in finding.sources],
         anchor=f"{calcs_page}#{unique(slugify(label, '-'), anchors)}",
         accepted=accepted_text(revision.signoff.accepted(finding), revision.signoff),
+        to_fix=fix_text(revision.signoff.decided(finding)),
     )
 
 

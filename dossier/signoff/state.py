@@ -48,9 +48,14 @@ class SignoffState:
     signoffs: tuple[Judged, ...]
     deciding: Judged | None  # the newest sign-off that is not stale; it sets the state
 
+    def decided(self, finding: Finding) -> Decision | None:
+        """The deciding sign-off's decision on a finding (accept or fix), if it made one."""
+        decision = self.deciding.decision_for(finding) if self.deciding else None
+        return decision if decision is not None and decision.decision is not None else None
+
     def accepted(self, finding: Finding) -> Decision | None:
         """The deciding sign-off's acceptance of a finding, if it accepted it."""
-        decision = self.deciding.decision_for(finding) if self.deciding else None
+        decision = self.decided(finding)
         return decision if decision is not None and decision.decision is Choice.ACCEPT else None
 
     @property

@@ -262,3 +262,10 @@ def test_the_sign_off_filter_separates_its_links_like_the_status_filter(tree):
     line = next(text for text in index.splitlines() if text.startswith("By sign-off:"))
     assert "](signoff/not-reviewed.md) · [stale (1)](signoff/stale.md) · [" in line
     assert ")·" not in line
+
+
+def test_a_finding_the_sign_off_sent_back_says_to_fix_beside_it(tree):
+    # demo: solar-bank-charger rev B has a sign-off requesting changes, with 'fix' on its open findings
+    overview = page(tree, "builds/solar-bank-charger/rev-B/index.md")
+    verdicts = overview.split("## Verdicts")[1].split("| Calc |")[0]
+    assert "**to fix**: " in verdicts and "| open |" not in verdicts

@@ -171,9 +171,10 @@ def _oversize_finding(record, fuse):
     wiring = declared_wiring(record.protection.wiring)
     least = input_current(record, LEAST)
     if least is None and not wiring:
-        return finding(code="PROT-FUSE-OVERSIZE", subject=fuse.ref, title="Mains fuse not too large: not assessed", verdict=Verdict.INFO,
+        return finding(code="PROT-FUSE-OVERSIZE", subject=fuse.ref, title="Mains fuse not too large: not assessed",
+                       verdict=Verdict.NOT_ASSESSED, guards_hazard=True,  # mains protection that cannot be judged blocks power-up
                        values=(measure("declared rating", fuse.rating.to("A")),), explanation=words.OVERSIZE_NOT_ASSESSED,
-                       keys=(("protection", "fuse", "rating"),), sources=(OVERSIZE_WIRING,))
+                       keys=(("protection", "fuse", "rating"), ("protection", "wiring"), ("output",)), sources=(OVERSIZE_WIRING,))
     if wiring:
         part, rated = min(wiring.items(), key=lambda item: item[1])
         if fuse.rating > rated:

@@ -228,3 +228,11 @@ def test_the_json_carries_the_measures_behind_the_verdicts():
     for label in ("crest factor", "power factor", "efficiency", "air at the fuse", "ambient re-rating",
                   "pulse-cycle share", "fuse melting I^2 t at the pulse's duration", "NTC resistance at switch-on"):
         assert label in labels
+
+
+def test_an_oversize_check_that_cannot_be_made_blocks_power_up():
+    # docs/verdicts.md: mains protection that cannot be assessed is never information; it blocks power-up
+    record = record_with(output=None)
+    oversize = found(record)["PROT-FUSE-OVERSIZE"]
+    assert oversize.verdict is Verdict.NOT_ASSESSED and oversize.blocks_power_up
+    assert ("protection", "wiring") in oversize.keys
