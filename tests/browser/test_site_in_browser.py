@@ -90,3 +90,30 @@ def test_attached_photos_show_and_datasheets_link(demo_site, watched_page):
     sheet = watch.page.locator("article a[href$='t1-winding-sheet.pdf']")
     assert sheet.count() == 1
     assert (demo_site / "builds" / "solar-bank-charger" / sheet.get_attribute("href")).read_bytes().startswith(b"%PDF")
+
+
+def test_the_archive_table_fits_its_column_at_desktop_width(demo_site, watched_page):
+    # before: the table ran about 20 px past its box and the build column wrapped one word per line
+    watch = watched_page(LOCAL_FILE)
+    watch.page.set_viewport_size({"width": 1280, "height": 900})
+    watch.page.goto((demo_site / "index.html").as_uri(), wait_until="load")
+    fits = watch.page.evaluate("""() => [...document.querySelectorAll('article table')].map(t => {
+        const wrap = t.closest('.md-typeset__scrollwrap') || t.parentElement;
+        return wrap.scrollWidth <= wrap.clientWidth + 1; })""")
+    assert fits and all(fits)
+
+
+def test_verdicts_read_as_a_mark_and_a_word_in_colour(demo_site, watched_page):
+    watch = watched_page(LOCAL_FILE)
+    watch.page.goto((demo_site / "builds" / "solar-bank-charger" / "rev-A" / "index.html").as_uri(), wait_until="load")
+    badge = watch.page.locator(".dossier-verdict-fail").first
+    assert badge.inner_text().strip() == "\u2717 fail"
+    colour = badge.evaluate("b => getComputedStyle(b).color")
+    assert colour != watch.page.locator("article p").first.evaluate("p => getComputedStyle(p).color")
+
+
+def test_the_checklist_page_shows_one_caution(demo_site, watched_page):
+    watch = watched_page(LOCAL_FILE)
+    watch.page.goto((demo_site / "builds" / "solar-bank-charger" / "checklist.html").as_uri(), wait_until="load")
+    titles = watch.page.locator("article .admonition-title").all_inner_texts()
+    assert [t.strip().lower() for t in titles].count("caution") == 1
