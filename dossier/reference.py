@@ -69,7 +69,7 @@ def _required_text(key: str, prop: dict, required: set) -> str:
 
 def type_text(prop: dict) -> str:
     if "x-quantity" in prop:
-        return prop["x-quantity"]
+        return prop["x-quantity"] + (f"; {prop['x-range']}" if "x-range" in prop else "")
     if "$ref" in prop:
         name = prop["$ref"].rsplit("/", 1)[-1]
         return f"[{name}](#{name.lower()})"
@@ -89,7 +89,20 @@ def _basic_type(prop: dict) -> str:
         return "date (YYYY-MM-DD)"
     if kind == "string" and "pattern" in prop:
         return f"text matching `{prop['pattern']}`"
-    return {"string": "text", "integer": "whole number", "number": "number", "boolean": "true or false", "object": "mapping"}.get(kind, kind)
+    text = {"string": "text", "integer": "whole number", "number": "number", "boolean": "true or false", "object": "mapping"}.get(kind, kind)
+    return text + _bounds_text(prop)
+
+
+def _bounds_text(prop: dict) -> str:
+    """'; at least 1 and at most 10000' from a JSON Schema number's bounds, or ''."""
+    low = prop.get("minimum", prop.get("exclusiveMinimum"))
+    high = prop.get("maximum", prop.get("exclusiveMaximum"))
+    parts = []
+    if low is not None:
+        parts.append(f"{'above' if 'exclusiveMinimum' in prop else 'at least'} {low:g}")
+    if high is not None:
+        parts.append(f"{'below' if 'exclusiveMaximum' in prop else 'at most'} {high:g}")
+    return "; " + " and ".join(parts) if parts else ""
 
 
 def _cell(text: str) -> str:
