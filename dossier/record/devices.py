@@ -88,6 +88,8 @@ class Heatsink(Section):
     rth_sa: ThermalResistance = Field(description="Sink-to-air thermal resistance.")
     touchable: bool = Field(True, description="It can be touched from outside the enclosure.")
     earthed: bool = Field(False, description="It is bonded to protective earth.")
+    outside: bool = Field(False, description="It stands outside the enclosure in the room's air (e.g. fins on the back panel); "
+                                             "when false it is taken inside, in the enclosure's warmer air (protection.internal_ambient).")
 
 
 class Margins(Section):

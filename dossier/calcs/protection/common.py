@@ -5,7 +5,6 @@ from __future__ import annotations
 import dataclasses
 
 from dossier.calcs.shared.finding_kit import maker
-from dossier.units import Q_
 from dossier.citations import EDN_FUSE_CHECKLIST, FUSEOLOGY, IEC_60050_131, IEC_60127_1
 from dossier.findings import Measure, Source, Verdict, common_practice
 
@@ -36,25 +35,12 @@ OTHER_POWER_FACTORS = common_practice(
     "power factor of a mains transformer feeding a capacitor-input rectifier 0.55 to 0.8; of an input with no bulk capacitor 0.7 to 1 (from memory)"
 )
 PLAUSIBLE_EFFICIENCY = common_practice("efficiency of a small mains unit between 60 % (small linear supply) and 90 % (switch-mode) (from memory)")
-INTERNAL_RISE = common_practice("air inside a closed enclosure about 20 K above the room at full load, when not declared (from memory)")
 NTC_GUIDES = common_practice("NTC inrush-limiter makers' selection guides: energy 1/2 C V_peak^2 against the rated energy; residual resistance at running current")
 RC_CHARGE = common_practice("charging a capacitor through a resistance: i = (V / R) e^(-t / RC) (circuit theory)")
 
 
-DEFAULT_INTERNAL_RISE = Q_(20, "K")
-
-
 def measure(label: str, quantity) -> Measure:
     return Measure(label, quantity)
-
-
-def internal_ambient(record):
-    """(air temperature inside the enclosure, assumed?): declared, or the room's highest plus 20 K."""
-    declared = record.protection.internal_ambient
-    if declared is not None:
-        return declared, False
-    room = record.environment.max_ambient.to("degC")
-    return Q_(room.magnitude + DEFAULT_INTERNAL_RISE.magnitude, "degC"), True
 
 
 def lowered(verdict: Verdict, missing: list[str]) -> Verdict:

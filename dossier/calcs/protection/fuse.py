@@ -5,9 +5,10 @@ from __future__ import annotations
 from dataclasses import dataclass
 
 from dossier.calcs.protection import words
+from dossier.calcs.shared.enclosure_air import INTERNAL_RISE, internal_ambient
 from dossier.calcs.protection.common import (
-    CAPACITOR_INPUT_POWER_FACTOR, FUSEOLOGY_VOLTAGE, HALF_SINE_PULSES, IEC_60127_SERIES, INTERNAL_RISE, OTHER_POWER_FACTORS,
-    PLAUSIBLE_EFFICIENCY, POWER_FACTOR, RUNNING_SOURCES, finding, internal_ambient, measure, percent,
+    CAPACITOR_INPUT_POWER_FACTOR, FUSEOLOGY_VOLTAGE, HALF_SINE_PULSES, IEC_60127_SERIES, OTHER_POWER_FACTORS,
+    PLAUSIBLE_EFFICIENCY, POWER_FACTOR, RUNNING_SOURCES, finding, measure, percent,
 )
 from dossier.calcs.protection.inrush import minimum_melting_i2t, pulse_fits
 from dossier.calcs.protection.input import LEAST, has_inrush, input_current

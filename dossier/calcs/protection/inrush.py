@@ -8,8 +8,9 @@ from dossier.calcs.shared.mains_lines import high_line_peak
 import math
 
 from dossier.calcs.protection import words
+from dossier.calcs.shared.enclosure_air import INTERNAL_RISE, internal_ambient
 from dossier.calcs.protection.common import (
-    FUSEOLOGY_PULSE_CYCLES, FUSEOLOGY_WAVESHAPES, INTERNAL_RISE, RC_CHARGE, finding, internal_ambient, lowered, measure,
+    FUSEOLOGY_PULSE_CYCLES, FUSEOLOGY_WAVESHAPES, RC_CHARGE, finding, lowered, measure,
     percent,
 )
 from dossier.calcs.protection.input import CAPACITOR_INPUT, input_topology

@@ -6,7 +6,8 @@ import dataclasses
 import math
 
 from dossier.calcs.protection import words
-from dossier.calcs.protection.common import RUNNING_SOURCES, finding, internal_ambient, measure
+from dossier.calcs.shared.enclosure_air import internal_ambient
+from dossier.calcs.protection.common import RUNNING_SOURCES, finding, measure
 from dossier.citations import ABYC_E11, IEC_60335_1
 from dossier.findings import Verdict, common_practice, judge
 from dossier.standards.fuses import minimum_rating

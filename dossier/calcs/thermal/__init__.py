@@ -5,6 +5,7 @@ from __future__ import annotations
 from dataclasses import replace
 
 from dossier.calcs.thermal import path, tab, words
+from dossier.calcs.thermal.air import air_of
 from dossier.calcs.shared.finding_kit import banded, maker, not_assessed
 from dossier.calcs.shared.margins import margin
 from dossier.calcs.thermal.soak import soak_findings
@@ -43,7 +44,9 @@ def run(record):
 def _junction(record, index: int, device) -> list[Finding]:
     key = ("devices", "semiconductors", index)
     title = f"{device.ref} junction temperature"
-    ambient = record.environment.max_ambient
+    heatsink = path.heatsink_named(record, device.heatsink)
+    air = air_of(record, heatsink, _sink_index(record, heatsink))
+    ambient = air.temperature
     junction = path.junction_of(record, device, ambient)
     if junction is None or device.max_junction is None:
         why = words.JUNCTION_MISSING[_junction_missing(device)]
@@ -54,13 +57,13 @@ def _junction(record, index: int, device) -> list[Finding]:
     verdict = banded(junction.temperature, limit, device.max_junction, "<=")
     return [finding(
         code="THERM-JUNCTION", subject=device.ref, title=title, verdict=verdict,
-        values=(Measure(f"junction at {fmt(ambient)} ambient", junction.temperature),),
+        values=(Measure(f"junction at {fmt(ambient)} {words.air_label(air)}", junction.temperature),),
         limit=Measure(f"max junction {fmt(device.max_junction)} less {fmt(allowance.value)}", limit), relation="<=",
         method=f"{junction.formula}; {junction.loss.formula}",
-        explanation=words.junction(device, junction, verdict),
-        keys=(key, ("environment", "max_ambient")),
-        sources=_junction_sources(junction, allowance.source),
-        extra=_loss_measures(junction) + (Measure("ambient", ambient), Measure("max junction", device.max_junction),
+        explanation=f"{words.junction(device, junction, verdict)} {words.air(air)}",
+        keys=(key, *air.keys),
+        sources=_junction_sources(junction, allowance.source) + air.sources,
+        extra=_loss_measures(junction) + (Measure(words.air_label(air), ambient), Measure("max junction", device.max_junction),
                                           Measure("junction allowance", allowance.value)),
     )]
 
@@ -93,23 +96,30 @@ def _loss_measures(junction) -> tuple[Measure, ...]:
 
 def _heatsink(record, index: int, heatsink) -> list[Finding]:
     losses = path.sink_losses(record, heatsink)
-    ambient = record.environment.max_ambient
+    air = air_of(record, heatsink, index)
+    ambient = air.temperature
     temperature = path.sink_temperature(ambient, heatsink, losses)
     common = dict(
         code="THERM-HEATSINK", subject=heatsink.ref, title=f"{heatsink.ref} temperature",
-        values=(Measure(f"heatsink at {fmt(ambient)} ambient", temperature),),
+        values=(Measure(f"heatsink at {fmt(ambient)} {words.air_label(air)}", temperature),),
         method="T_sink = T_a + R_sa x sum(P of the devices on it)",
-        keys=(("devices", "heatsinks", index, "rth_sa"), ("environment", "max_ambient")),
+        keys=(("devices", "heatsinks", index, "rth_sa"), *air.keys),
         extra=(Measure("total loss", path.total_loss(losses)), Measure("sink-to-air resistance", heatsink.rth_sa),
-               Measure("ambient", ambient)),
+               Measure(words.air_label(air), ambient)),
     )
     text = words.sink(heatsink, losses)
     if not heatsink.touchable:
-        return [finding(**common, verdict=Verdict.INFO, explanation=text + words.UNTOUCHABLE, sources=(MOHAN_POWER_ELECTRONICS,))]
+        return [finding(**common, verdict=Verdict.INFO, explanation=f"{text}{words.UNTOUCHABLE} {words.air(air)}",
+                        sources=(MOHAN_POWER_ELECTRONICS,) + air.sources)]
     touch = margin(record, "touch_temperature")
     verdict = Verdict.FAIL if temperature.to("K") > touch.value.to("K") else Verdict.PASS
     return [finding(**common, verdict=verdict, limit=Measure("touch limit", touch.value), relation="<=",
-                    explanation=text + words.touch(verdict, touch.from_record), sources=(MOHAN_POWER_ELECTRONICS, touch.source))]
+                    explanation=f"{text}{words.touch(verdict, touch.from_record)} {words.air(air)}",
+                    sources=(MOHAN_POWER_ELECTRONICS, touch.source) + air.sources)]
+
+
+def _sink_index(record, heatsink) -> int | None:
+    return record.devices.heatsinks.index(heatsink) if heatsink is not None else None
 
 
 # --- live tabs and their insulation -------------------------------------------------------------
@@ -142,7 +152,8 @@ CALC = Calc(
     summary=(
         "Estimates each power device's loss (conduction from its current and forward or saturation voltage, a MOSFET's from I_rms^2 x its hot R_DS(on), plus "
         "switching where the record gives the data) and its junction temperature through junction-to-case, "
-        "case-to-sink and sink-to-air resistances at the record's highest ambient, with devices sharing a heatsink. "
+        "case-to-sink and sink-to-air resistances in the air the part sits in (the enclosure's, declared or the room's highest "
+        "plus 20 K; the room's for a heatsink declared outside), with devices sharing a heatsink. "
         "Judges the margin to the maximum junction temperature, touchable heatsinks against a touch limit, live "
         "tabs on heatsinks for the grade of insulation the sink needs, and compares soak-test readings with the estimate."
     ),

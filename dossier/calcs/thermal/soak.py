@@ -5,6 +5,7 @@ from __future__ import annotations
 from dataclasses import dataclass
 
 from dossier.calcs.thermal import path, words
+from dossier.calcs.thermal.air import air_during
 from dossier.calcs.shared.finding_kit import maker, not_assessed
 from dossier.calcs.shared.margins import margin
 from dossier.findings import Finding, Measure, Verdict, common_practice
@@ -38,7 +39,7 @@ def _reading(record, index: int, reading) -> list[Finding]:
     key = ("devices", "soak", index)
     device = _device(record, reading.ref)
     heatsink = path.heatsink_named(record, reading.ref)
-    estimate = _estimate(record, device, heatsink, reading.ambient)
+    estimate = _estimate(record, device, heatsink, air_during(record, reading.ambient, heatsink or _sink_of(record, device)))
     title = f"{reading.ref} soak reading against the estimate"
     if estimate is None:
         return [not_assessed(NAME, "THERM-SOAK", reading.ref, title, words.SOAK_NO_ESTIMATE, (key,), (SOAK_PRACTICE,))]
@@ -49,13 +50,18 @@ def _reading(record, index: int, reading) -> list[Finding]:
         code="THERM-SOAK", subject=reading.ref, title=title, verdict=verdict,
         values=(Measure(f"measured after {fmt(reading.duration)} at {fmt(reading.ambient)}", reading.temperature), Measure("estimate at that ambient", estimate)),
         limit=Measure(f"estimate plus {RISE_TOLERANCE:.0%} of its rise", allowed), relation="<=",
-        method="rise = T_measured - T_ambient, against the estimated rise; projected = T_measured + (T_a,max - T_ambient)",
+        method=("rise = T_measured - T_ambient, against the estimated rise (estimated in the room air of the run plus the "
+                "enclosure's rise for a part inside); projected = T_measured + (T_a,max - T_ambient)"),
         explanation=words.soak(reading, estimate, projection, verdict, reading.duration.to("h") < SETTLING),
         keys=(key, ("environment", "max_ambient")),
         sources=(SOAK_PRACTICE,),
         extra=_projection_measures(projection) + (Measure("ambient during the run", reading.ambient), Measure("run", reading.duration),
                                                   Measure("rise tolerance", Q_(RISE_TOLERANCE * 100, "percent"))),
     )]
+
+
+def _sink_of(record, device):
+    return path.heatsink_named(record, device.heatsink) if device is not None else None
 
 
 def _device(record, ref: str):

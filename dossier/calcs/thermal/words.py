@@ -36,6 +36,24 @@ def rds_on_assumed(rise) -> str:
             "maker's curve to make it exact.")
 
 
+# --- the air a part sits in -----------------------------------------------------------------------
+
+def air_label(air) -> str:
+    return "enclosure air" if air.inside else "room air"
+
+
+def air(air) -> str:
+    if not air.inside:
+        return f"Worked out in the room's air at {fmt(air.temperature)}: the heatsink is declared outside the enclosure."
+    text = f"Worked out in the enclosure's air at {fmt(air.temperature)}"
+    if air.assumed:
+        text += (", taken as the room's highest plus 20 K (the harsher reading; from memory): declare "
+                 "protection.internal_ambient to make it exact")
+    else:
+        text += " (protection.internal_ambient)"
+    return text + "; a heatsink that stands outside in the room's air can be declared with outside: true."
+
+
 # --- heatsinks -------------------------------------------------------------------------------------
 
 def sink(heatsink, losses) -> str:

@@ -13,11 +13,14 @@ from dossier.record.model import Record
 BASE = {"id": "unit", "title": "Test unit", "revision": "A", "date": "2026-01-01", "authors": ["Tester"], "status": "design"}
 
 
-def unit(semiconductors, heatsinks=(), ambient="40 degC", margins=None) -> Record:
+def unit(semiconductors, heatsinks=(), ambient="40 degC", margins=None, inside="same") -> Record:
+    """A record whose enclosure air is the room's unless `inside` says otherwise (None: not declared), so the
+    heat-path tests check the path alone; tests/calcs/thermal/test_air.py checks the air."""
     devices = {"semiconductors": list(semiconductors), "heatsinks": list(heatsinks)}
     if margins:
         devices["margins"] = margins
-    return Record.model_validate({**BASE, "environment": {"max_ambient": ambient}, "devices": devices})
+    protection = {"internal_ambient": ambient if inside == "same" else inside}
+    return Record.model_validate({**BASE, "environment": {"max_ambient": ambient}, "devices": devices, "protection": protection})
 
 
 def device(ref="Q1", **fields) -> dict:
