@@ -2,10 +2,12 @@
 
 from __future__ import annotations
 
+from typing import Literal
+
 from pydantic import Field, ValidationInfo, field_validator, model_validator
 from pydantic_core import PydanticCustomError
 
-from dossier.record.fields import Charge, Current, Fraction, Power, Section, Share, Temperature, Voltage, VoltagePerKelvin
+from dossier.record.fields import Charge, Current, Duration, Fraction, Power, Section, Share, Temperature, Voltage, VoltagePerKelvin
 from dossier.standards.battery import REFERENCE_TEMPERATURE
 from dossier.standards.chemistries import known_keys
 from dossier.units import Q_, fmt
@@ -34,6 +36,15 @@ class Battery(Section):
     highest_temperature: Temperature | None = Field(None, description="Warmest battery temperature expected while charging, if it varies.")
     compensation: VoltagePerKelvin | None = Field(
         None, description="Temperature compensation of the setpoints for the whole battery, e.g. -18 mV/K; leave out if there is none."
+    )
+    absorption_timer: Duration | None = Field(
+        None, description="Longest time the charger stays in absorption before it drops to float or stops, e.g. 8 h; leave out if it has no timer."
+    )
+    high_temperature_cutoff: Temperature | None = Field(
+        None, description="Battery temperature above which the charger stops charging, e.g. 45 degC; leave out if it has none."
+    )
+    temperature_sensor: Literal["battery", "charger", "none"] | None = Field(
+        None, description="Where the temperature sensor for compensation and cut-off sits: battery (on the battery), charger (inside the charger) or none."
     )
     start_state_of_charge: Fraction = Field(
         default_factory=lambda: Q_(20, "percent"), description="State of charge the time-to-full estimate starts from; default 20 %."

@@ -9,6 +9,7 @@ from __future__ import annotations
 from dataclasses import dataclass
 
 from dossier.calcs.charge.curve import charge_current, charge_curve, compensated
+from dossier.calcs.charge.safeguards import cutoff_finding, timer_finding
 from dossier.calcs.charge.temperature import compensation_finding, range_finding
 from dossier.calcs.charge import words
 from dossier.calcs.charge.windows import judge_window, tolerance_band
@@ -72,7 +73,8 @@ def run(record) -> CalcResult:
     curve = charge_curve(record)
     found = [setpoint_finding(charger), float_finding(charger), compensation_finding(charger),
              range_finding(charger, record.environment.max_ambient),
-             current_finding(charger), rating_finding(charger), time_finding(record, curve)]
+             current_finding(charger), rating_finding(charger), timer_finding(charger), cutoff_finding(charger),
+             time_finding(record, curve)]
     return CalcResult([finding for finding in found if finding is not None], {CURVE: curve})
 
 
@@ -266,6 +268,8 @@ CODES = {
     "CHG-TEMPERATURE": "Coldest and warmest battery temperature while charging against the chemistry's charging range; above it fails (a valve-regulated battery charged hot can run away thermally).",
     "CHG-CURRENT": "Constant-current limit against the battery's capacity (the chemistry's C-rate range).",
     "CHG-RATING": "Constant-current limit set for the battery against the charger's current rating.",
+    "CHG-TIMER": "An absorption timer ends absorption when a failed cell keeps the current from tapering; none declared is marginal.",
+    "CHG-HOT-CUTOFF": "A high-temperature cut-off read by a sensor on the battery; a valve-regulated battery without one fails (thermal runaway).",
     "CHG-TIME": "Estimated time to full from a CC-then-CV model (information).",
 }
 
@@ -276,7 +280,8 @@ CALC = Calc(
     summary=(
         "For a charger: the absorption and float setpoints against the window of the battery's chemistry at the "
         "expected battery temperature, the temperature compensation, the constant-current limit against the "
-        "battery's capacity and the charger's rating, and an estimated time to full from a CC-then-CV model."
+        "battery's capacity and the charger's rating, the charger's safeguards (an absorption timer, a high-temperature "
+        "cut-off read on the battery), and an estimated time to full from a CC-then-CV model."
     ),
     codes=CODES,
     order=60,

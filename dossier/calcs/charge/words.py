@@ -231,3 +231,43 @@ def time_text(cc_hours: float, current_a: float, cv_onset_percent: float, taper:
     return (f"About {_hours(cc_hours)} at a constant {current_a:.3g} A to {cv_onset_percent:g} % charge, {taper}; "
             f"charge efficiency taken as {efficiency_percent:g} %. An estimate from a simple model, not a measurement: "
             "an old, cold or sulphated battery takes longer.")
+
+
+# --- safeguards: absorption timer, high-temperature cut-off ------------------------------------------
+
+TIMER_TITLE = "Absorption timer"
+TIMER_METHOD = "a declared absorption timer passes; none is marginal"
+NO_TIMER = ("The record declares no absorption timer (output.battery.absorption_timer). A failed cell keeps the current "
+            "from tapering, so the charger holds the battery in absorption indefinitely, gassing and drying the good cells "
+            "and heating the battery. Fit a timer that ends absorption (to float or off), and declare it.")
+
+
+def timer_set(timer) -> str:
+    return f"Absorption ends after at most {fmt(timer.to('h'))}, so a failed cell cannot hold the charger in absorption."
+
+
+def cutoff_title(label: str) -> str:
+    return f"High-temperature cut-off for the {label} battery"
+
+
+CUTOFF_METHOD = ("a cut-off at or below the top of the chemistry's charging range, read by a sensor on the battery; for a "
+                 "valve-regulated battery anything less fails, for others it is marginal")
+CUTOFF_PROBLEMS = {
+    "no-cutoff": "the record declares no high-temperature cut-off (output.battery.high_temperature_cutoff)",
+    "cutoff-too-high": "the cut-off is above the top of the charging range",
+    "sensor-not-declared": "the record does not say where the temperature sensor sits (output.battery.temperature_sensor), so it is taken as not on the battery (the harsher reading)",
+    "sensor-charger": "the temperature sensor sits in the charger, where it reads the charger's air, not the battery",
+    "sensor-none": "the charger has no temperature sensor",
+}
+
+
+def cutoff_text(problems, valve_regulated: bool, ceiling) -> str:
+    if not problems:
+        return "Charging stops when the battery, read by a sensor on the battery, passes the cut-off."
+    listed = "; ".join(CUTOFF_PROBLEMS[p] for p in problems)
+    text = listed[0].upper() + listed[1:] + "."
+    top = f" (the charging range ends at {fmt(ceiling)})" if ceiling is not None else ""
+    if valve_regulated:
+        return text + (" A valve-regulated battery charged hot draws more current, which heats it further: thermal runaway, "
+                       f"with swelling, venting and fire. Put a sensor on the battery and stop charging above the range{top}.")
+    return text + f" A battery charged hot gasses, loses water and ages fast: stop charging above the range{top}."

@@ -11,7 +11,8 @@ from dossier.findings import Verdict
 from dossier.review import review
 from dossier.units import Q_
 
-CHARGE_CODES = {"CHG-SETPOINT", "CHG-FLOAT", "CHG-COMPENSATION", "CHG-TEMPERATURE", "CHG-CURRENT", "CHG-RATING", "CHG-TIME"}
+CHARGE_CODES = {"CHG-SETPOINT", "CHG-FLOAT", "CHG-COMPENSATION", "CHG-TEMPERATURE", "CHG-CURRENT", "CHG-RATING", "CHG-TIMER",
+                "CHG-HOT-CUTOFF", "CHG-TIME"}
 
 
 def test_the_calc_declares_every_code_it_can_emit():
@@ -24,7 +25,7 @@ def test_builds_that_are_not_chargers_get_no_charge_findings(build):
     assert run(load_demo(build)) == []
 
 
-@pytest.mark.parametrize("revision", ["A", "B", "C"])
+@pytest.mark.parametrize("revision", ["A", "B", "C", "D"])
 def test_demo_charger_runs_cleanly_through_review(revision, calcs):
     found = [f for f in review(load_demo("solar-bank-charger", revision), calcs) if f.calc == "charge"]
     assert {f.code for f in found} == CHARGE_CODES - {"CHG-RATING"}  # no separate limit declared
