@@ -5,6 +5,7 @@ from __future__ import annotations
 import dataclasses
 import math
 
+from dossier.calcs.protection.touch import LEAKAGE_LIMITS, LIMITS
 from dossier.checklist.items import Item, Origin, Phase, at_least, at_most
 from dossier.citations import DIN_EN_50678, EN_50106, IEC_60335_1, IET_INSERVICE_COP
 from dossier.findings import common_practice
@@ -72,6 +73,30 @@ def earth_continuity(record) -> list[Item]:
         expected=at_most(EARTH_LIMIT),
         sources=(IN_SERVICE_EARTH, EN_50106, IEC_60335_1_EARTH),
         note=f"Test current at least {fmt(EARTH_TEST_CURRENT)} (EN 50106:2008 Annex A.1); limit {fmt(EARTH_LIMIT)} plus the cord's earth conductor.",
+    )]
+
+
+def protective_conductor_current(record) -> list[Item]:
+    """Class I only: the current in the protective conductor, measured live by a qualified person."""
+    if record.mains is None or protective_class(record) != "I":
+        return []
+    limit = LIMITS["I"]
+    return [Item(
+        key="pe-current",
+        phase=Phase.POWER_UP,
+        origin=Origin.GENERAL,
+        title="Protective-conductor current (qualified person)",
+        steps=(
+            "CAUTION: this test is made with the unit live. It is for a qualified person with a leakage-current tester "
+            "made for it (the differential or direct method), never improvised. Never lift or break the earth to "
+            "measure: the current then flows through whoever touches the case or the output. With the unit running at "
+            "full load from its normal supply, read the current in the protective conductor with the mains switch on, "
+            "then with line and neutral reversed; enter the higher."
+        ),
+        unit="mA",
+        expected=at_most(limit),
+        sources=(LEAKAGE_LIMITS, DIN_EN_50678),
+        note=f"Limit {fmt(limit)} for a class I portable unit (IEC 60335-1 clause 16.2); your product standard may set another.",
     )]
 
 

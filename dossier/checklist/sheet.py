@@ -72,6 +72,7 @@ def all_items(record, review: Review) -> list[Item]:
         general.isolated_supply(),
         *output_items.minimum_load(record),
         general.series_lamp(record),
+        *general.protective_conductor_current(record),
         general.bleed_capacitors(record),
         *output_items.setting_items(record),
         *output_items.battery_lead_items(record),

@@ -12,6 +12,7 @@ from dossier.calcs.protection.fuse import FuseChoice, fuse_findings, recommended
 from dossier.calcs.protection.inrush import inrush_findings
 from dossier.calcs.protection.limiter import limiter_findings
 from dossier.calcs.protection.output import output_findings
+from dossier.calcs.protection.touch import touch_findings
 from dossier.plugins import Calc, CalcResult
 
 __all__ = ["CALC", "FUSE", "FUSE_RECOMMENDED", "FuseChoice", "recommended_fuse", "run"]
@@ -20,7 +21,7 @@ NAME = "protection"
 FUSE_RECOMMENDED = "PROT-FUSE-RECOMMENDED"
 FUSE = "fuse"  # product: the FuseChoice, for the checklist's mains-fuse item
 
-CHECKS = (inrush_findings, limiter_findings, earth_findings, output_findings)
+CHECKS = (inrush_findings, limiter_findings, earth_findings, touch_findings, output_findings)
 
 CODES = {
     "PROT-INPUT-CURRENT": "RMS and peak mains input current at low line, from output power, efficiency and power factor",
@@ -36,6 +37,7 @@ CODES = {
     "PROT-NTC-DISSIPATION": "running current and dissipation of the inrush limiter",
     "PROT-NTC-COOLDOWN": "switching on again before the NTC has cooled; a hot restart that melts the fuse is marginal",
     "PROT-EARTH-BOND": "how protective earth is bonded to a metal enclosure or earth terminal; a described bond is a claim to verify, never a pass",
+    "PROT-TOUCH-CURRENT": "touch current 2 pi f C V through the Y capacitors at high line against the limit for the protective class",
     "PROT-OUTPUT-FUSE": "a charger's battery-lead fuse: present, and large enough for the charge current",
     "PROT-OUTPUT-FUSE-DC": "battery-lead fuse rated for DC at the battery voltage, breaking the battery's short-circuit current; a glass fuse fails",
     "PROT-OUTPUT-LEAD": "battery-lead fuse no larger than the lead can carry",
@@ -59,7 +61,7 @@ CALC = Calc(
     summary=(
         "What blows, and whether it blows at the right time: mains input current at low line, the mains fuse's rating, "
         "speed, voltage rating and breaking capacity, the switch-on surge against the fuse's melting I^2 t, the inrush "
-        "limiter's energy and dissipation, the earth bond, and for a charger the battery-lead fuse and reverse polarity."
+        "limiter's energy and dissipation, the earth bond, the touch current through the Y capacitors, and for a charger the battery-lead fuse and reverse polarity."
     ),
     codes=CODES,
     order=20,

@@ -2,6 +2,7 @@
 
 from __future__ import annotations
 
+from dossier.findings import Verdict
 from dossier.units import fmt
 
 
@@ -321,3 +322,26 @@ MOVE_FUSE_NEARER = "The lead between the battery and the fuse is unprotected; mo
 NO_REVERSE_POLARITY = ("No reverse-polarity protection is declared. Battery leads get swapped; a reversed battery drives its full fault current "
                        "backwards through the output rectifier and capacitors, which can burst or burn. Add a series diode, a fuse with a reverse diode "
                        "across the output, or a relay or MOSFET that only closes with the right polarity.")
+
+
+# --- touch current through the Y capacitors ------------------------------------------------------
+
+def touch_missing(refs) -> str:
+    return (f"the capacitance of {', '.join(refs)} is not declared, so the current it lets flow to accessible parts cannot "
+            "be worked out; give devices.capacitors[].capacitance for each Y capacitor")
+
+
+def touch_text(klass, refs, verdict, wanted) -> str:
+    text = (f"{', '.join(refs)} from the mains to earth or across the barrier, taken in parallel across the whole high-line "
+            "voltage (the harsher reading: a broken earth or an open neutral puts them there).")
+    if klass is None:
+        text += (" The record does not say the unit is class I, so the class II limit of 0.25 mA applies (the harsher reading); "
+                 "declare protection.earth.protective_class to make it exact.")
+    if verdict is Verdict.FAIL:
+        text += " Too much current would flow through a person touching the output or the case: use less Y capacitance."
+    elif verdict is Verdict.MARGINAL and klass == "I":
+        text += (f" It is under the appliance limit for a class I portable unit but over the {wanted.magnitude:g} mA of "
+                 "IEC 62368-1 (ES1, from memory); check which product standard applies.")
+    elif verdict is Verdict.MARGINAL:
+        text += " It is within the Y capacitors' usual 20 % tolerance of the limit."
+    return text
