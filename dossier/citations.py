@@ -158,3 +158,15 @@ BU_410 = Source(
     clause="Table 1, permissible charge temperatures: lead-acid -20 to 50 degC (from memory; page date not confirmed)",
     kind="reference",
 )
+IEC_61558_1 = Source(
+    title="IEC 61558-1, Safety of transformers, reactors, power supply units and combinations thereof - Part 1: General requirements and tests",
+    publisher="International Electrotechnical Commission",
+    edition="edition 3.0, 2017 (edition from memory)",
+)
+DOWELL = Source(
+    title="Effects of eddy currents in transformer windings (P. L. Dowell)",
+    publisher="Proceedings of the Institution of Electrical Engineers",
+    edition="vol. 113, no. 8, 1966, pp. 1387-1394 (page numbers from memory)",
+    clause="AC resistance factor of a winding of m layers: F_R = Delta [(sinh 2Delta + sin 2Delta)/(cosh 2Delta - cos 2Delta) + 2 (m^2 - 1)/3 (sinh Delta - sin Delta)/(cosh Delta + cos Delta)]",
+    kind="reference",
+)

@@ -60,6 +60,9 @@ class Core(Section):
         None, description="Core configuration as McLyman tabulates it, for the current-density limit J = K_j A_p^x. When not given: "
                           "a ferrite or powder toroid is 'powder', a steel toroid 'tape-wound', a declared core the lowest K_j of the table (harsher).")
     material: CoreMaterial = Field(description="The core material's magnetic limits and losses.")
+    isolated: bool = Field(False, description="The core is insulated from every winding for the grade of the barrier its windings "
+                                              "cross (e.g. a coated core under rated insulation). When false the core, conductive "
+                                              "like MnZn ferrite or steel, counts as part of the winding nearest it (the first wound).")
 
     @field_validator("inner_diameter")
     @classmethod
@@ -104,6 +107,12 @@ class Winding(Section):
     triple_insulated: bool = Field(False, description="Wound with triple-insulated wire.")
     tape_layers: int = Field(0, ge=0, le=1000, description="Layers of insulating tape over this winding.")
     centre_tap: bool = Field(False, description="The winding has a centre tap; turns count the whole winding.")
+    side: str = Field("", description="The circuit the winding belongs to, as named in the barrier's between (e.g. mains, output). "
+                                      "When not given: a primary is on the mains side, every other winding on the far side (harsher).")
+    end_margin: Length | None = Field(None, description="Width of the margin tape at each end of the winding on a bobbin, e.g. 3 mm: "
+                                                        "the creepage along the bobbin to a winding across a barrier.")
+    layers: int | None = Field(None, ge=1, le=1000, description="Layers the winding is wound in, for its proximity loss (Dowell); "
+                                                                "a toroid's is worked out at the hole when not given.")
     current: Current | None = Field(None, description="RMS current (in each half of a centre-tapped winding); default derived from the output rating.")
 
     @field_validator("overall_diameter")
@@ -120,13 +129,24 @@ class Magnetic(Section):
     role: Literal["transformer", "base-drive", "gate-drive", "choke", "mains-transformer", "current-sense"] = Field(description="transformer, base-drive, gate-drive, choke, mains-transformer or current-sense.")
     title: str = Field("", description="Heading for the component, e.g. 'Main transformer'.")
     core: Core = Field(description="The core: a toroid by its dimensions, or declared effective parameters.")
-    windings: list[Winding] = Field(min_length=1, description="Every winding, primary first.")
+    windings: list[Winding] = Field(min_length=1, description="Every winding in the order it is wound, from the core outwards (usually primary first).")
+    construction: Literal["split-bobbin", "layered"] | None = Field(
+        None, description="How a transformer on a bobbin keeps its windings apart: split-bobbin (windings in separate sections of a "
+                          "sectioned bobbin) or layered (one over another, with tape between). Not for a toroid.")
     frequency: Frequency | None = Field(None, description="Operating frequency when the excitation is derived from the converter stage, e.g. 50 kHz.")
     cooling: Literal["natural", "forced-air"] = Field("natural", description="natural (convection) or forced-air (a fan blows on it).")
     excitation: Excitation | None = Field(None, description="Declared drive: waveform, voltage, frequency (and the winding it is across).")
     insulation_class: Literal["A", "E", "B", "F", "H", "N", "R"] | None = Field(
         None, description="Thermal class of the winding insulation system (IEC 60085): A 105, E 120, B 130, F 155, H 180, N 200, "
                           "R 220 degC. When not given, class A (105 degC) is taken (harsher).")
+
+    @field_validator("construction")
+    @classmethod
+    def _bobbin_for_split(cls, construction, info: ValidationInfo):
+        core = info.data.get("core")
+        if construction == "split-bobbin" and core is not None and core.shape == "toroid":
+            raise _bad("split_toroid", "layered, or a declared core on a bobbin (a toroid has no bobbin to split)", "split-bobbin on a toroid")
+        return construction
 
     @field_validator("windings")
     @classmethod

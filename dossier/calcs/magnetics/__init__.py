@@ -2,6 +2,7 @@
 
 from __future__ import annotations
 
+from dossier.calcs.magnetics.barrier import barrier_findings
 from dossier.calcs.magnetics.context import context_of
 from dossier.calcs.magnetics.flux import choke_findings, core_finding, core_loss_findings, flux_findings, ratio_findings
 from dossier.calcs.magnetics.inputs import input_findings
@@ -24,12 +25,13 @@ CODES = {
     "MAG-TEMP-RISE": "Temperature rise from total loss per outside surface (empirical handbook relation).",
     "MAG-WINDING-TEMP": "Winding temperature (highest ambient plus rise) against the thermal class of its insulation (IEC 60085).",
     "MAG-CHOKE": "A choke's inductance, stored energy, ripple current and peak field N I / l_e against the material's limit.",
+    "MAG-BARRIER-INSULATION": "Insulation between windings on opposite sides of a double or reinforced barrier: triple-insulated wire, at least 3 layers of tape or a split bobbin (enamel counts for nothing), end margins along a bobbin, the core taken as conductive.",
     "MAG-INPUT": "A check that could not be made for want of a value, naming the key to add.",
 }
 
 STEPS = (
     input_findings, lambda ctx: [core_finding(ctx)], ratio_findings, flux_findings, core_loss_findings, choke_findings,
-    density_findings, resistance_findings, skin_findings, fill_findings, temperature_findings,
+    density_findings, resistance_findings, skin_findings, fill_findings, temperature_findings, barrier_findings,
 )
 
 
@@ -50,7 +52,8 @@ CALC = Calc(
         "Checks hand-wound transformers and chokes: core parameters (IEC 60205 for toroids), turns ratios and winding "
         "voltages at low, nominal and high line, peak flux density against saturation, core loss (Steinmetz; iGSE for non-sinusoidal flux), current "
         "density (McLyman's K_j), winding temperature against the insulation class (IEC 60085), resistance and copper loss (IEC 60028 copper), skin depth, window fill with enamel and tape build-up "
-        "(IEC 60317, ASTM B258), temperature rise, and a choke's inductance, energy and field."
+        "(IEC 60317, ASTM B258), temperature rise, a choke's inductance, energy and field, and the insulation between windings across a double or reinforced barrier (triple-insulated wire, "
+        "tape layers by the thin-sheet rule, split bobbins, end margins; IEC 62368-1, IEC 61558-1)."
     ),
     codes=CODES,
     order=30,

@@ -223,3 +223,56 @@ FREQUENCY_HINT = "The operating frequency is not known: add 'frequency' (e.g. 40
 CHOKE_HINT = "A choke needs core.al (or the material's initial_permeability) and its winding's current."
 SURFACE_HINT = "Declare core.surface_area (outside surface of the wound part) to estimate the temperature rise."
 CURRENT_HINT = "Declare the winding's RMS current ('current: 1.2 A'); it could not be derived from the output rating."
+
+
+# --- insulation across a barrier --------------------------------------------------------------------
+
+def barrier_title(ref: str, barrier: str | None) -> str:
+    return f"{ref}: insulation between windings across '{barrier}'" if barrier else f"{ref}: insulation between windings across the mains barrier"
+
+
+BARRIER_METHOD = ("enamel counts for nothing; each pair of windings on opposite sides needs triple-insulated wire on one, "
+                  "at least 3 layers of tape between them, or a split bobbin; on a bobbin the end margins of a taped pair must "
+                  "reach the barrier's declared creepage")
+BARRIER_OUTCOME = {
+    "split": "The windings sit in separate sections of a split bobbin, so the bobbin's partition, not the enamel, keeps them apart.",
+    "separated": "Every pair of windings across the barrier is kept apart by triple-insulated wire or at least three layers of tape.",
+    "too-few-layers": ("Enamel is not insulation across a barrier. Wind one side in triple-insulated wire, or put at least three "
+                       "layers of tape between the windings (any two of three pass the electric strength test; two layers pass "
+                       "only if each alone passes it for reinforced insulation, which the record cannot show)."),
+    "construction-unknown": ("The tape between the windings is not enough for a layered winding, and the record does not say whether "
+                             "the transformer is wound on a split bobbin, which would keep the windings apart: declare "
+                             "magnetics[].construction (split-bobbin or layered). Until then it blocks power-up."),
+    "margins-unknown": ("The creepage along the bobbin from one winding's end to the other's is not known: declare end_margin "
+                        "for {missing}. On a mains barrier that blocks power-up."),
+    "margins-short": ("The end margins give {total} of creepage along the bobbin, less than the {creepage} declared as the "
+                      "barrier's shortest creepage: the transformer's own path is the shortest. Widen the margins, or declare "
+                      "the barrier's creepage as measured along the bobbin."),
+}
+
+
+def _pair_text(windings, pair) -> str:
+    inner = "the core" if pair.inner is None else windings[pair.inner].name
+    how = "triple-insulated wire" if pair.triple else f"{pair.layers} layer{'s' if pair.layers != 1 else ''} of tape"
+    return f"{inner} to {windings[pair.outer].name}: {how}"
+
+
+def barrier_text(magnetic, sides, pairs, how: str, outcome: str, margins) -> str:
+    windings = magnetic.windings
+    if how == "assumed":
+        text = "No barrier from the mains is declared, so a reinforced one is assumed between the windings (the harsher reading). "
+    else:
+        text = f"The barrier {how}. "
+    undeclared = [w.name for w in windings if not w.side]
+    if undeclared:
+        text += (f"Sides taken where not declared ({', '.join(undeclared)}): a primary on the mains side, any other winding on "
+                 "the far side (the harsher reading; declare windings[].side to make it exact). ")
+    text += "Across the barrier: " + "; ".join(_pair_text(windings, p) for p in pairs) + ". "
+    if magnetic.core.isolated:
+        text += "The core is declared isolated from the windings. "
+    else:
+        text += (f"The core is taken as conductive (MnZn ferrite and steel are) and counts as part of {windings[0].name}, the "
+                 "winding nearest it, unless core.isolated is declared. ")
+    names = {"missing": ", ".join(margins.missing) if margins else "", "total": fmt(margins.total) if margins and margins.total is not None else "",
+             "creepage": fmt(margins.creepage) if margins else ""}
+    return text + BARRIER_OUTCOME[outcome].format(**names)
