@@ -7,7 +7,7 @@ from dossier.calcs.magnetics.context import context_of
 from dossier.calcs.magnetics.flux import choke_findings, core_finding, core_loss_findings, flux_findings, ratio_findings
 from dossier.calcs.magnetics.inputs import input_findings
 from dossier.calcs.magnetics.windings import (
-    density_findings, fill_findings, resistance_findings, skin_findings, temperature_findings,
+    density_findings, fill_findings, proximity_findings, resistance_findings, skin_findings, temperature_findings,
 )
 from dossier.plugins import Calc
 
@@ -21,6 +21,7 @@ CODES = {
     "MAG-CURRENT-DENSITY": "Current density in a winding against McLyman's J = K_j A_p^x for the core's size (natural cooling), or a flat figure with forced air.",
     "MAG-RESISTANCE": "DC resistance of a winding at 20 degC and hot, and its copper loss (IEC 60028 copper).",
     "MAG-SKIN": "Wire diameter against two skin depths at the operating frequency, with a hint to use more strands.",
+    "MAG-PROXIMITY": "A transformer winding's AC resistance factor F_R from skin and proximity effect by Dowell's method (1 kHz and up); the copper loss and temperature rise use it.",
     "MAG-FILL": "Window fill by insulated wire and tape against what can be wound by hand; a winding that does not fit fails.",
     "MAG-TEMP-RISE": "Temperature rise from total loss per outside surface (empirical handbook relation).",
     "MAG-WINDING-TEMP": "Winding temperature (highest ambient plus rise) against the thermal class of its insulation (IEC 60085).",
@@ -31,7 +32,7 @@ CODES = {
 
 STEPS = (
     input_findings, lambda ctx: [core_finding(ctx)], ratio_findings, flux_findings, core_loss_findings, choke_findings,
-    density_findings, resistance_findings, skin_findings, fill_findings, temperature_findings, barrier_findings,
+    density_findings, resistance_findings, skin_findings, proximity_findings, fill_findings, temperature_findings, barrier_findings,
 )
 
 
@@ -51,7 +52,7 @@ CALC = Calc(
     summary=(
         "Checks hand-wound transformers and chokes: core parameters (IEC 60205 for toroids), turns ratios and winding "
         "voltages at low, nominal and high line, peak flux density against saturation, core loss (Steinmetz; iGSE for non-sinusoidal flux), current "
-        "density (McLyman's K_j), winding temperature against the insulation class (IEC 60085), resistance and copper loss (IEC 60028 copper), skin depth, window fill with enamel and tape build-up "
+        "density (McLyman's K_j), winding temperature against the insulation class (IEC 60085), resistance and copper loss (IEC 60028 copper) with proximity loss in multilayer windings (Dowell), skin depth, window fill with enamel and tape build-up "
         "(IEC 60317, ASTM B258), temperature rise, a choke's inductance, energy and field, and the insulation between windings across a double or reinforced barrier (triple-insulated wire, "
         "tape layers by the thin-sheet rule, split bobbins, end margins; IEC 62368-1, IEC 61558-1)."
     ),

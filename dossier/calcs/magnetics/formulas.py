@@ -101,3 +101,32 @@ def choke_flux(inductance_value, current, turns, area):
 def ripple_current(voltage, frequency, duty: float, inductance_value):
     """Peak-to-peak ripple from the volt-seconds across the choke: dI = V D / (f L)."""
     return (voltage * duty / (frequency * inductance_value)).to("A")
+
+
+# Dowell's factor: below this Delta the closed form loses digits to cancellation, above it sinh overflows; the
+# series and the asymptote take over there.
+_DOWELL_SERIES_BELOW = 1e-2
+_DOWELL_ASYMPTOTE_ABOVE = 30.0
+
+
+def dowell_factor(delta: float, layers: float) -> float:
+    """AC-to-DC resistance factor of a winding of m layers (Dowell, Proc. IEE 1966):
+    F_R = D [(sinh 2D + sin 2D)/(cosh 2D - cos 2D) + 2 (m^2 - 1)/3 (sinh D - sin D)/(cosh D + cos D)]."""
+    m2 = layers * layers
+    if delta < _DOWELL_SERIES_BELOW:
+        return 1 + (5 * m2 - 1) / 45 * delta**4
+    if delta > _DOWELL_ASYMPTOTE_ABOVE:
+        return delta * (1 + 2 * (m2 - 1) / 3)
+    skin = (math.sinh(2 * delta) + math.sin(2 * delta)) / (math.cosh(2 * delta) - math.cos(2 * delta))
+    proximity = (math.sinh(delta) - math.sin(delta)) / (math.cosh(delta) + math.cos(delta))
+    return delta * (skin + 2 * (m2 - 1) / 3 * proximity)
+
+
+ROUND_WIRE_FACTOR = (math.pi / 4) ** 0.75  # a round wire as the square of equal area, times the root of its porosity
+
+
+def dowell_delta_round(diameter, pitch, depth) -> float:
+    """Delta for round wire: the square of equal area (side sqrt(pi)/2 d) over the skin depth, times the root of the
+    layer's porosity (that side over the pitch): (pi/4)^(3/4) (d / delta) sqrt(d / p)."""
+    d, p, s = diameter.to("mm").magnitude, pitch.to("mm").magnitude, depth.to("mm").magnitude
+    return ROUND_WIRE_FACTOR * (d / s) * math.sqrt(d / p)

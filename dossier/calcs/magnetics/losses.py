@@ -6,7 +6,7 @@ from dataclasses import dataclass
 
 from dossier.calcs.magnetics import formulas as m
 from dossier.calcs.magnetics.saturation import family_of
-from dossier.standards.copper import REFERENCE_TEMPERATURE, resistance
+from dossier.standards.copper import REFERENCE_TEMPERATURE, resistance, skin_depth
 from dossier.units import Q_
 
 
@@ -158,11 +158,42 @@ def winding_resistance(ctx, position: int, temperature=REFERENCE_TEMPERATURE):
 
 
 def winding_loss(ctx, position: int):
-    """I^2 R at the hot temperature; a centre-tapped winding's halves each carry the current half the time."""
+    """I^2 R F_R at the hot temperature (F_R by Dowell where it applies and is known, else 1); a centre-tapped
+    winding's halves each carry the current half the time."""
     current, hot = ctx.currents[position], winding_resistance(ctx, position, ctx.hot)
     if current is None or hot is None:
         return None
-    return m.copper_loss(current.value, hot)
+    found = proximity(ctx, position)
+    factor = found.factor if found is not None and found.factor is not None else 1.0
+    return m.copper_loss(current.value, hot) * factor
+
+
+# Proximity loss is worked out at and above this frequency; at mains frequencies it is neglected (common practice).
+PROXIMITY_FROM = Q_(1, "kHz")
+
+
+@dataclass(frozen=True)
+class Proximity:
+    """Dowell's resistance factor of one winding at the drive's fundamental."""
+
+    factor: float | None  # None: the layer count is not known
+    delta: float
+    layers: int | None
+    layers_declared: bool
+    depth: object
+
+
+def proximity(ctx, position: int) -> Proximity | None:
+    """Dowell's F_R for a transformer winding at or above 1 kHz; None where it does not apply."""
+    if ctx.magnetic.role == "choke" or ctx.frequency is None or ctx.frequency < PROXIMITY_FROM:
+        return None
+    winding, layout = ctx.magnetic.windings[position], _layout(ctx, position)
+    depth = skin_depth(ctx.frequency, ctx.hot)
+    pitch = layout.overall if layout is not None else winding.wire
+    delta = m.dowell_delta_round(winding.wire, pitch, depth)
+    layers = winding.layers if winding.layers is not None else (layout.layers if layout is not None else None)
+    factor = m.dowell_factor(delta, layers) if layers is not None else None
+    return Proximity(factor, delta, layers, winding.layers is not None, depth)
 
 
 def copper_losses(ctx) -> dict:

@@ -3,6 +3,7 @@
 from __future__ import annotations
 
 import math
+from dataclasses import replace
 
 from dossier.calcs.magnetics import words
 from dossier.calcs.magnetics.context import CURRENT_DENSITY, SKIN, TEMPERATURE_RISE, make
@@ -10,10 +11,10 @@ from dossier.calcs.magnetics.density import (
     FORCED_AIR_LIMIT, HARSHEST_CLASS, UNSIZED_LIMIT, class_temperature, core_size_limit,
 )
 from dossier.calcs.magnetics.fill import HAND_FILL_LIMIT, wound_surface
-from dossier.calcs.magnetics.losses import copper_losses, core_loss, winding_loss, winding_resistance
+from dossier.calcs.magnetics.losses import copper_losses, core_loss, proximity, winding_loss, winding_resistance
 from dossier.calcs.magnetics.formulas import current_density, temperature_rise
 from dossier.calcs.magnetics.saturation import family_of
-from dossier.citations import ASTM_B258, IEC_60028, IEC_60085, IEC_60317
+from dossier.citations import ASTM_B258, DOWELL, IEC_60028, IEC_60085, IEC_60317
 from dossier.findings import Measure, Verdict, common_practice, judge
 from dossier.standards.copper import skin_depth
 from dossier.standards.wire import copper_area
@@ -116,6 +117,28 @@ def _strand_hint(winding, depth) -> str:
     return words.strand_hint(math.ceil(winding.strands * (winding.wire.to("mm").magnitude / thinner) ** 2), thinner)
 
 
+def proximity_findings(ctx):
+    found = [(i, w, proximity(ctx, i)) for i, w in enumerate(ctx.magnetic.windings)]
+    return [_proximity(ctx, i, w, p) for i, w, p in found if p is not None]
+
+
+def _proximity(ctx, position, winding, found):
+    subject = ctx.subject(winding)
+    keys = (ctx.winding_key(position, "layers"), ctx.winding_key(position, "wire"))
+    extra = (Measure("Delta (round wire, porosity)", Q_(found.delta)), Measure(f"skin depth at {fmt(ctx.frequency)}, {fmt(ctx.hot)}", found.depth))
+    if found.factor is None:
+        return make("MAG-PROXIMITY", subject, words.proximity_title(subject), Verdict.NOT_ASSESSED, extra=extra,
+                    method=words.PROXIMITY_METHOD, explanation=words.PROXIMITY_NO_LAYERS, keys=keys, sources=(DOWELL,))
+    return make("MAG-PROXIMITY", subject, words.proximity_title(subject), Verdict.INFO,
+                values=(Measure("AC resistance factor F_R", Q_(found.factor)),), extra=extra + (Measure("layers", Q_(found.layers)),),
+                method=words.PROXIMITY_METHOD, explanation=words.proximity_text(found), keys=keys, sources=(DOWELL,))
+
+
+def proximity_unknown(ctx) -> bool:
+    """Some winding's proximity factor cannot be worked out, so its copper loss is low by an unknown amount."""
+    return any(p is not None and p.factor is None for p in (proximity(ctx, i) for i in range(len(ctx.magnetic.windings))))
+
+
 def fill_findings(ctx):
     fill = ctx.fill
     if fill is None:
@@ -160,7 +183,14 @@ def temperature_findings(ctx):
         return []
     total = sum(losses, Q_(0, "W"))
     rise = temperature_rise(total, surface)
-    return [_temperature(ctx, total, surface, rise, found is not None), _winding_temperature(ctx, rise)]
+    judged = [_temperature(ctx, total, surface, rise, found is not None), _winding_temperature(ctx, rise)]
+    return [_without_proximity(f) for f in judged] if proximity_unknown(ctx) else judged
+
+
+def _without_proximity(finding):
+    """A pass that leaves out an unknown proximity loss is held at marginal, and says why."""
+    verdict = Verdict.MARGINAL if finding.verdict is Verdict.PASS else finding.verdict
+    return replace(finding, verdict=verdict, explanation=f"{finding.explanation} {words.PROXIMITY_LEFT_OUT}".strip())
 
 
 def _temperature(ctx, total, surface, rise, with_core):

@@ -276,3 +276,24 @@ def barrier_text(magnetic, sides, pairs, how: str, outcome: str, margins) -> str
     names = {"missing": ", ".join(margins.missing) if margins else "", "total": fmt(margins.total) if margins and margins.total is not None else "",
              "creepage": fmt(margins.creepage) if margins else ""}
     return text + BARRIER_OUTCOME[outcome].format(**names)
+
+
+# --- proximity loss (Dowell) ------------------------------------------------------------------------
+
+def proximity_title(subject: str) -> str:
+    return f"Proximity loss in {subject} (Dowell)"
+
+
+PROXIMITY_METHOD = ("F_R = Delta [(sinh 2Delta + sin 2Delta)/(cosh 2Delta - cos 2Delta) + 2 (m^2 - 1)/3 (sinh Delta - sin Delta)/"
+                    "(cosh Delta + cos Delta)], Delta = (pi/4)^(3/4) (d / delta) sqrt(d / p) for round wire of pitch p, at the "
+                    "drive's fundamental; the copper loss is I^2 R_hot F_R")
+PROXIMITY_NO_LAYERS = ("Not assessed: the number of layers the winding is wound in is not known on a declared core, so its proximity "
+                       "loss cannot be worked out and the copper loss leaves it out. Declare windings[].layers.")
+PROXIMITY_LEFT_OUT = ("The proximity loss of a winding whose layer count is not known is left out, so the loss and the rise are "
+                      "low by an unknown amount: held at marginal at best; declare windings[].layers.")
+
+
+def proximity_text(found) -> str:
+    basis = "as declared" if found.layers_declared else "as laid at the toroid's hole"
+    return (f"{found.layers} layer{'s' if found.layers != 1 else ''} ({basis}): the winding's copper loss is {found.factor:.3g} times "
+            "its hot DC loss at the fundamental; harmonics of a square-wave current add more.")
