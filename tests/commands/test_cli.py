@@ -16,9 +16,9 @@ def run(*args):
 
 
 def test_check_on_a_clean_record_exits_0():
-    result = run("check", DEMO / "solar-bank-charger" / "rev-C.yaml")
+    result = run("check", DEMO / "solar-bank-charger" / "rev-D.yaml")
     assert result.exit_code == 0, result.output
-    assert "rev C" in result.output
+    assert "rev D" in result.output
     assert "Mains voltages can kill" in result.output
 
 
