@@ -56,7 +56,7 @@ def test_search_index_finds_titles_designators_parts_and_notes(site):
     text = " ".join(doc["title"] + " " + doc["text"] for doc in current)
     for needle in ("24 V charger for the solar-station", "RT1", "ultrafast 200 V 8 A", "small mill"):
         assert needle in text, needle
-    assert not any(doc["location"].startswith("builds/solar-bank-charger/rev-C/") for doc in index["docs"])
+    assert not any(doc["location"].startswith("builds/solar-bank-charger/rev-D/") for doc in index["docs"])
 
 
 def test_every_build_page_with_mains_carries_the_caution(site):
