@@ -158,3 +158,9 @@ BU_410 = Source(
     clause="Table 1, permissible charge temperatures: lead-acid -20 to 50 degC (from memory; page date not confirmed)",
     kind="reference",
 )
+IPC_2221 = Source(
+    title="IPC-2221B, Generic Standard on Printed Board Design",
+    publisher="IPC (Association Connecting Electronics Industries)",
+    edition="revision B, 2012",
+    clause="Table 6-1, electrical conductor spacing",
+)
