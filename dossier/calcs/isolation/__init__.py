@@ -7,7 +7,7 @@ from functools import partial
 
 from dossier.calcs.isolation import words
 from dossier.calcs.isolation.by_standard import (
-    board_spacing_findings, earth_limit_finding, hipot_finding, product_clearance_finding, product_creepage_finding,
+    board_spacing_findings, earth_limit_finding, standard_measure, hipot_finding, product_clearance_finding, product_creepage_finding,
     standard_finding,
 )
 from dossier.calcs.isolation.inputs import (
@@ -154,7 +154,7 @@ def clearance_finding(site: Site, inputs: Inputs) -> Finding:
                    verdict=verdict(site, declared, required), values=(Measure("declared clearance", declared),),
                    limit=Measure("required clearance", required), method=words.CLEARANCE_METHOD,
                    explanation=words.clearance_text(site, inputs, need), keys=keys, sources=(CLEARANCE_SOURCE,),
-                   extra=_clearance_extra(need, inputs.reading))
+                   extra=(*_clearance_extra(need, inputs.reading), standard_measure(Chosen(None, "default"))))
 
 
 def _clearance_extra(need: ClearanceNeed, reading: Reading) -> tuple[Measure, ...]:
@@ -207,7 +207,7 @@ def judged_creepage(site: Site, inputs: Inputs, need: CreepageNeed, keys: tuple)
     return finding(code="ISO-CREEPAGE", subject=site.barrier.name, title=words.creepage_title(site.grade, bool(bridged)),
                    verdict=outcome, values=(Measure("declared creepage", declared),), limit=Measure("required creepage", required),
                    method=words.CREEPAGE_METHOD, explanation=text, keys=keys, sources=sources,
-                   extra=_creepage_extra(need, inputs))
+                   extra=(*_creepage_extra(need, inputs), standard_measure(Chosen(None, "default"))))
 
 
 def _creepage_extra(need: CreepageNeed, inputs: Inputs) -> tuple[Measure, ...]:

@@ -29,10 +29,11 @@ def standard_measure(chosen: Chosen) -> Measure:
 
 def standard_finding(chosen: Chosen) -> Finding:
     confirmed, from_memory = _provenance_lists(chosen)
-    sources = (IEC_60664_1,) if chosen.standard is None else (standard_source(chosen.standard, "the tables listed"), IEC_60664_1)
+    basic = replace(IEC_60664_1, clause="the basic standard: Tables F.1, F.2, F.3, F.5, F.8 and A.2")
+    sources = (basic,) if chosen.standard is None else (standard_source(chosen.standard, "the tables named in the finding"), basic)
     return finding(code="ISO-STANDARD", subject="product standard", title=words.STANDARD_TITLE, verdict=Verdict.INFO,
                    values=(standard_measure(chosen),), explanation=words.standard_text(chosen, from_memory, confirmed),
-                   keys=chosen.keys, sources=sources)
+                   keys=(("standard",),), sources=sources)
 
 
 def _provenance_lists(chosen: Chosen) -> tuple[list[str], list[str]]:
