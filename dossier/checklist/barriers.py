@@ -5,6 +5,8 @@ from __future__ import annotations
 from dossier.checklist.general import INSULATION_MINIMUM, INSULATION_TEST_VOLTAGE
 from dossier.checklist.items import Item, Origin, Phase, at_least, slug
 from dossier.calcs.isolation import CLEARANCE, CREEPAGE, HIPOT
+from dossier.calcs.isolation.standard import STANDARD_LABEL
+from dossier.standards.product import BASIC_TITLE
 from dossier.citations import DIN_EN_50678
 from dossier.findings import common_practice
 from dossier.units import fmt
@@ -43,9 +45,15 @@ def _distance(barrier, kind: str, findings) -> Item:
 
 
 def hipot_items(record, findings) -> list[Item]:
-    """The electric-strength test of each safety barrier, at the chosen standard's voltage, for a qualified person."""
+    """The electric-strength test of each safety barrier, at the product standard's voltage, for a qualified person.
+    Only under a product standard: IEC 60664-1 alone sets no test of the finished unit, and its figure is from memory."""
     return [_hipot(barrier, found) for barrier in record.barriers
-            if (found := _finding_for(findings, HIPOT, barrier.name)) is not None and found.value is not None]
+            if (found := _finding_for(findings, HIPOT, barrier.name)) is not None and found.value is not None
+            and not _standard_of(found).startswith(BASIC_TITLE)]
+
+
+def _standard_of(finding) -> str:
+    return next((str(m.quantity) for m in finding.extra if m.label == STANDARD_LABEL), "")
 
 
 def _hipot(barrier, finding) -> Item:

@@ -60,7 +60,7 @@ CODES = {
 
 def run(record, reading: Reading = NEXT_ROW_UP, default_standard=None):
     chosen = chosen_standard(record, default_standard)
-    findings = [standard_finding(chosen)] if record.barriers or record.mains is not None else []
+    findings = [standard_finding(record, chosen)] if record.barriers or record.mains is not None else []
     for index, barrier in enumerate(record.barriers):
         findings.extend(barrier_findings(record, Site(index, barrier), reading, chosen))
     findings.extend(f for f in [earth_limit_finding(record, chosen)] if f is not None)

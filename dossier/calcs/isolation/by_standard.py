@@ -27,13 +27,13 @@ def standard_measure(chosen: Chosen) -> Measure:
     return Measure(STANDARD_LABEL, chosen.name)
 
 
-def standard_finding(chosen: Chosen) -> Finding:
+def standard_finding(record, chosen: Chosen) -> Finding:
     confirmed, from_memory = _provenance_lists(chosen)
     basic = replace(IEC_60664_1, clause="the basic standard: Tables F.1, F.2, F.3, F.5, F.8 and A.2")
     sources = (basic,) if chosen.standard is None else (standard_source(chosen.standard, "the tables named in the finding"), basic)
     return finding(code="ISO-STANDARD", subject="product standard", title=words.STANDARD_TITLE, verdict=Verdict.INFO,
                    values=(standard_measure(chosen),), explanation=words.standard_text(chosen, from_memory, confirmed),
-                   keys=(("standard",),), sources=sources)
+                   keys=chosen.keys or ((("mains",),) if record.mains is not None else (("barriers",),)), sources=sources)
 
 
 def _provenance_lists(chosen: Chosen) -> tuple[list[str], list[str]]:
@@ -151,7 +151,7 @@ def earth_limit_finding(record, chosen: Chosen) -> Finding | None:
         return None
     rule = chosen.standard.earth
     return finding(code="ISO-PE-LIMIT", subject="protective earth", title=words.EARTH_TITLE, verdict=Verdict.INFO,
-                   limit=Measure("earth continuity limit", Q_(rule.limit_ohm, "ohm")),
+                   values=(Measure("earth continuity limit", Q_(rule.limit_ohm, "ohm")),),
                    explanation=words.earth_text(chosen.name, rule), keys=(("protection", "earth"), *chosen.keys),
                    sources=(standard_source(chosen.standard, rule.clause),), extra=(standard_measure(chosen), Measure("test", rule.test)))
 
