@@ -73,6 +73,8 @@ def _finding_change(old: Finding | None, new: Finding | None) -> FindingChange:
 
 def standard_cause(old: Finding | None, new: Finding | None) -> str:
     """'the product standard changed: A -> B' when the two findings were judged against different standards."""
+    if any(m.label == STANDARD_LABEL for m in (new or old).values):
+        return ""  # the finding that names the standard shows the change as its own value
     before, after = _standard_of(old), _standard_of(new)
     if not before or not after or before == after:
         return ""
