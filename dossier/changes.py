@@ -12,6 +12,7 @@ from dataclasses import dataclass
 
 from pydantic import BaseModel
 
+from dossier.calcs.isolation.standard import STANDARD_LABEL
 from dossier.findings import Finding, Verdict
 from dossier.units import fmt
 from dossier.wording import finding_change_text, finding_label, quantity_text
@@ -40,6 +41,7 @@ class FindingChange:
     before: Finding | None
     after: Finding | None
     text: str
+    cause: str = ""  # e.g. 'the product standard changed: IEC 60664-1 ... -> IEC 62368-1 ...'
 
 
 def record_changes(old, new) -> list[ValueChange]:
@@ -64,7 +66,25 @@ def _failing_first(change: FindingChange) -> int:
 
 
 def _finding_change(old: Finding | None, new: Finding | None) -> FindingChange:
-    return FindingChange(finding_label(new or old), old, new, finding_change_text(old, new))
+    cause = standard_cause(old, new)
+    text = finding_change_text(old, new) + (f"; {cause}" if cause else "")
+    return FindingChange(finding_label(new or old), old, new, text, cause)
+
+
+def standard_cause(old: Finding | None, new: Finding | None) -> str:
+    """'the product standard changed: A -> B' when the two findings were judged against different standards."""
+    if any(m.label == STANDARD_LABEL for m in (new or old).values):
+        return ""  # the finding that names the standard shows the change as its own value
+    before, after = _standard_of(old), _standard_of(new)
+    if not before or not after or before == after:
+        return ""
+    return f"the product standard changed: {before} -> {after}"
+
+
+def _standard_of(finding: Finding | None) -> str:
+    if finding is None:
+        return ""
+    return next((str(m.quantity) for m in (*finding.values, *finding.extra) if m.label == STANDARD_LABEL), "")
 
 
 def _differs(old: Finding | None, new: Finding | None) -> bool:

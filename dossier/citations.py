@@ -170,3 +170,9 @@ DOWELL = Source(
     clause="AC resistance factor of a winding of m layers: F_R = Delta [(sinh 2Delta + sin 2Delta)/(cosh 2Delta - cos 2Delta) + 2 (m^2 - 1)/3 (sinh Delta - sin Delta)/(cosh Delta + cos Delta)]",
     kind="reference",
 )
+IPC_2221 = Source(
+    title="IPC-2221B, Generic Standard on Printed Board Design",
+    publisher="IPC (Association Connecting Electronics Industries)",
+    edition="revision B, 2012",
+    clause="Table 6-1, electrical conductor spacing",
+)

@@ -4,7 +4,9 @@ from __future__ import annotations
 
 from dossier.checklist.general import INSULATION_MINIMUM, INSULATION_TEST_VOLTAGE
 from dossier.checklist.items import Item, Origin, Phase, at_least, slug
-from dossier.calcs.isolation import CLEARANCE, CREEPAGE
+from dossier.calcs.isolation import CLEARANCE, CREEPAGE, HIPOT
+from dossier.calcs.isolation.standard import STANDARD_LABEL
+from dossier.standards.product import BASIC_TITLE
 from dossier.citations import DIN_EN_50678
 from dossier.findings import common_practice
 from dossier.units import fmt
@@ -39,6 +41,40 @@ def _distance(barrier, kind: str, findings) -> Item:
         expected=at_least(required if required is not None else declared),
         sources=finding.sources if finding is not None else (),
         note="" if required is not None else "No calculated requirement is available; the declared value is the target.",
+    )
+
+
+def hipot_items(record, findings) -> list[Item]:
+    """The electric-strength test of each safety barrier, at the product standard's voltage, for a qualified person.
+    Only under a product standard: IEC 60664-1 alone sets no test of the finished unit, and its figure is from memory."""
+    return [_hipot(barrier, found) for barrier in record.barriers
+            if (found := _finding_for(findings, HIPOT, barrier.name)) is not None and found.value is not None
+            and not _standard_of(found).startswith(BASIC_TITLE)]
+
+
+def _standard_of(finding) -> str:
+    return next((str(m.quantity) for m in finding.extra if m.label == STANDARD_LABEL), "")
+
+
+def _hipot(barrier, finding) -> Item:
+    extra = {m.label: m.quantity for m in finding.extra}
+    sides = " and ".join(barrier.between)
+    volts = finding.value.quantity
+    return Item(
+        key=f"hipot-{slug(barrier.name)}",
+        phase=Phase.UNPOWERED,
+        origin=Origin.BUILD,
+        title=f"Electric-strength (hi-pot) test at '{barrier.name}': qualified person only",
+        steps=(
+            f"Only a person trained for it, with a proper electric-strength tester, does this. Unplugged, mains switch on: "
+            f"join each side's conductors together ({sides}), disconnect what the standard lets you remove for the test "
+            f"(such as a surge suppressor to earth), raise the voltage smoothly to "
+            f"{fmt(volts)} {extra.get('waveform', '')} and hold it for {fmt(extra['duration'])}. Pass: no breakdown. "
+            "Tick only when it passed; discharge both sides afterwards."
+        ),
+        sources=finding.sources,
+        note=(f"{extra.get('product standard', '')}, {extra.get('table and row', '')}. This test can hurt: trained people with proper "
+              "equipment only, the area kept clear; defer to local codes and licensed practice."),
     )
 
 

@@ -67,6 +67,7 @@ def all_items(record, review: Review) -> list[Item]:
         general.insulation_to_metal(record),
         general.insulation_to_output(record),
         *barriers.distance_items(record, findings),
+        *barriers.hipot_items(record, findings),
         *barriers.tab_isolation_items(record),
         general.one_hand(),
         general.isolated_supply(),

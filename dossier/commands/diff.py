@@ -5,7 +5,9 @@ from __future__ import annotations
 from pathlib import Path
 
 from dossier.reading.archive import expand, load_revision
+from dossier.reading.settings import load_settings
 from dossier.caution import MAINS_CAUTION
+from dossier.collect.archive import configured_calcs
 from dossier.plugins import load_calcs
 from dossier.problems import InputError, Location, Problem
 from dossier.review import review
@@ -21,11 +23,16 @@ def diff_text(old_path: Path, new_path: Path, calcs=None) -> str:
     lines = [_heading(old.record, new.record), "", "Record values that changed:"]
     lines += _value_lines(record_changes(old.record, new.record)) or [INDENT + "none"]
     lines += ["", "Findings whose verdict or value changed:"]
-    changes = finding_changes(review(old.record, calcs), review(new.record, calcs))
+    changes = finding_changes(review(old.record, _as_archive_runs(calcs, old_path)), review(new.record, _as_archive_runs(calcs, new_path)))
     lines += [INDENT + change.text for change in changes] or [INDENT + "none"]
     if old.record.has_mains or new.record.has_mains:
         lines += ["", f"Caution: {MAINS_CAUTION}"]
     return "\n".join(lines)
+
+
+def _as_archive_runs(calcs, path: Path):
+    """The calcs with the settings of the archive the record sits in (archive.yaml two folders up), as the site runs them."""
+    return configured_calcs(calcs, load_settings(path.resolve().parent.parent))
 
 
 def _load(path: Path):

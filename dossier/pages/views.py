@@ -14,6 +14,8 @@ from markdown.extensions.toc import slugify, unique
 from dossier.findings import Finding, Verdict, counts
 from dossier.record.identity import STATUS_TITLES
 from dossier.pages import layout
+from dossier.calcs.isolation import HIPOT, STANDARD
+from dossier.units import fmt
 from dossier.changes import finding_changes, record_changes
 from dossier.collect.archive import Archive, Build, Revision
 from dossier.pages.env import Md
@@ -99,6 +101,25 @@ class AttachmentView:
     refused: bool = False  # active content (HTML, script) is never published
 
 
+@dataclass(frozen=True)
+class HipotRow:
+    """One barrier's electric-strength test on the overview: the voltage, how long, from which table."""
+
+    view: FindingView
+    voltage: str
+    duration: str
+    table: str
+
+
+def hipot_row(view: FindingView) -> HipotRow:
+    finding = view.finding
+    extra = {m.label: m.quantity for m in finding.extra}
+    if finding.value is None:
+        return HipotRow(view, "no figure found", "", "")
+    return HipotRow(view, f"{fmt(finding.value.quantity)} {extra.get('waveform', '')}".strip(),
+                    fmt(extra["duration"]) if "duration" in extra else "", str(extra.get("table and row", "")))
+
+
 @dataclass
 class RevisionLink:
     letter: str
@@ -131,6 +152,8 @@ class RevisionView:
     photos: list[AttachmentView]
     documents: list[AttachmentView]
     failures: list[str] = field(default_factory=list)
+    standard: FindingView | None = None  # which standard the barriers are judged against
+    hipot: list[HipotRow] = field(default_factory=list)  # the electric-strength test of each safety barrier
 
     @property
     def status_title(self) -> str:
@@ -194,6 +217,8 @@ def revision_view(archive: Archive, build: Build, revision: Revision) -> Revisio
         photos=photos,
         documents=documents,
         failures=list(revision.extras.failures),
+        standard=next((view for section in sections for view in section.findings if view.finding.code == STANDARD), None),
+        hipot=[hipot_row(view) for section in sections for view in section.findings if view.finding.code == HIPOT],
     )
 
 
@@ -364,9 +389,13 @@ def _change_step(build: Build, previous: Revision | None, revision: Revision) ->
         path=links[revision.letter],
         values=[ChangeRow(c.key, _before(c), _after(c)) for c in values if c.kind != "text"],
         texts=[(c.key, "\n".join(c.lines)) for c in values if c.kind == "text"],
-        findings=[ChangeRow(c.label, finding_state_text(c.before), finding_state_text(c.after)) for c in findings],
+        findings=[ChangeRow(c.label, finding_state_text(c.before), _with_cause(finding_state_text(c.after), c.cause)) for c in findings],
         amendments=list(revision.publication.amendments) if revision.publication else [],
     )
+
+
+def _with_cause(text: str, cause: str) -> str:
+    return f"{text} ({cause})" if cause else text
 
 
 def _before(change) -> str:

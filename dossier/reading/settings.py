@@ -7,6 +7,7 @@ from pathlib import Path
 from pydantic import BaseModel, ConfigDict, Field, model_validator
 
 from dossier.reading.model_file import load_model_file
+from dossier.record.standard import StandardChoice
 
 SETTINGS_FILE = "archive.yaml"
 SETTINGS_EXAMPLE = "club: ..., title: ..."
@@ -36,6 +37,10 @@ class ArchiveSettings(BaseModel):
     table_interpolation: TableInterpolation = Field(
         default_factory=TableInterpolation,
         description="IEC 60664-1 tables: interpolate between rows (allowed: true, with the clause relied on); default: the next row up.",
+    )
+    standard: StandardChoice | None = Field(
+        None,
+        description="The product standard for every record that names none, e.g. {name: iec-60335-1, edition: 5}; default: IEC 60664-1 edition 3.",
     )
 
 

@@ -54,3 +54,20 @@ class Barrier(Section):
         if self.material_group is None and self.cti is None:
             raise ValueError("give material_group (I, II, IIIa or IIIb) or cti")
         return self
+
+
+BoardCondition = Literal["internal", "external-uncoated", "external-coated"]
+
+
+class BoardSpacing(Section):
+    """Spacing between two conductors on the low-voltage side of a printed board: a functional check, no safety barrier."""
+
+    name: Name = Field(description="e.g. '12 V rail to signal ground near U3'.")
+    between: tuple[str, str] = Field(description="The two conductors or nets, e.g. [14 V rail, sense line].")
+    voltage: Voltage = Field(description="Highest voltage between them, d.c. or a.c. peak.")
+    spacing: Length = Field(description="Narrowest spacing between the two conductors on the board.")
+    condition: BoardCondition = Field(
+        "external-uncoated",
+        description="internal (an inner layer), external-uncoated or external-coated (a permanent polymer coating); "
+        "default external-uncoated, the widest spacing of the three.",
+    )

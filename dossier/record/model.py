@@ -7,11 +7,12 @@ from pydantic_core import InitErrorDetails, PydanticCustomError
 
 from dossier.record.devices import Devices
 from dossier.record.identity import Attachment, Identity
-from dossier.record.insulation import Barrier
+from dossier.record.insulation import Barrier, BoardSpacing
 from dossier.record.magnetics import Magnetic
 from dossier.record.output import Output
 from dossier.record.protection import Protection
 from dossier.record.stages import Stage
+from dossier.record.standard import StandardChoice
 from dossier.record.supply import Environment, Mains
 
 
@@ -22,7 +23,9 @@ class Record(Identity):
     environment: Environment = Field(default_factory=Environment, description="Where the unit lives: pollution degree, altitude, ambient.")
     stages: list[Stage] = Field(default_factory=list, description="The build's stages in signal order, mains first, each with its parts.")
     magnetics: list[Magnetic] = Field(default_factory=list, description="Wound components: transformers, base-drive transformers, chokes.")
+    standard: StandardChoice | None = Field(None, description="The product standard the unit is judged against, e.g. {name: iec-62368-1, edition: 3}; default: the archive's standard, else IEC 60664-1 edition 3.")
     barriers: list[Barrier] = Field(default_factory=list, description="Isolation barriers with their declared creepage and clearance.")
+    board_spacings: list[BoardSpacing] = Field(default_factory=list, description="Conductor spacings on the low-voltage side of printed boards, checked as functional spacing (IPC-2221B Table 6-1).")
     protection: Protection = Field(default_factory=Protection, description="Fuses, inrush limiting, earthing and output protection.")
     devices: Devices = Field(default_factory=Devices, description="Power semiconductors, capacitors under stress, heatsinks, soak readings.")
     output: Output | None = Field(None, description="What the unit delivers; for a charger, the battery.")

@@ -6,6 +6,10 @@ from dataclasses import replace
 from functools import partial
 
 from dossier.calcs.isolation import words
+from dossier.calcs.isolation.by_standard import (
+    board_spacing_findings, earth_limit_finding, standard_measure, hipot_finding, product_clearance_finding, product_creepage_finding,
+    standard_finding,
+)
 from dossier.calcs.isolation.inputs import (
     NEXT_ROW_UP, Inputs, Reading, Site, derive_inputs, material_group_of, material_keys, working_of,
 )
@@ -13,16 +17,14 @@ from dossier.calcs.isolation.needs import (
     ClearanceNeed, CreepageNeed, bridged_slots, clearance_need, creepage_need, impulse_voltages,
     judged_slot_index, minimum_groove,
 )
-from dossier.calcs.shared.finding_kit import maker
+from dossier.calcs.isolation.standard import Chosen, chosen_standard
+from dossier.calcs.isolation.judging import NAME, finding, not_assessed, unassessed_verdict, verdict
 from dossier.citations import IEC_60664_1, IEC_62368_1
-from dossier.findings import Finding, Measure, Verdict, judge
+from dossier.findings import Finding, Measure, Verdict
 from dossier.plugins import Calc
 from dossier.standards import iec60664 as std
 from dossier.units import Q_
 
-NAME = "isolation"
-finding = maker(NAME)
-MARGINAL_WITHIN = 0.10  # dossier's own band: within 10 % of the requirement is marginal
 
 CLEARANCE_SOURCE = replace(IEC_60664_1, clause=(
     "Table F.1 (rated impulse voltage); Table F.2, case A (clearance for transients); Table F.8, case A (clearance "
@@ -40,21 +42,29 @@ INPUTS_SOURCE = replace(IEC_60664_1, clause=(
 
 CLEARANCE = "ISO-CLEARANCE"
 CREEPAGE = "ISO-CREEPAGE"
+HIPOT = "ISO-HIPOT"
+STANDARD = "ISO-STANDARD"
 
 CODES = {
     "ISO-INPUTS": "what the barrier's requirements were derived from: working voltage, impulse voltage, material group",
-    "ISO-CLEARANCE": "declared clearance against the clearance IEC 60664-1 requires",
-    "ISO-CREEPAGE": "declared creepage against the creepage IEC 60664-1 requires",
+    "ISO-CLEARANCE": "declared clearance against the clearance IEC 60664-1 or the chosen product standard requires",
+    "ISO-CREEPAGE": "declared creepage against the creepage IEC 60664-1 or the chosen product standard requires",
     "ISO-SLOT": "a slot or groove in the creepage path is at least as wide as clause 6.8 asks, or counts as bridged",
     "ISO-NO-VOLTAGE": "the barrier cannot be assessed: no working voltage declared and none to default to",
+    "ISO-STANDARD": "which standard the barriers are judged against (the record's, the archive's default, or IEC 60664-1) and which of its tables are confirmed",
+    "ISO-HIPOT": "the electric-strength (hi-pot) test voltage, waveform and duration for a safety barrier, from the chosen standard",
+    "ISO-PE-LIMIT": "the protective-earth continuity limit and test of the chosen product standard, for a class I unit",
+    "ISO-BOARD-SPACING": "functional conductor spacing on the low-voltage side of a board against IPC-2221B Table 6-1; no safety figure",
 }
 
 
-def run(record, reading: Reading = NEXT_ROW_UP):
-    findings = []
+def run(record, reading: Reading = NEXT_ROW_UP, default_standard=None):
+    chosen = chosen_standard(record, default_standard)
+    findings = [standard_finding(record, chosen)] if record.barriers or record.mains is not None else []
     for index, barrier in enumerate(record.barriers):
-        findings.extend(barrier_findings(record, Site(index, barrier), reading))
-    return findings
+        findings.extend(barrier_findings(record, Site(index, barrier), reading, chosen))
+    findings.extend(f for f in [earth_limit_finding(record, chosen)] if f is not None)
+    return findings + board_spacing_findings(record)
 
 
 def reading_from(settings) -> Reading:
@@ -64,21 +74,25 @@ def reading_from(settings) -> Reading:
 
 
 def configured(settings) -> Calc:
-    """This calc as an archive's settings ask for it (interpolation between table rows, on a named clause)."""
+    """This calc as an archive's settings ask for it: interpolation between table rows on a named clause, and the
+    product standard for records that name none."""
     reading = reading_from(settings)
-    return CALC if reading == NEXT_ROW_UP else replace(CALC, run=partial(run, reading=reading))
+    if reading == NEXT_ROW_UP and settings.standard is None:
+        return CALC
+    return replace(CALC, run=partial(run, reading=reading, default_standard=settings.standard))
 
 
-def barrier_findings(record, site: Site, reading: Reading = NEXT_ROW_UP) -> list[Finding]:
+def barrier_findings(record, site: Site, reading: Reading = NEXT_ROW_UP, chosen: Chosen = Chosen(None, "default")) -> list[Finding]:
     working = working_of(record, site)
     if working is None:
         return [no_voltage_finding(record, site)]
     inputs = derive_inputs(record, site, working, reading)
-    clearance = clearance_finding(site, inputs)
-    judged = [clearance, creepage_finding(site, inputs, _required(clearance))]
+    clearance = clearance_finding(site, inputs) if chosen.standard is None else product_clearance_finding(site, inputs, chosen)
+    judged = [clearance, creepage_finding(site, inputs, _required(clearance), chosen)]
     if site.barrier.slots:
         judged.append(slot_finding(site, inputs))
-    return [inputs_finding(site, inputs), *(_guarding(site, f) for f in judged)]
+    hipot = hipot_finding(record, site, inputs, chosen)
+    return [inputs_finding(site, inputs), *(_guarding(site, f) for f in judged), *([hipot] if hipot else [])]
 
 
 def _guarding(site: Site, finding: Finding) -> Finding:
@@ -140,7 +154,7 @@ def clearance_finding(site: Site, inputs: Inputs) -> Finding:
                    verdict=verdict(site, declared, required), values=(Measure("declared clearance", declared),),
                    limit=Measure("required clearance", required), method=words.CLEARANCE_METHOD,
                    explanation=words.clearance_text(site, inputs, need), keys=keys, sources=(CLEARANCE_SOURCE,),
-                   extra=_clearance_extra(need, inputs.reading))
+                   extra=(*_clearance_extra(need, inputs.reading), standard_measure(Chosen(None, "default"))))
 
 
 def _clearance_extra(need: ClearanceNeed, reading: Reading) -> tuple[Measure, ...]:
@@ -165,7 +179,7 @@ def _clause_measure(reading: Reading) -> tuple[Measure, ...]:
 # --- creepage ---------------------------------------------------------------------------------
 
 
-def creepage_finding(site: Site, inputs: Inputs, clearance_mm: float | None) -> Finding:
+def creepage_finding(site: Site, inputs: Inputs, clearance_mm: float | None, chosen: Chosen = Chosen(None, "default")) -> Finding:
     keys = (site.key("creepage"), *material_keys(site), site.key("printed_board"), *inputs.voltage_keys, ("environment", "pollution_degree"))
     try:
         group, _ = material_group_of(site.barrier)
@@ -173,6 +187,8 @@ def creepage_finding(site: Site, inputs: Inputs, clearance_mm: float | None) -> 
         return unsuitable_material(site, str(problem), keys)
     if clearance_mm is None:
         return not_assessed(site, "ISO-CREEPAGE", "Creepage", words.NO_CLEARANCE_FLOOR, (*keys, site.key("clearance")), CREEPAGE_SOURCE)
+    if chosen.standard is not None:
+        return product_creepage_finding(site, inputs, chosen, group, clearance_mm, keys)
     try:
         need = creepage_need(inputs, site, group, clearance_mm)
     except std.OutsideTable as problem:
@@ -191,7 +207,7 @@ def judged_creepage(site: Site, inputs: Inputs, need: CreepageNeed, keys: tuple)
     return finding(code="ISO-CREEPAGE", subject=site.barrier.name, title=words.creepage_title(site.grade, bool(bridged)),
                    verdict=outcome, values=(Measure("declared creepage", declared),), limit=Measure("required creepage", required),
                    method=words.CREEPAGE_METHOD, explanation=text, keys=keys, sources=sources,
-                   extra=_creepage_extra(need, inputs))
+                   extra=(*_creepage_extra(need, inputs), standard_measure(Chosen(None, "default"))))
 
 
 def _creepage_extra(need: CreepageNeed, inputs: Inputs) -> tuple[Measure, ...]:
@@ -228,23 +244,6 @@ def slot_finding(site: Site, inputs: Inputs) -> Finding:
 
 
 # --- shared -----------------------------------------------------------------------------------
-
-
-def verdict(site: Site, declared, required) -> Verdict:
-    if site.guidance_only:
-        return Verdict.INFO
-    return judge(declared.to("mm"), required.to("mm"), ">=", MARGINAL_WITHIN)
-
-
-def unassessed_verdict(site: Site) -> Verdict:
-    """A safety barrier that cannot be assessed blocks power-up (not assessed, guarding a hazard); functional insulation is guidance."""
-    return Verdict.INFO if site.guidance_only else Verdict.NOT_ASSESSED
-
-
-def not_assessed(site: Site, code: str, what: str, reason: str, keys: tuple, source) -> Finding:
-    return finding(code=code, subject=site.barrier.name, title=words.not_assessed_title(what, site),
-                   verdict=unassessed_verdict(site), explanation=words.not_assessed_text(reason, site),
-                   keys=keys, sources=(source,), guards_hazard=not site.guidance_only)
 
 
 def no_voltage_finding(record, site: Site) -> Finding:

@@ -5,6 +5,7 @@ from __future__ import annotations
 import math
 
 from dossier.standards import iec60664 as std
+from dossier.standards.ipc2221 import CONDITION_WORDS
 from dossier.units import Q_, fmt
 
 BLOCKS = "A safety barrier that cannot be assessed blocks power-up like a fail"
@@ -295,3 +296,119 @@ def sentences(parts) -> str:
 
 def _capitalised(text: str) -> str:
     return text[:1].upper() + text[1:]
+
+
+# --- product standard ---------------------------------------------------------------------------
+
+STANDARD_KEY = "standard (in the record, e.g. {name: iec-62368-1, edition: 3}) or archive.yaml standard"
+ORIGIN_WORDS = {
+    "record": "named in the record (standard)",
+    "archive": "the archive's default (archive.yaml standard); the record names none",
+    "default": "no product standard is named in the record or in archive.yaml, so IEC 60664-1, the basic standard, applies",
+}
+STANDARD_TITLE = "Product standard"
+HIPOT_CAUTION = ("An electric-strength (hi-pot) test is for trained people with a proper tester, its current trip set and "
+                 "its leads checked, the unit unplugged and the area kept clear; follow local codes and licensed practice")
+
+
+def standard_text(chosen, from_memory: list[str], confirmed: list[str]) -> str:
+    parts = [f"{chosen.name}: {ORIGIN_WORDS[chosen.origin]}"]
+    if chosen.standard is not None:
+        parts.append("clearance, creepage and the electric-strength test voltage of each barrier come from its tables, "
+                     "and where they differ from IEC 60664-1 the product standard's figure is taken")
+    if confirmed:
+        parts.append("confirmed in public material: " + "; ".join(confirmed))
+    if from_memory:
+        parts.append("from memory, not confirmed: " + "; ".join(from_memory))
+    parts.append(f"Name the standard in {STANDARD_KEY}")
+    return sentences(parts)
+
+
+def provenance(requirement) -> str:
+    return "confirmed in public material" if requirement.confirmed else "from memory"
+
+
+PRODUCT_CLEARANCE_METHOD = ("required = max(the product standard's clearance table entered with the rated impulse voltage "
+                            "(IEC 60664-1 Table F.1), IEC 60664-1 Table F.8 for the peak working voltage) x the altitude factor "
+                            "(IEC 60664-1 Table A.2); between rows the next row up")
+PRODUCT_CREEPAGE_METHOD = ("required = max(the product standard's creepage table for the grade of insulation, the required "
+                           "clearance); between rows the next row up")
+
+
+def product_clearance_text(site, inputs, standard, need, clearance) -> str:
+    table = clearance.table
+    parts = [f"Rated impulse voltage {need.basic_impulse:g} V (IEC 60664-1 Table F.1, {inputs.supply_note})",
+             f"{standard.title} {table.table}: {table.value:.3g} mm ({provenance(table)})", *table.notes]
+    steady = f"IEC 60664-1 Table F.8 for the peak working voltage, {need.steady_peak:g} V: {need.steady_mm:.3g} mm"
+    parts.append(steady + ("; this governs, as the product standard's table is held for transients only" if clearance.steady_governs
+                           else "; the product standard's figure governs"))
+    if clearance.factor != 1:
+        parts.append(f"altitude factor {clearance.factor:.3g} (IEC 60664-1 Table A.2), so {clearance.required_mm:.3g} mm")
+    parts.append(_basic_comparison(clearance.basic_standard_mm, clearance.required_mm))
+    parts.append(grade_note(site))
+    return sentences(parts)
+
+
+def product_creepage_text(site, inputs, standard, creepage) -> str:
+    table = creepage.table
+    volts = inputs.creepage_voltage.to("V").magnitude
+    parts = [f"{standard.title} {table.table}, entered at {volts:g} V: {table.value:.3g} mm ({provenance(table)})", *table.notes]
+    if creepage.raised_to_clearance:
+        parts.append(f"raised to the required clearance, {creepage.clearance_mm:.3g} mm: creepage is never less than the "
+                     f"clearance (the IEC 60664-1 rule, kept as the harsher reading)")
+    if creepage.basic_standard_mm is not None:
+        parts.append(_basic_comparison(creepage.basic_standard_mm, creepage.required_mm))
+    parts.append(grade_note(site))
+    return sentences(parts)
+
+
+def _basic_comparison(basic_mm: float, product_mm: float) -> str:
+    if math.isclose(basic_mm, product_mm):
+        return f"IEC 60664-1 alone asks the same, {basic_mm:.3g} mm"
+    return f"IEC 60664-1 alone would ask {basic_mm:.3g} mm; the product standard's {product_mm:.3g} mm is taken"
+
+
+def hipot_title(grade: str) -> str:
+    return f"Electric-strength test for {grade} insulation"
+
+
+def hipot_text(site, standard_name: str, test, table_provenance: str) -> str:
+    sides = " and ".join(site.barrier.between)
+    parts = [f"{standard_name}, {test.table} ({table_provenance}): {test.volts:g} V {test.waveform} for {test.seconds:g} s "
+             f"between {sides}",
+             "pass: no breakdown (no flashover and no current rising without limit); a tester whose trip operates has "
+             "found a breakdown", *test.notes,
+             "for an a.c. tester, a figure given as peak or d.c. is the peak: the r.m.s. setting is that over sqrt 2",
+             HIPOT_CAUTION]
+    return sentences(parts)
+
+
+BASIC_HIPOT_TABLE = "clause 5.3.3.2.3, temporary overvoltage U_n + 1 200 V for basic insulation, twice for reinforced"
+
+
+EARTH_TITLE = "Protective-earth continuity limit"
+
+
+def earth_text(standard_name: str, rule) -> str:
+    proven = "confirmed in public material" if rule.confirmed else "from memory"
+    return sentences([f"{standard_name}, {rule.clause}: at most {rule.limit_ohm:g} ohm ({proven})",
+                      f"test with {rule.test}", "the checklist's earth-continuity item is where it is measured"])
+
+
+BOARD_TITLE = "Board spacing (functional, not a safety figure)"
+BOARD_METHOD = "minimum spacing = IPC-2221B Table 6-1 for the voltage between the conductors and the board condition"
+
+
+def board_text(spacing, column: str, row: str) -> str:
+    sides = " and ".join(spacing.between)
+    return sentences([
+        f"IPC-2221B Table 6-1, column {CONDITION_WORDS[column]}, {row}, for {fmt(spacing.voltage)} between {sides}",
+        "functional spacing against arcing and breakdown over the board: it is no safety figure and never replaces the "
+        "clearance and creepage of a safety barrier, which are checked on the barriers",
+        "" if spacing.condition != "external-uncoated" else
+        "board condition external-uncoated (the default, the widest of the three; declare condition to make it exact)",
+    ])
+
+
+def board_not_assessed(spacing, problem) -> str:
+    return sentences([f"Not assessed: {problem}", "functional spacing only; it blocks nothing"])
