@@ -11,6 +11,7 @@ from dossier.calcs.magnetics.windings import (
 from dossier.plugins import Calc
 
 TEMP_RISE = "MAG-TEMP-RISE"
+RESISTANCE = "MAG-RESISTANCE"
 
 CODES = {
     "MAG-CORE": "Effective area, path length, volume, window, mean turn and A_L of a core (IEC 60205 for a toroid; limb, stack and window for an E-I, U-I or C core).",
