@@ -10,8 +10,8 @@ from dossier.calcs.magnetics.core import CoreGeometry, geometry
 from dossier.calcs.magnetics.currents import winding_current
 from dossier.calcs.magnetics.fill import Fill, lay
 from dossier.calcs.magnetics.voltages import Drive, drive_of
-from dossier.record.magnetics import LAMINATED
 from dossier.citations import MCLYMAN, MOHAN_POWER_ELECTRONICS
+from dossier.record.magnetics import LAMINATED
 from dossier.units import Q_
 
 DEFAULT_HOT = Q_(100, "degC")
