@@ -121,6 +121,21 @@ MCLYMAN = Source(
     publisher="CRC Press",
     kind="handbook",
 )
+IEC_60404_2 = Source(
+    title="IEC 60404-2, Magnetic materials - Part 2: Methods of measurement of the magnetic properties of electrical steel strip and sheet by means of an Epstein frame",
+    publisher="International Electrotechnical Commission",
+    edition="edition 3.1, 2008",
+)
+IEC_60404_8_4 = Source(
+    title="IEC 60404-8-4, Magnetic materials - Part 8-4: Specifications for individual materials - Cold-rolled non-oriented electrical steel strip and sheet delivered in the fully-processed state",
+    publisher="International Electrotechnical Commission",
+    edition="edition 3.0, 2013",
+)
+IEC_60740_1 = Source(
+    title="IEC 60740-1, Laminations for transformers and inductors - Part 1: Mechanical and electrical characteristics",
+    publisher="International Electrotechnical Commission",
+    edition="edition 2.0, 2005 (edition from memory)",
+)
 IEC_60335_1 = Source(
     title="IEC 60335-1, Household and similar electrical appliances - Safety - Part 1: General requirements",
     publisher="International Electrotechnical Commission",

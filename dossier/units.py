@@ -32,6 +32,8 @@ DIMENSION_NAMES = {
     "[inductance_factor]": "inductance factor A_L (e.g. 2500 nH)",
     "[voltage_per_temperature]": "voltage per kelvin (e.g. -18 mV/K)",
     "[current] / [length]": "field strength (e.g. 3500 A/m)",
+    "[mass]": "mass (e.g. 0.45 kg)",
+    "[specific_loss]": "loss per mass (e.g. 1.3 W/kg)",
     "[dimensionless]": "ratio or percentage (e.g. 10 %)",
 }
 
@@ -49,6 +51,7 @@ _DERIVED = {
     "[inductance]": "henry",
     "[electric_potential]": "volt",
     "[voltage_per_temperature]": "volt / kelvin",
+    "[specific_loss]": "watt / kilogram",
     "[dimensionless]": "dimensionless",
 }
 

@@ -9,9 +9,10 @@ from __future__ import annotations
 
 from dataclasses import dataclass
 
-from dossier.calcs.magnetics import TEMP_RISE
+from dossier.calcs.magnetics import RESISTANCE, TEMP_RISE
 from dossier.calcs.thermal import HEATSINK, JUNCTION
 from dossier.checklist.items import Item, Origin, Phase, at_least, at_most, slug
+from dossier.checklist.winding_rise import mains_winding, rise_item
 from dossier.findings import common_practice
 from dossier.units import Q_, fmt
 
@@ -31,7 +32,7 @@ def soak_items(record, findings) -> list[Item]:
         return []
     by_code = _index(findings)
     places = [_heatsink(sink, record, by_code) for sink in record.devices.heatsinks]
-    places += [_magnetic(part, by_code) for part in record.magnetics]
+    places += [_magnetic(record, part, by_code) for part in record.magnetics]
     return [_run(record), _room()] + places
 
 
@@ -79,12 +80,17 @@ def _rise_item(ref: str, what: str, estimate, limit: RiseLimit | None) -> Item:
     )
 
 
-def _magnetic(part, by_code) -> Item:
+def _magnetic(record, part, by_code) -> Item:
     finding = by_code.get((TEMP_RISE, part.ref))
     estimate = finding.value.quantity if finding is not None and finding.value is not None else None
     limit = None
     if finding is not None and finding.limit is not None:
         limit = RiseLimit(finding.limit.quantity.to("K"), f"Range: {finding.limit.label}.", finding.sources)
+    winding = mains_winding(record, part)
+    if winding is not None:
+        cold = by_code.get((RESISTANCE, f"{part.ref} {winding.name}"))
+        cold_estimate = cold.value.quantity if cold is not None and cold.value is not None else None
+        return rise_item(part, winding, estimate, cold_estimate, limit.rise if limit else None, limit.sources if limit else (), limit.why if limit else "")
     return _rise_item(part.ref, "the winding of", estimate, limit)
 
 

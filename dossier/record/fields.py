@@ -224,6 +224,8 @@ MeltingIntegral = quantity("[i2t]", Span("A ** 2 * s", 1e-9, 1e12))
 Charge = quantity("[charge]", Span("A * h", 0.001, 1e6))
 InductanceFactor = quantity("[inductance_factor]", Span("nH", 0.01, 1e6))
 VoltagePerKelvin = quantity("[voltage_per_temperature]", Span("V/K", -10, 10))
+Mass = quantity("[mass]", Span("kg", 1e-6, 10_000))
+SpecificLoss = quantity("[specific_loss]", Span("W/kg", 0.01, 1000))
 FieldStrength = quantity("[current] / [length]", Span("A/m", 0.001, 1e9))
 Ratio = quantity("[dimensionless]", Span("", 0, 1e6))
 Fraction = quantity("[dimensionless]", Span("percent", 0, 100, high_open=True))  # a tolerance, a state of charge

@@ -9,9 +9,13 @@ from pydantic_core import PydanticCustomError
 
 from dossier.record.fields import (
     Designator,
-    Area, Current, Name, FieldStrength, FluxDensity, Frequency, InductanceFactor, Length, Section, Share, Temperature, Voltage, WireSize,
-    out_of_range,
+    Area, Current, Name, FieldStrength, FluxDensity, Frequency, InductanceFactor, Length, Mass, Section, Share, SpecificLoss, Temperature,
+    Voltage, WireSize, out_of_range,
 )
+from dossier.standards.electrical_steel import is_grade
+from dossier.standards.laminations import size_names, tongue_of
+
+LAMINATED = ("ei-lamination", "ui-lamination", "c-core")
 
 
 def _bad(code: str, expected: str, found: str) -> PydanticCustomError:
@@ -30,6 +34,18 @@ class Steinmetz(Section):
     beta: float = Field(gt=0, le=4, description="Flux-density exponent beta; power ferrites lie between about 2 and 3.")
 
 
+class RatedLoss(Section):
+    """A maker's specific total loss of a silicon steel at one flux density and frequency."""
+
+    loss: SpecificLoss = Field(description="Specific total loss, e.g. 1.3 W/kg, from the maker's data or the grade's guaranteed figure.")
+    flux: FluxDensity = Field(description="Peak flux density the loss is given at, e.g. 1.5 T.")
+    frequency: Frequency = Field(description="Frequency the loss is given at, e.g. 50 Hz.")
+    flux_exponent: float = Field(2.0, gt=0, le=4, description="Exponent of B the loss scales with; 2 (loss as B^2) is common practice for silicon steel at mains frequency.")
+    frequency_exponent: float | None = Field(
+        None, ge=1, le=2, description="Exponent of f the loss scales with, between 1 (hysteresis) and 2 (eddy currents). When not given and "
+                                      "the frequency differs from the figure's: 2 above it, 1 below (harsher).")
+
+
 class CoreMaterial(Section):
     name: str = Field("", description="Material name or grade as the builder knows it.")
     family: Literal["ferrite", "iron-powder", "silicon-steel"] | None = Field(
@@ -43,14 +59,39 @@ class CoreMaterial(Section):
     max_field: FieldStrength | None = Field(None, description="Highest DC field strength N I / l_e the material takes before its permeability falls too far, e.g. 3500 A/m.")
     remanence: FluxDensity | None = Field(None, description="Remanent flux density B_r at the hot temperature, from the maker's data; a unipolar drive's flux starts there. "
                                                            "When not given: 0.2 T for ferrite and iron powder, 1.0 T for silicon steel (harsher; from memory).")
+    grade: str | None = Field(
+        None, description="Silicon steel: grade by its IEC 60404-8 name, e.g. M400-50A (non-oriented, at most 4.00 W/kg at 1.5 T, 50 Hz, "
+                          "0.50 mm) or M111-30P (grain-oriented, at 1.7 T); gives the loss when specific_loss is not declared.")
+    orientation: Literal["non-oriented", "grain-oriented"] | None = Field(
+        None, description="Silicon steel: non-oriented or grain-oriented; sets the density and the loss taken when none is given. "
+                          "When not given (and no grade says it): non-oriented (harsher).")
+    specific_loss: RatedLoss | None = Field(None, description="Silicon steel: the maker's loss per kilogram at a stated flux density and frequency.")
+
+    @field_validator("grade")
+    @classmethod
+    def _grade_named(cls, value):
+        if value is not None and not is_grade(value):
+            raise _bad("unknown_grade", "an IEC 60404-8 grade name such as M400-50A or M111-30P", repr(value))
+        return value
 
 
 class Core(Section):
-    shape: Literal["toroid", "declared"] = Field(description="toroid (give dimensions) or declared (give effective parameters).")
+    shape: Literal["toroid", "declared", "ei-lamination", "ui-lamination", "c-core"] = Field(
+        description="toroid (give dimensions), declared (give effective parameters), ei-lamination, ui-lamination or c-core "
+                    "(give the limb width, stack and window; an E-I size name or limb width alone gives a scrapless lamination).")
     outer_diameter: Length | None = Field(None, description="Toroid: outer diameter of the bare core.")
     inner_diameter: Length | None = Field(None, description="Toroid: inner diameter of the bare core.")
     height: Length | None = Field(None, description="Toroid: height of the bare core.")
-    effective_area: Area | None = Field(None, description="Effective magnetic cross-section A_e (declared cores).")
+    lamination: str | None = Field(None, description=f"E-I lamination: a scrapless size by its overall width in mm ({', '.join(size_names())}); gives the limb width and window.")
+    limb_width: Length | None = Field(None, description="Laminated and C cores: width of the wound limb (an E-I's tongue, a C core's build of tape).")
+    stack: Length | None = Field(None, description="Laminated and C cores: stack height of the laminations (a C core's strip width).")
+    window_width: Length | None = Field(None, description="Laminated and C cores: width of the winding window (E-I: one of its two windows).")
+    window_height: Length | None = Field(None, description="Laminated and C cores: height of the winding window.")
+    stacking_factor: float | None = Field(None, gt=0.5, le=1, description="Net iron over the stack's gross section. When not given: 0.95 (0.35-0.5 mm laminations, tightly stacked; from memory).")
+    bobbin_wall: Length | None = Field(None, description="Laminated and C cores: thickness of the bobbin's wall and flanges. When not given: 1.0 mm (from memory).")
+    wound_limbs: Literal[1, 2] | None = Field(None, description="U-I and C cores: limbs carrying windings, each taking half of every winding (2), or one (1). When not given: 2.")
+    mass: Mass | None = Field(None, description="Mass of the iron; overrides the mass computed from the geometry.")
+    effective_area: Area | None = Field(None, description="Effective magnetic cross-section A_e (declared cores; overrides a laminated core's).")
     path_length: Length | None = Field(None, description="Effective magnetic path length l_e (declared cores).")
     window_area: Area | None = Field(None, description="Winding window area A_w (declared cores; a toroid's is computed).")
     mean_turn_length: Length | None = Field(None, description="Mean length of one turn (declared cores; a toroid's is computed).")
@@ -72,13 +113,31 @@ class Core(Section):
             raise out_of_range(f"less than the outer diameter ({_text(outer)})", _text(value))
         return value
 
+    @field_validator("lamination")
+    @classmethod
+    def _size_known(cls, value):
+        if value is not None and tongue_of(value) is None:
+            raise _bad("unknown_lamination", f"one of the scrapless E-I sizes ({', '.join(size_names())})", repr(value))
+        return value
+
     @model_validator(mode="after")
     def _shape_complete(self):
-        needed = ("outer_diameter", "inner_diameter", "height") if self.shape == "toroid" else ("effective_area", "path_length")
-        missing = [name for name in needed if getattr(self, name) is None]
+        missing = [name for name in self._needed() if getattr(self, name) is None]
         if missing:
             raise _bad("incomplete_core", f"{', '.join(missing)} for a {self.shape} core", "not given")
+        if self.lamination is not None and self.shape != "ei-lamination":
+            raise _bad("lamination_not_e_i", "a lamination size only with shape ei-lamination", f"shape {self.shape}")
         return self
+
+    def _needed(self) -> tuple:
+        if self.shape == "toroid":
+            return ("outer_diameter", "inner_diameter", "height")
+        if self.shape == "declared":
+            return ("effective_area", "path_length")
+        if self.shape == "ei-lamination":
+            sized = self.lamination is not None or self.limb_width is not None
+            return ("stack",) if sized else ("limb_width", "stack")
+        return ("limb_width", "stack", "window_width", "window_height")
 
 
 class Excitation(Section):

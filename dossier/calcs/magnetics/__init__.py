@@ -12,12 +12,13 @@ from dossier.calcs.magnetics.windings import (
 from dossier.plugins import Calc
 
 TEMP_RISE = "MAG-TEMP-RISE"
+RESISTANCE = "MAG-RESISTANCE"
 
 CODES = {
-    "MAG-CORE": "Effective area, path length, volume, window, mean turn and A_L of a core (IEC 60205 for a toroid).",
+    "MAG-CORE": "Effective area, path length, volume, window, mean turn and A_L of a core (IEC 60205 for a toroid; limb, stack and window for an E-I, U-I or C core).",
     "MAG-RATIO": "Turns ratio of a winding to the driven one, and its peak voltage (at low, nominal and high line where the drive follows the mains).",
     "MAG-FLUX": "Peak flux density (Faraday's law; a choke's from L I / N A_e) against saturation at the hot temperature.",
-    "MAG-CORE-LOSS": "Core loss from the Steinmetz parameters: the Steinmetz equation for a sine flux, the improved generalised Steinmetz equation (iGSE) for square-wave, unipolar and triangular flux.",
+    "MAG-CORE-LOSS": "Core loss from the Steinmetz parameters: the Steinmetz equation for a sine flux, the improved generalised Steinmetz equation (iGSE) for square-wave, unipolar and triangular flux; a silicon-steel transformer's from its loss per kilogram (declared, from the grade, or a high-loss grade's) times the iron mass.",
     "MAG-CURRENT-DENSITY": "Current density in a winding against McLyman's J = K_j A_p^x for the core's size (natural cooling), or a flat figure with forced air.",
     "MAG-RESISTANCE": "DC resistance of a winding at 20 degC and hot, and its copper loss (IEC 60028 copper).",
     "MAG-SKIN": "Wire diameter against two skin depths at the operating frequency, with a hint to use more strands.",
@@ -50,8 +51,8 @@ CALC = Calc(
     title="Magnetics",
     run=run,
     summary=(
-        "Checks hand-wound transformers and chokes: core parameters (IEC 60205 for toroids), turns ratios and winding "
-        "voltages at low, nominal and high line, peak flux density against saturation, core loss (Steinmetz; iGSE for non-sinusoidal flux), current "
+        "Checks hand-wound transformers and chokes: core parameters (IEC 60205 for toroids; E-I, U-I and C cores from their limb, stack and window), turns ratios and winding "
+        "voltages at low, nominal and high line, peak flux density against saturation, core loss (Steinmetz; iGSE for non-sinusoidal flux; silicon steel from its loss per kilogram), current "
         "density (McLyman's K_j), winding temperature against the insulation class (IEC 60085), resistance and copper loss (IEC 60028 copper) with proximity loss in multilayer windings (Dowell), skin depth, window fill with enamel and tape build-up "
         "(IEC 60317, ASTM B258), temperature rise, a choke's inductance, energy and field, and the insulation between windings across a double or reinforced barrier (triple-insulated wire, "
         "tape layers by the thin-sheet rule, split bobbins, end margins; IEC 62368-1, IEC 61558-1)."

@@ -5,11 +5,13 @@ from __future__ import annotations
 from dataclasses import dataclass, replace
 
 from dossier.calcs.shared.finding_kit import maker
+from dossier.calcs.magnetics.bobbin import lay_bobbin
 from dossier.calcs.magnetics.core import CoreGeometry, geometry
 from dossier.calcs.magnetics.currents import winding_current
 from dossier.calcs.magnetics.fill import Fill, lay
 from dossier.calcs.magnetics.voltages import Drive, drive_of
 from dossier.citations import MCLYMAN, MOHAN_POWER_ELECTRONICS
+from dossier.record.magnetics import LAMINATED
 from dossier.units import Q_
 
 DEFAULT_HOT = Q_(100, "degC")
@@ -67,11 +69,15 @@ def context_of(record, index: int, magnetic) -> Context:
         magnetic=magnetic,
         core=geometry(magnetic.core),
         drive=drive,
-        fill=lay(magnetic.core, magnetic.windings),
+        fill=_laid(magnetic.core, magnetic.windings),
         currents=tuple(winding_current(record, magnetic, w, drive) for w in magnetic.windings),
         hot=hot,
         hot_basis=hot_basis,
     )
+
+
+def _laid(core, windings):
+    return lay_bobbin(core, windings) if core.shape in LAMINATED else lay(core, windings)
 
 
 def _hot(material):

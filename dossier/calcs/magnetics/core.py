@@ -6,6 +6,7 @@ import math
 from dataclasses import dataclass
 
 from dossier.calcs.magnetics.formulas import al_from_permeability
+from dossier.calcs.magnetics.lamination import SHAPE_WORDS, lamination_of
 from dossier.units import Q_
 
 
@@ -72,8 +73,39 @@ def declared(core) -> CoreGeometry:
     )
 
 
+def laminated(core) -> CoreGeometry:
+    """An E-I, U-I or C core from its limb, stack and window; a declared A_e, l_e, window, mean turn or surface wins."""
+    lam = lamination_of(core)
+    area = core.effective_area.to("mm**2") if core.effective_area is not None else lam.net_area
+    path = core.path_length.to("mm") if core.path_length is not None else lam.path_length
+    al, al_basis = _al(core, area, path)
+    overridden = [name for name in ("effective_area", "path_length", "window_area", "mean_turn_length", "surface_area")
+                  if getattr(core, name) is not None]
+    return CoreGeometry(
+        effective_area=area,
+        path_length=path,
+        volume=lam.iron_volume if core.effective_area is None and core.path_length is None else (area * path).to("mm**3"),
+        window_area=core.window_area.to("mm**2") if core.window_area is not None else lam.window_area,
+        mean_turn_length=core.mean_turn_length if core.mean_turn_length is not None else lam.mean_turn(Q_(0, "mm"), lam.winding_width),
+        surface_area=core.surface_area,
+        al=al,
+        method=_laminated_method(lam, overridden),
+        al_basis=al_basis,
+    )
+
+
+def _laminated_method(lam, overridden) -> str:
+    path = "2 (w + h) + a/2 + c + 2 y" if lam.shell else "2 (w + h) + 4 a"
+    text = (f"{SHAPE_WORDS[lam.shape]}: A_e = a s k, l_e = {path} through the centre lines of limbs and yokes, A_w = w h, "
+            "iron volume = (outline - windows) s k, bare mean turn at half the window's width on a bobbin")
+    notes = list(lam.basis) + ([f"declared: {', '.join(overridden)}"] if overridden else [])
+    return text + ("; " + "; ".join(notes) if notes else "")
+
+
 def geometry(core) -> CoreGeometry:
-    return toroid(core) if core.shape == "toroid" else declared(core)
+    if core.shape == "toroid":
+        return toroid(core)
+    return declared(core) if core.shape == "declared" else laminated(core)
 
 
 def hole_area(inner):

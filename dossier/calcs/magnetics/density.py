@@ -22,6 +22,7 @@ KJ_TABLE = {
 }
 INSULATION_CLASSES = {"A": 105, "E": 120, "B": 130, "F": 155, "H": 180, "N": 200, "R": 220}  # IEC 60085:2007, Table 1
 HARSHEST_CLASS = "A"
+SHAPE_CONFIGURATION = {"ei-lamination": "lamination", "ui-lamination": "lamination", "c-core": "c-core"}
 # Forced air: no McLyman row; the flat common-practice figure stays.
 FORCED_AIR_LIMIT = Q_(8, "A/mm**2")
 UNSIZED_LIMIT = Q_(5, "A/mm**2")  # upper end of the 2-5 A/mm^2 band for small naturally cooled transformers (common practice)
@@ -45,6 +46,8 @@ def configuration_of(core, family: str) -> tuple[str, str]:
     if core.shape == "toroid":
         found = "tape-wound" if family == "silicon-steel" else "powder"
         return found, f"a {family} toroid; declare core.configuration to change it"
+    if core.shape in SHAPE_CONFIGURATION:
+        return SHAPE_CONFIGURATION[core.shape], f"from the shape {core.shape}"
     lowest = min(KJ_TABLE, key=lambda name: KJ_TABLE[name][0])
     return lowest, "not declared: the lowest K_j of the table taken (harsher reading; declare core.configuration)"
 

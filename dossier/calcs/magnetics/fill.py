@@ -11,13 +11,15 @@ import math
 from dataclasses import dataclass
 
 from dossier.calcs.magnetics.core import hole_area, section_perimeter, toroid_surface
+from dossier.calcs.magnetics.lamination import lamination_of
 from dossier.standards.wire import copper_area, overall_diameter
 from dossier.units import Q_
 
 # Insulating tape at a toroid's hole, half-overlapped polyester: about 0.1 mm per layer (common practice; from memory).
 TAPE_LAYER = Q_(0.1, "mm")
 # Insulated-wire-and-tape fill that can still be wound by hand (common practice): a toroid needs room for the shuttle.
-HAND_FILL_LIMIT = {"toroid": 0.40, "declared": 0.55}
+# A laminated or C core's limit is of its bobbin's winding area (the window less the bobbin).
+HAND_FILL_LIMIT = {"toroid": 0.40, "declared": 0.55, "ei-lamination": 0.55, "ui-lamination": 0.55, "c-core": 0.55}
 
 
 @dataclass(frozen=True)
@@ -101,12 +103,23 @@ def lay(core, windings) -> Fill | None:
 
 
 def wound_surface(core, fill: Fill | None):
-    """Outside surface of a wound toroid: the core grown on every side by the winding build at the hole."""
+    """Outside surface of a wound toroid: the core grown on every side by the winding build at the hole.
+
+    A laminated or C core's: declared, else the box round core and coil (lamination.py).
+    """
+    if core.shape not in ("toroid", "declared"):
+        return core.surface_area if core.surface_area is not None else _bobbin_surface(core, fill)
     if core.shape != "toroid":
         return core.surface_area
     build = (core.inner_diameter - fill.hole_left) / 2 if fill else Q_(0, "mm")
     inner = max(core.inner_diameter - 2 * build, Q_(0, "mm"))
     return toroid_surface(core.outer_diameter + 2 * build, inner, core.height + 2 * build)
+
+
+def _bobbin_surface(core, fill: Fill | None):
+    lam = lamination_of(core)
+    build = sum((layout.build for layout in fill.layouts), Q_(0, "mm")) if fill else lam.winding_width
+    return lam.surface(build)
 
 
 def _layers(count: int, overall, hole_radius) -> int:

@@ -6,9 +6,12 @@ from dossier.calcs.magnetics import words
 from dossier.calcs.magnetics.context import CHOKE, FARADAY, FORWARD_RESET, STEINMETZ, make
 from dossier.calcs.magnetics.losses import choke_figures, core_loss, flux_swing, remanence, transformer_flux
 from dossier.calcs.magnetics.saturation import family_of, rule_for
+from dossier.calcs.magnetics.steel import steel_loss_finding
 
 from dossier.calcs.magnetics.voltages import LINES, winding_voltages
+from dossier.calcs.magnetics.lamination import LAMINATION_SOURCES
 from dossier.citations import IEC_60205, IGSE
+from dossier.record.magnetics import LAMINATED
 from dossier.findings import Measure, Verdict, common_practice, judge
 from dossier.units import Q_
 
@@ -19,10 +22,12 @@ FIELD_PRACTICE = common_practice("DC field kept below where the maker's permeabi
 
 def core_finding(ctx):
     core = ctx.core
+    shape = ctx.magnetic.core.shape
+    volume_label = "iron volume" if shape in LAMINATED else "effective volume V_e"
     values = [Measure("effective area A_e", core.effective_area), Measure("path length l_e", core.path_length),
-              Measure("effective volume V_e", core.volume.to("cm**3"))]
+              Measure(volume_label, core.volume.to("cm**3"))]
     values += [Measure(label, q) for label, q in (("window area A_w", core.window_area), ("bare mean turn", core.mean_turn_length), ("A_L", core.al)) if q is not None]
-    sources = (IEC_60205,) if ctx.magnetic.core.shape == "toroid" else (MAKER_DATA,)
+    sources = {"toroid": (IEC_60205,), "declared": (MAKER_DATA,)}.get(shape, LAMINATION_SOURCES)
     return make("MAG-CORE", ctx.ref, words.core_title(ctx.ref), Verdict.INFO, values=tuple(values),
                 method=core.method, explanation=words.core_text(values[1:], core.al_basis), keys=(ctx.key("core"),), sources=sources)
 
@@ -94,6 +99,8 @@ def core_loss_findings(ctx):
     found = core_loss(ctx)
     if found is None:
         return []
+    if found.method == "specific-loss":
+        return [steel_loss_finding(ctx, found)]
     extra = (Measure("loss per volume", found.density), Measure("peak flux density used", found.flux),
              Measure("flux swing delta-B", found.swing), Measure("frequency", ctx.frequency))
     sources = (STEINMETZ,) if found.method == "sine" else (STEINMETZ, IGSE)

@@ -43,7 +43,7 @@ def _choke(ctx):
 
 
 def _surface(ctx):
-    if ctx.magnetic.core.shape == "toroid" or ctx.magnetic.core.surface_area is not None:
+    if ctx.magnetic.core.shape != "declared" or ctx.magnetic.core.surface_area is not None:
         return None
     return _missing(ctx, ctx.ref, "Temperature rise", ctx.key("core"),
                     words.SURFACE_HINT, TEMPERATURE_RISE)

@@ -6,6 +6,7 @@ from dataclasses import dataclass
 
 from dossier.calcs.magnetics import formulas as m
 from dossier.calcs.magnetics.saturation import family_of
+from dossier.calcs.magnetics.steel import steel_loss, uses_specific_loss
 from dossier.standards.copper import REFERENCE_TEMPERATURE, resistance, skin_depth
 from dossier.units import Q_
 
@@ -121,10 +122,12 @@ def core_loss(ctx) -> CoreLoss | None:
     """Core loss at nominal line (a choke: at its ripple flux); None without parameters.
 
     A sine flux by the Steinmetz equation; any other by the improved generalised Steinmetz equation (iGSE) from the
-    flux waveform the drive gives.
+    flux waveform the drive gives. Silicon steel in a transformer: from its loss per kilogram (steel.py).
     """
     steinmetz = ctx.magnetic.core.material.steinmetz
     found = _swing_and_shape(ctx)
+    if found is not None and uses_specific_loss(ctx):
+        return steel_loss(ctx, found[0] / 2)
     if steinmetz is None or found is None:
         return None
     swing, shape = found

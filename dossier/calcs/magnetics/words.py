@@ -99,6 +99,19 @@ def core_loss_method(shape: str, choke: bool) -> str:
     return CORE_LOSS_METHODS[shape] + (" at the ripple flux" if choke else " at nominal line")
 
 
+def steel_loss_method(beta: float, alpha: float, alpha_basis: str, mass_basis: str) -> str:
+    return (f"P = p_rated (B_pk / B_rated)^{beta:g} (f / f_rated)^{alpha:g} m at nominal line; frequency exponent: {alpha_basis}; "
+            f"iron mass m: {mass_basis}")
+
+
+def steel_loss_text(measures, rated_basis: str, harsher: bool) -> str:
+    text = f"{listing(measures)} Loss figure: {rated_basis}."
+    if harsher:
+        text += (" The record gives no loss figure for this steel, so a high-loss grade's is taken (harsher reading): "
+                 "declare core.material.specific_loss (the maker's W/kg at a flux density and frequency) or core.material.grade.")
+    return text
+
+
 # --- choke ----------------------------------------------------------------------------------------------------
 
 def choke_title(ref: str) -> str:
