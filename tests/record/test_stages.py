@@ -88,7 +88,10 @@ def test_a_two_stage_circle_is_reported_once_at_the_entry_that_closes_it():
     assert [error["loc"] for error in raised.value.errors()] == [("stages", 1, "fed_from", 0)]
 
 
-@pytest.mark.parametrize("path", sorted(DEMO.glob("*/rev-*.yaml")), ids=lambda p: f"{p.parent.name}/{p.stem}")
-def test_every_demo_record_is_still_one_chain(path):
+CHAINS = [path for path in sorted(DEMO.glob("*/rev-*.yaml")) if "fed_from" not in path.read_text(encoding="utf-8")]
+
+
+@pytest.mark.parametrize("path", CHAINS, ids=lambda p: f"{p.parent.name}/{p.stem}")
+def test_every_demo_record_written_without_fed_from_is_still_one_chain(path):
     record = load_record(path).record
     assert all(s.feeds_from == ((record.stages[i - 1].id,) if i else ()) for i, s in enumerate(record.stages))

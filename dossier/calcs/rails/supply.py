@@ -113,6 +113,8 @@ def regulator_findings(record, voltages: dict[str, RailVoltage]) -> list[Finding
 def _regulator(record, index, stage, voltages) -> list[Finding]:
     own = [v for v in voltages.values() if record.rails[v.index].stage == stage.id and record.rails[v.index].current is not None]
     title = f"Stage '{stage.name}': regulator dissipation"
+    if not record.rails:
+        return [_stage_info(index, stage, words.NO_RAILS_REGULATOR)]
     if not own:
         return [not_assessed(NAME, "RAILS-REGULATOR", stage.name, title, words.NO_REGULATOR_INPUT, (("stages", index),), (MOHAN_POWER_ELECTRONICS,))]
     out_rail = own[0]

@@ -122,6 +122,10 @@ def shunt(name: str, power, current, v_out) -> str:
 NO_REGULATOR_INPUT = ("no rail is declared for the stage feeding this regulator, and no rail with current for the regulator "
                       "itself, so its input and dissipation are unknown: declare both rails")
 
+NO_RAILS_REGULATOR = ("A linear regulator: the record declares no rails, so its input and output are taken from the output "
+                      "section by the other calcs and its dissipation is not computed here; declare the rails (the one "
+                      "feeding it and its own, with current) to have the pass device's dissipation at high line worked out.")
+
 # --- rectifiers and stages -------------------------------------------------------------------------------
 
 RECTIFIER_WORDS = {
