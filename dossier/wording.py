@@ -367,6 +367,11 @@ PROBLEM_TEXT.update({
     "hidden_character": "text holds a control or direction-changing character",
     "blank_text": "text is blank",
     "duplicate_designator": "designator given twice",
+    "unknown_topology": "topology not known for this kind of stage",
+    "duplicate_stage_id": "stage id given twice",
+    "unknown_stage": "no stage has this id",
+    "stage_loop": "stages feed each other round a circle",
+    "duplicate_rail": "rail name given twice",
     "revision_spelt_twice": "one revision in two files",
     "attachment_type": "attachment of a type that is not published",
     "attachment_name": "attachment name would break its link",
@@ -384,6 +389,8 @@ HELP_SECTIONS = {
         "missing_unit", "wrong_dimension", "unknown_unit", "not_a_quantity", "below_absolute_zero", "value_out_of_range",
         "temperature_not_rise", "temperature_difference")),
     "keys": ("docs/writing-records.md#keys", ("missing", "extra_forbidden", "duplicate_key", "literal_error", "string_pattern_mismatch")),
+    "stages and rails": ("docs/writing-records.md#stages-and-rails", (
+        "unknown_topology", "duplicate_stage_id", "unknown_stage", "stage_loop", "duplicate_rail")),
     "YAML": ("docs/writing-records.md#yaml-itself", (
         "yaml_syntax", "yaml_value", "yaml_tag", "merge_key", "bad_key", "not_a_mapping", "not_utf8", "control_character",
         "too_many_nodes", "too_deep", "file_too_large")),

@@ -118,9 +118,14 @@ def _as_pydantic_error(problem: UnitProblem) -> PydanticCustomError:
     return PydanticCustomError(problem.kind, "expected {expected}, found {found}", {"expected": problem.expected, "found": problem.found})
 
 
+def problem(kind: str, expected: str, found: str) -> PydanticCustomError:
+    """A validation problem of this kind, worded as 'expected ..., found ...'."""
+    return PydanticCustomError(kind, "expected {expected}, found {found}", {"expected": expected, "found": found})
+
+
 def out_of_range(expected: str, found: str) -> PydanticCustomError:
     """The one wording for a value outside its range."""
-    return PydanticCustomError("value_out_of_range", "expected {expected}, found {found}", {"expected": expected, "found": found})
+    return problem("value_out_of_range", expected, found)
 
 
 def _validator(dimension: str, span: Span | None):

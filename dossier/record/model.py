@@ -11,7 +11,8 @@ from dossier.record.insulation import Barrier
 from dossier.record.magnetics import Magnetic
 from dossier.record.output import Output
 from dossier.record.protection import Protection
-from dossier.record.stages import Stage
+from dossier.record.rails import Rail, rail_problems
+from dossier.record.stages import Stage, default_stage_ids, graph_problems
 from dossier.record.supply import Environment, Mains
 
 
@@ -20,12 +21,13 @@ class Record(Identity):
 
     mains: Mains | None = Field(None, description="The mains supply; leave out only for units with no mains connection.")
     environment: Environment = Field(default_factory=Environment, description="Where the unit lives: pollution degree, altitude, ambient.")
-    stages: list[Stage] = Field(default_factory=list, description="The build's stages in signal order, mains first, each with its parts.")
+    stages: list[Stage] = Field(default_factory=list, description="The build's stages in signal order, mains first, each with its parts; a stage names the stages it is fed from, so branches (heater, bias) form a graph.")
     magnetics: list[Magnetic] = Field(default_factory=list, description="Wound components: transformers, base-drive transformers, chokes.")
     barriers: list[Barrier] = Field(default_factory=list, description="Isolation barriers with their declared creepage and clearance.")
     protection: Protection = Field(default_factory=Protection, description="Fuses, inrush limiting, earthing and output protection.")
     devices: Devices = Field(default_factory=Devices, description="Power semiconductors, capacitors under stress, heatsinks, soak readings.")
     output: Output | None = Field(None, description="What the unit delivers; for a charger, the battery.")
+    rails: list[Rail] = Field(default_factory=list, description="Every supply the unit makes (B+, heater, bias, +15 V), each from the stage that delivers it.")
     attachments: list[Attachment] = Field(default_factory=list, description="Photos and datasheets kept in the build folder.")
     notes: str = Field("", description="Free notes in Markdown.")
 
@@ -33,13 +35,34 @@ class Record(Identity):
     def has_mains(self) -> bool:
         return self.mains is not None
 
+    @property
+    def stage_ids(self) -> list[str]:
+        return [stage.id for stage in self.stages]
+
+    def stage_by_id(self, stage_id: str):
+        """(index, stage) of the stage with this id, or None."""
+        return next(((index, stage) for index, stage in enumerate(self.stages) if stage.id == stage_id), None)
+
+    @model_validator(mode="before")
+    @classmethod
+    def _stage_defaults(cls, data):
+        """Stages without an id are s1, s2, ... by position, each fed from the one before unless it says."""
+        if isinstance(data, dict) and isinstance(data.get("stages"), list):
+            data = {**data, "stages": default_stage_ids(data["stages"])}
+        return data
+
     @model_validator(mode="after")
     def _designators_once(self):
         """Each part listed once: a designator given twice would let a finding name the wrong part."""
         twice = [error for places in self._designator_lists() for error in _repeated(places)]
-        if twice:
-            # raised with each repeat's own place, so every one is reported at its file:line:column
-            raise ValidationError.from_exception_data(type(self).__name__, twice)
+        _raise_located(self, twice)
+        return self
+
+    @model_validator(mode="after")
+    def _graph_holds(self):
+        """Stage ids once, every fed_from and rail naming a stage that exists, no stage fed round a circle."""
+        found = list(graph_problems(self.stages)) + list(rail_problems(self.rails, self.stage_ids))
+        _raise_located(self, [InitErrorDetails(type=problem, loc=where, input=None) for where, problem in found])
         return self
 
     def _designator_lists(self):
@@ -49,6 +72,12 @@ class Record(Identity):
         yield [(("devices", "semiconductors", d, "ref"), device.ref) for d, device in enumerate(self.devices.semiconductors)] + [
             (("devices", "heatsinks", h, "ref"), sink.ref) for h, sink in enumerate(self.devices.heatsinks)
         ]
+
+
+def _raise_located(record, errors: list) -> None:
+    """Raise the problems each with its own place, so every one is reported at its file:line:column."""
+    if errors:
+        raise ValidationError.from_exception_data(type(record).__name__, errors)
 
 
 def _repeated(places: list[tuple[tuple, str]]):

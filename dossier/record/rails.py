@@ -1,0 +1,45 @@
+"""The unit's rails: every supply it makes inside or brings out (B+, heater, bias, +12 V), each from the stage
+that delivers it. Whether a rail is hazardous is worked out by the calcs from its voltage, never declared."""
+
+from __future__ import annotations
+
+from typing import Literal
+
+from pydantic import Field, model_validator
+
+from dossier.record.fields import Capacitance, Current, Name, Resistance, Section, Voltage, out_of_range, problem
+from dossier.record.stages import StageId
+from dossier.units import fmt
+
+
+class Rail(Section):
+    name: Name = Field(description="What the unit calls it, e.g. 'B+', 'heater', 'bias', '+15 V'; unique in the record.")
+    stage: StageId = Field(description="Id of the stage that delivers it, e.g. ht-filter.")
+    voltage: Voltage = Field(description="Nominal voltage at rated load and nominal mains: DC, or AC RMS for an AC rail (a heater winding), e.g. 350 V; a size, also for a negative rail.")
+    kind: Literal["dc", "ac"] = Field("dc", description="dc or ac.")
+    current: Current | None = Field(None, description="Rated load current, e.g. 120 mA.")
+    no_load_voltage: Voltage | None = Field(None, description="Voltage with no load at nominal mains, measured or from the transformer's regulation, e.g. 395 V.")
+    capacitance: Capacitance | None = Field(None, description="Total reservoir and filter capacitance across the rail (a series bank counts as its series value), e.g. 50 uF.")
+    bleeder: Resistance | None = Field(None, description="Resistance across the rail that discharges it after switch-off (bleeder, balancing resistors in series), e.g. 220 kohm.")
+    polarity: Literal["positive", "negative"] = Field("positive", description="positive or negative with respect to the unit's 0 V (a DC rail).")
+    accessible: bool = Field(False, description="It is brought out to a terminal or socket someone can touch.")
+
+    @model_validator(mode="after")
+    def _no_load_not_below_load(self):
+        if self.no_load_voltage is not None and self.no_load_voltage < self.voltage:
+            raise out_of_range(f"no_load_voltage at least the loaded voltage ({fmt(self.voltage)})", fmt(self.no_load_voltage))
+        return self
+
+
+def rail_problems(rails: list[Rail], stage_ids: list[str]):
+    """(key path, problem) for each rail named twice and each rail whose stage is not in the record."""
+    first: dict[str, int] = {}
+    for index, rail in enumerate(rails):
+        if rail.name in first:
+            yield ("rails", index, "name"), problem("duplicate_rail", "each rail name once", f"{rail.name!r} again (first at rails[{first[rail.name]}].name)")
+        else:
+            first[rail.name] = index
+        if rail.stage not in stage_ids:
+            known = ", ".join(dict.fromkeys(stage_ids)) or "none: the record lists no stages"
+            yield ("rails", index, "stage"), problem("unknown_stage", f"the id of a stage in this record ({known})", repr(rail.stage))
+
