@@ -69,7 +69,7 @@ def _stage_view(record, position: int, barriers, graph: Graph) -> StageView:
         kind=stage.kind,
         name=stage.name,
         side=stage.side,
-        topology=stage.topology,
+        topology=stage.topology_name,
         parts=parts,
         magnetics=tuple(magnetic_view(m) for m in record.magnetics if m.ref in refs),
         barriers=tuple(b for b in barriers if refs & set(b.parts)),

@@ -11,6 +11,8 @@ from dossier.drawing import parts as P
 from dossier.drawing import sheet
 from dossier.drawing.drawers import StageDrawer, finish_stage
 from dossier.drawing.parts import Picker
+from dossier.drawing.stages.ladder import polarised
+from dossier.drawing.stages.rectifier import diode_symbol
 from dossier.drawing.symbols import Box, BridgeRectifier, ProtectiveEarth, Winding
 from dossier.drawing.views import PartView, StageView
 
@@ -28,6 +30,11 @@ def draw(view: StageView):
     x = _series(drawing, picker.take_all(P.either(P.FUSE, P.SWITCH, P.INRUSH)))
     x = _shunts(drawing, x, picker.take_all(P.SHUNT))
     x, names = _transformation(drawing, x, view, picker)
+    if view.topology in MAINS_RECTIFIERS and picker.peek(P.DIODE):
+        x = MAINS_RECTIFIERS[view.topology](drawing, x, picker)
+        x = _shunts(drawing, x, picker.take_all(P.either(P.BULK, P.SPLIT)))
+        _rails_out(drawing, x, ("+DC", "\u2212DC"), view.goes_to)
+        return finish_stage(drawing, view, picker)
     bridge = picker.take(P.BRIDGE)
     if bridge is None:
         _rails_out(drawing, x, names, view.goes_to)
@@ -170,6 +177,51 @@ def _variac(drawing, x: float, part: PartView) -> float:
     sheet.wire(drawing, (wiper, tap), (wiper, LINE_Y))
     sheet.text(drawing, (coil, NEUTRAL_Y - 0.4), part.label, halign="center", valign="top")
     return wiper
+
+
+def _half_wave(drawing, x: float, picker: Picker) -> float:
+    """One diode in the line conductor: the neutral becomes the negative rail."""
+    diode = picker.take(P.DIODE)
+    length = max(sheet.UNIT, sheet.text_width(diode.label) + 0.5)
+    sheet.add(drawing, diode_symbol(diode).at((x, LINE_Y)).right(length).label(diode.label, loc="top"))
+    sheet.wire(drawing, (x, NEUTRAL_Y), (x + length, NEUTRAL_Y))
+    return x + length
+
+
+DOUBLER_TOP, DOUBLER_BOTTOM, DIODE_TOP = LINE_Y + 2.2, NEUTRAL_Y - 2.4, NEUTRAL_Y - 2.4 + sheet.UNIT
+
+
+def _doubler(drawing, x: float, picker: Picker) -> float:
+    """The full-wave doubler straight off the mains: the line to the diodes' midpoint, the neutral to the
+    midpoint of the two reservoir capacitors (crossing the diode column's wire, not joining it)."""
+    diodes = [picker.take(P.DIODE), picker.take(P.DIODE)]
+    capacitors = [c for c in (picker.take(P.CAPACITOR), picker.take(P.CAPACITOR)) if c is not None]
+    diode_x = x + 0.8
+    sheet.wire(drawing, (x, LINE_Y), (diode_x, LINE_Y))
+    upper = [d for d in diodes if d is not None]
+    sheet.add(drawing, diode_symbol(upper[0]).at((diode_x, LINE_Y)).to((diode_x, DOUBLER_TOP)))
+    sheet.text(drawing, (diode_x - 0.45, (LINE_Y + DOUBLER_TOP) / 2), upper[0].label, halign="right")
+    lower = upper[-1]
+    sheet.add(drawing, diode_symbol(lower).at((diode_x, DOUBLER_BOTTOM)).to((diode_x, DIODE_TOP)))
+    sheet.wire(drawing, (diode_x, DIODE_TOP), (diode_x, LINE_Y))
+    sheet.text(drawing, (diode_x - 0.45, (DOUBLER_BOTTOM + DIODE_TOP) / 2), lower.label if lower is not upper[0] else lower.ref, halign="right")
+    sheet.dot(drawing, (diode_x, LINE_Y))
+    cap_x = diode_x + 2.2
+    sheet.wire(drawing, (x, NEUTRAL_Y), (cap_x, NEUTRAL_Y))
+    for part, (top, bottom) in zip(capacitors, ((DOUBLER_TOP, NEUTRAL_Y), (NEUTRAL_Y, DOUBLER_BOTTOM))):
+        sheet.add(drawing, elm.Capacitor(polar=polarised(part)).at((cap_x, top)).to((cap_x, bottom)))
+        sheet.text(drawing, (cap_x + 0.45, (top + bottom) / 2), part.label)
+    sheet.dot(drawing, (cap_x, NEUTRAL_Y))
+    right = cap_x + max((sheet.text_width(c.label) for c in capacitors), default=0.0) + 0.9
+    for y in (DOUBLER_TOP, DOUBLER_BOTTOM):
+        sheet.wire(drawing, (diode_x, y), (right, y))
+        sheet.dot(drawing, (cap_x, y))
+    sheet.wire(drawing, (right, DOUBLER_TOP), (right, LINE_Y))
+    sheet.wire(drawing, (right, DOUBLER_BOTTOM), (right, NEUTRAL_Y))
+    return right
+
+
+MAINS_RECTIFIERS = {"half-wave": _half_wave, "doubler": _doubler}
 
 
 def _rails_out(drawing, x: float, names: tuple[str, str], goes_to: str) -> None:
