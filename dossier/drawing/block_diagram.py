@@ -35,7 +35,7 @@ def draw(view: DiagramView):
         grid.connect(drawing, block)
     barrier_x = _barrier_x(view.blocks, grid)
     _shade_mains(drawing, view.blocks, grid, barrier_x)
-    _hatch_high_voltage(drawing, view.blocks, grid)
+    _hatch_high_voltage(drawing, view.blocks, grid, barrier_x)
     if barrier_x is not None:
         _barrier(drawing, barrier_x, grid, view)
     _barrier_list(drawing, view.others, "Other barriers (not across the circuit):")
@@ -202,10 +202,13 @@ def _next(grid: Grid, key: str) -> str:
     return next((k for k, p in grid.places.items() if p.parent == key and not p.branch), "")
 
 
-def _hatch_high_voltage(drawing, blocks, grid: Grid) -> None:
-    """Hatch each run of isolated blocks above extra-low voltage."""
+def _hatch_high_voltage(drawing, blocks, grid: Grid, barrier_x) -> None:
+    """Hatch each run of isolated blocks above extra-low voltage; a run starting at the block that forms
+    the barrier starts at the barrier, so the hatching never covers the mains side."""
     for run in _runs(blocks, grid, lambda b: b.hazardous_dc):
         left, right = grid.left(run[0]) - MARGIN, grid.right(run[-1]) + MARGIN
+        if barrier_x is not None and left < barrier_x < grid.right(run[0]):
+            left = barrier_x
         top, bottom = grid.top(run[0]) + MARGIN, min(grid.lowest(k) for k in run) - 0.2
         sheet.shade_high_voltage(drawing, (left, top), (right, bottom))
 
