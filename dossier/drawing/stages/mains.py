@@ -200,13 +200,13 @@ def _doubler(drawing, x: float, picker: Picker) -> float:
     sheet.wire(drawing, (x, LINE_Y), (diode_x, LINE_Y))
     upper = [d for d in diodes if d is not None]
     sheet.add(drawing, diode_symbol(upper[0]).at((diode_x, LINE_Y)).to((diode_x, DOUBLER_TOP)))
-    sheet.text(drawing, (diode_x - 0.45, (LINE_Y + DOUBLER_TOP) / 2), upper[0].label, halign="right")
+    sheet.text(drawing, (diode_x + 0.45, (LINE_Y + DOUBLER_TOP) / 2), upper[0].label)
     lower = upper[-1]
     sheet.add(drawing, diode_symbol(lower).at((diode_x, DOUBLER_BOTTOM)).to((diode_x, DIODE_TOP)))
     sheet.wire(drawing, (diode_x, DIODE_TOP), (diode_x, LINE_Y))
-    sheet.text(drawing, (diode_x - 0.45, (DOUBLER_BOTTOM + DIODE_TOP) / 2), lower.label if lower is not upper[0] else lower.ref, halign="right")
+    sheet.text(drawing, (diode_x + 0.45, (DOUBLER_BOTTOM + DIODE_TOP) / 2), lower.label if lower is not upper[0] else lower.ref)
     sheet.dot(drawing, (diode_x, LINE_Y))
-    cap_x = diode_x + 2.2
+    cap_x = diode_x + max(sheet.text_width(d.label) for d in upper) + 1.0
     sheet.wire(drawing, (x, NEUTRAL_Y), (cap_x, NEUTRAL_Y))
     for part, (top, bottom) in zip(capacitors, ((DOUBLER_TOP, NEUTRAL_Y), (NEUTRAL_Y, DOUBLER_BOTTOM))):
         sheet.add(drawing, elm.Capacitor(polar=polarised(part)).at((cap_x, top)).to((cap_x, bottom)))

@@ -29,7 +29,7 @@ def draw(view: StageView):
     full_wave = view.topology.lower() == "valve-centre-tapped"
     tube = _valve(drawing, valve, full_wave)
     ret = _secondary(drawing, view, tube, full_wave)
-    right = _heater(drawing, view, tube, valve)
+    right = max(_heater(drawing, view, tube, valve), TUBE_X - 0.45 + sheet.text_width(valve.label) + 0.3)
     live_from = tube.heat1 if directly_heated(valve) else (tube.cathodeB_R if full_wave else tube.cathode_R)
     sheet.wire(drawing, live_from, (live_from[0], TOP), (right, TOP))
     sheet.wire(drawing, (TUBE_X, ret), (right, ret))
@@ -51,7 +51,7 @@ def _valve(drawing, valve: PartView, full_wave: bool):
     else:
         symbol = elm.VacuumTube(grids=0, heater=True, cathode=cathode)
     tube = sheet.add(drawing, symbol.theta(90).at((TUBE_X, TUBE_Y)))
-    sheet.text(drawing, (TUBE_X + 0.9, TUBE_Y - 1.55), valve.label, halign="center", valign="top")
+    sheet.text(drawing, (TUBE_X - 0.45, TUBE_Y - 1.55), valve.label, valign="top")
     return tube
 
 
