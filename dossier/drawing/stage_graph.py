@@ -2,8 +2,9 @@
 delivers, and which stages carry a voltage above the extra-low-voltage limits.
 
 Which rails are hazardous comes from the review when a calc hands that on (see schematics.draw);
-without it, a rail is taken as hazardous above the ES1 limits of IEC 62368-1:2023, Table 4 (60 V DC,
-30 V RMS AC), the lower of the published extra-low-voltage limits and so the harsher reading.
+without it, a rail is taken as hazardous above the ES1 limits of IEC 62368-1 edition 3.0 (2018), Table 4 (60 V DC,
+30 V RMS AC; table number from memory), the lower of the published extra-low-voltage limits and so the
+harsher reading.
 """
 
 from __future__ import annotations
