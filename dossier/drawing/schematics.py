@@ -56,15 +56,17 @@ class Schematics:
     notes: tuple[Finding, ...]
 
 
-def draw(record, findings=(), cache=None) -> Schematics:
+def draw(record, findings=(), cache=None, hazardous=None) -> Schematics:
+    """hazardous maps a rail's name to whether it is above the extra-low-voltage limits, as a calc judged it;
+    None (or a rail it leaves out) is judged by dossier.drawing.stage_graph.above_elv."""
     store = cache if cache is not None else NoCache()
-    views = stage_views(record, list(findings))
-    drawn = [_block_figure(record, list(findings), store)] + [_stage_figure(view, store) for view in views]
+    views = stage_views(record, list(findings), hazardous)
+    drawn = [_block_figure(record, list(findings), store, hazardous)] + [_stage_figure(view, store) for view in views]
     return Schematics(figures=tuple(drawn), notes=tuple(_notes(views)))
 
 
-def figures(record, findings=(), cache=None) -> list[Figure]:
-    return list(draw(record, findings, cache).figures)
+def figures(record, findings=(), cache=None, hazardous=None) -> list[Figure]:
+    return list(draw(record, findings, cache, hazardous).figures)
 
 
 def notes(record) -> list[Finding]:
@@ -83,8 +85,8 @@ def plan(view: StageView) -> tuple[StageDrawer | None, str]:
     return drawer, ""
 
 
-def _block_figure(record, findings, store) -> Figure:
-    view = diagram_view(record, findings)
+def _block_figure(record, findings, store, hazardous=None) -> Figure:
+    view = diagram_view(record, findings, hazardous)
     key = content_key(view.key, view)
     svg = store.get_or_draw(key, lambda: _finished(draw_block_diagram(view), view.key, key, "Block diagram"))
     return Figure(key=view.key, title="Block diagram", svg=svg, section=SECTION)

@@ -1,7 +1,7 @@
 """The stage graph and rails as drawings need them: each stage's id and sources, the rails each stage
 delivers, and which stages carry a voltage above the extra-low-voltage limits.
 
-Which rails are hazardous comes from the review when a calc hands that on (see schematics.draw);
+Which rails are hazardous comes from the review when a calc hands that on (schematics.draw(hazardous=...));
 without it, a rail is taken as hazardous above the ES1 limits of IEC 62368-1 edition 3.0 (2018), Table 4 (60 V DC,
 30 V RMS AC; table number from memory), the lower of the published extra-low-voltage limits and so the
 harsher reading.
