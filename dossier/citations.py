@@ -158,3 +158,53 @@ BU_410 = Source(
     clause="Table 1, permissible charge temperatures: lead-acid -20 to 50 degC (from memory; page date not confirmed)",
     kind="reference",
 )
+IEC_62368_1_ES1 = Source(
+    title=IEC_62368_1.title,
+    publisher=IEC_62368_1.publisher,
+    edition="edition 3.0, 2018",
+    clause=("5.2.2.2 and Table 4, electrical energy source ES1 limits for steady-state voltage: 60 V DC, 30 V RMS and "
+            "42.4 V peak AC (figures from memory); above them a source is ES2 or ES3 and needs safeguards"),
+)
+IEC_61140_ELV = Source(
+    title=IEC_61140.title,
+    publisher=IEC_61140.publisher,
+    edition="edition 4.0, 2016",
+    clause="extra-low voltage: up to 50 V AC or 120 V ripple-free DC (the voltage bands of IEC 60449; figures from memory)",
+)
+IEC_60204_1_RESIDUAL = Source(
+    title="IEC 60204-1, Safety of machinery - Electrical equipment of machines - Part 1: General requirements",
+    publisher="International Electrotechnical Commission",
+    edition="edition 6.0, 2016",
+    clause=("6.2.4, protection against residual voltages: live parts above 60 V after the supply is removed are "
+            "discharged to 60 V or less within 5 s; parts storing 60 uC or less are exempt (checked against a public "
+            "summary of the clause)"),
+)
+IEC_60335_1_PLUG_DISCHARGE = Source(
+    title=IEC_60335_1.title,
+    publisher=IEC_60335_1.publisher,
+    edition=IEC_60335_1.edition,
+    clause=("22.5, charged capacitors at the plug pins: one second after disconnection at the peak of the supply the "
+            "voltage between the pins does not exceed 34 V; capacitors of 0.1 uF or less need no test (checked against "
+            "public test-report discussion of the clause)"),
+)
+IEC_60335_1_RESISTANCE_METHOD = Source(
+    title=IEC_60335_1.title,
+    publisher=IEC_60335_1.publisher,
+    edition=IEC_60335_1.edition,
+    clause=("11.3, temperature rise of windings by the resistance method: dT = (R2 - R1) / R1 x (k + t1) - (t2 - t1), "
+            "k = 234.5 for copper (from memory); IEC 60076-2 (edition 3.0, 2011) uses the same relation with 235"),
+)
+IEC_60076_2 = Source(
+    title="IEC 60076-2, Power transformers - Part 2: Temperature rise for liquid-immersed transformers",
+    publisher="International Electrotechnical Commission",
+    edition="edition 3.0, 2011",
+    clause="winding temperature from the change of its resistance, copper constant 235 (from memory)",
+)
+ARRL_FILTERS = Source(
+    title=ARRL_HANDBOOK.title,
+    publisher=ARRL_HANDBOOK.publisher,
+    clause=("power supplies chapter: rectifier circuits (output voltage, peak inverse voltage, ripple frequency), "
+            "capacitor-input and choke-input filters (ripple V_r = I / (f_r C); choke-input output about 0.9 V_RMS "
+            "above the critical inductance); bleeder resistors"),
+    kind="handbook",
+)

@@ -4,8 +4,10 @@ from __future__ import annotations
 
 from dataclasses import dataclass
 
-from dossier.caution import POWER_UP_CAUTION
-from dossier.checklist import barriers, general, output_items, soak
+from dossier.calcs.rails import HAZARDS
+from dossier.calcs.rails.hazards import NAME as RAILS
+from dossier.caution import POWER_UP_CAUTION, beyond_mains_caution, rail_label
+from dossier.checklist import barriers, general, output_items, rails, soak
 from dossier.checklist.fuse import fuse_item
 from dossier.checklist.items import Item, Phase
 from dossier.findings import Finding
@@ -51,7 +53,7 @@ def build_checklist(record, review: Review, signoff=None, ledger_head: str = "")
         build=record.id,
         revision=record.revision,
         title=record.title,
-        caution=POWER_UP_CAUTION,
+        caution=_caution(review),
         blockers=tuple(f for f in review.findings if f.blocks_power_up),
         items=tuple(_ordered(all_items(record, review))),
     )
@@ -73,10 +75,16 @@ def all_items(record, review: Review) -> list[Item]:
         *output_items.minimum_load(record),
         general.series_lamp(record),
         general.bleed_capacitors(record),
+        *rails.rail_items(record, review),
         *output_items.setting_items(record),
         *output_items.battery_lead_items(record),
-        *soak.soak_items(record, findings),
+        *soak.soak_items(record, findings, hazardous_rails=bool(review.product(RAILS, HAZARDS))),
     ]
+
+
+def _caution(review: Review) -> str:
+    hazards = review.product(RAILS, HAZARDS) or ()
+    return " ".join(part for part in (POWER_UP_CAUTION, beyond_mains_caution([rail_label(h) for h in hazards])) if part)
 
 
 def _ordered(items: list[Item]) -> list[Item]:

@@ -12,6 +12,7 @@ from dataclasses import dataclass
 from dossier.calcs.magnetics import TEMP_RISE
 from dossier.calcs.thermal import HEATSINK, JUNCTION
 from dossier.checklist.items import Item, Origin, Phase, at_least, at_most, slug
+from dossier.checklist.windings import winding_by_resistance
 from dossier.findings import common_practice
 from dossier.units import Q_, fmt
 
@@ -26,12 +27,17 @@ class RiseLimit:
     sources: tuple = ()
 
 
-def soak_items(record, findings) -> list[Item]:
-    if record.output is None:
+def soak_items(record, findings, hazardous_rails: bool = False) -> list[Item]:
+    """hazardous_rails: the unit makes voltages beyond the mains, so every wound part may sit at one."""
+    if record.output is None and not record.rails:
         return []
     by_code = _index(findings)
     places = [_heatsink(sink, record, by_code) for sink in record.devices.heatsinks]
-    places += [_magnetic(part, by_code) for part in record.magnetics]
+    for part in record.magnetics:
+        if hazardous_rails:
+            places += winding_by_resistance(part, _magnetic_limit(part, by_code))
+        else:
+            places.append(_magnetic(part, by_code))
     return [_run(record), _room()] + places
 
 
@@ -41,11 +47,12 @@ def _index(findings) -> dict:
 
 def _run(record) -> Item:
     output = record.output
+    load = f"{fmt(output.current)} at {fmt(output.voltage)}" if output is not None else "every rail at its rated current"
     return Item(
         key="soak-run", phase=Phase.SOAK, origin=Origin.BUILD,
-        title=f"Run at full load, {fmt(output.current)} at {fmt(output.voltage)}",
+        title=f"Run at full load, {load}",
         steps=(
-            f"With the covers in place as in use, run the unit at {fmt(output.current)} into a load for at least "
+            f"With the covers in place as in use, run the unit at {load} into a load for at least "
             f"{fmt(SOAK_TIME)} and {SETTLED}. Enter how long it ran."
         ),
         unit="minute",
@@ -82,10 +89,14 @@ def _rise_item(ref: str, what: str, estimate, limit: RiseLimit | None) -> Item:
 def _magnetic(part, by_code) -> Item:
     finding = by_code.get((TEMP_RISE, part.ref))
     estimate = finding.value.quantity if finding is not None and finding.value is not None else None
-    limit = None
-    if finding is not None and finding.limit is not None:
-        limit = RiseLimit(finding.limit.quantity.to("K"), f"Range: {finding.limit.label}.", finding.sources)
-    return _rise_item(part.ref, "the winding of", estimate, limit)
+    return _rise_item(part.ref, "the winding of", estimate, _magnetic_limit(part, by_code))
+
+
+def _magnetic_limit(part, by_code) -> RiseLimit | None:
+    finding = by_code.get((TEMP_RISE, part.ref))
+    if finding is None or finding.limit is None:
+        return None
+    return RiseLimit(finding.limit.quantity.to("K"), f"Range: {finding.limit.label}.", finding.sources)
 
 
 def _heatsink(sink, record, by_code) -> Item:

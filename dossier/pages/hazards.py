@@ -2,13 +2,16 @@
 
 from __future__ import annotations
 
+from dossier.caution import rail_label
 from dossier.wording import quantity_text
 
 
-def hazards(record) -> list[str]:
-    """Plain sentences, most serious first; empty for a build with nothing hazardous declared."""
+def hazards(record, rails=()) -> list[str]:
+    """Plain sentences, most serious first; empty for a build with nothing hazardous declared. rails: the rails
+    calc's hazards (dossier.calcs.rails.hazards.RailHazard), the voltages beyond the mains."""
     found = [
         _mains(record),
+        *(_rail(hazard) for hazard in rails),
         _stored_charge(record),
         *_live_tabs(record),
         _earthing(record),
@@ -23,6 +26,12 @@ def _mains(record) -> str:
     stages = [stage.name for stage in record.stages if stage.side == "mains"]
     where = f" It is present in: {', '.join(stages)}." if stages else ""
     return f"Mains voltage, {quantity_text(record.mains.nominal)} at {quantity_text(record.mains.frequency)}.{where}"
+
+
+def _rail(hazard) -> str:
+    where = " It is brought out to a terminal someone can touch." if hazard.accessible else ""
+    return (f"Hazardous voltage beyond the mains: rail {rail_label(hazard)} at no load and high line, above the "
+            f"{quantity_text(hazard.limit)} {hazard.kind.upper()} limit for touch; it stays charged after switch-off.{where}")
 
 
 def _stored_charge(record) -> str:

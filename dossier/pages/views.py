@@ -11,6 +11,9 @@ from dataclasses import dataclass, field
 
 from markdown.extensions.toc import slugify, unique
 
+from dossier.calcs.rails import HAZARDS as RAIL_HAZARDS
+from dossier.calcs.rails.hazards import NAME as RAILS
+from dossier.caution import beyond_mains_caution, rail_label
 from dossier.findings import Finding, Verdict, counts
 from dossier.record.identity import STATUS_TITLES
 from dossier.pages import layout
@@ -121,6 +124,7 @@ class RevisionView:
     changes: str
     revisions: list[RevisionLink]
     hazards: list[str]
+    beyond_mains: str  # the caution's words for the hazardous rails, '' for none
     signoff: SignoffView
     tally: dict
     summary: str
@@ -183,7 +187,8 @@ def revision_view(archive: Archive, build: Build, revision: Revision) -> Revisio
         permanent=layout.page(layout.permanent_root(build.id, revision.letter), "index"),
         changes=layout.changes_page(build.id),
         revisions=revision_links(build),
-        hazards=hazards(revision.record),
+        hazards=hazards(revision.record, _rail_hazards(revision)),
+        beyond_mains=beyond_mains_caution([rail_label(hazard) for hazard in _rail_hazards(revision)]),
         signoff=signoff_view(revision.signoff),
         tally=counts(revision.findings),
         summary=verdict_counts_text(counts(revision.findings)),
@@ -195,6 +200,10 @@ def revision_view(archive: Archive, build: Build, revision: Revision) -> Revisio
         documents=documents,
         failures=list(revision.extras.failures),
     )
+
+
+def _rail_hazards(revision) -> tuple:
+    return revision.review.product(RAILS, RAIL_HAZARDS) or ()
 
 
 def revision_links(build: Build) -> list[RevisionLink]:

@@ -81,6 +81,8 @@ class Capacitor(Section):
     leakage: Current | None = Field(None, description="Largest leakage current of one capacitor from the maker's data, at its hot temperature if given, e.g. 0.3 mA.")
     capacitance: Capacitance | None = Field(None, description="Capacitance of one capacitor, e.g. 470 uF; gives the makers' usual leakage limit when leakage is not given.")
     no_load_voltage: Voltage | None = Field(None, description="DC voltage across the whole string with no load at nominal line, measured or from the transformer maker's regulation figure.")
+    ripple_current: Current | None = Field(None, description="Rated ripple current (RMS) at the ripple frequency and the hot temperature, from the maker's data, e.g. 0.8 A.")
+    discharge_resistor: Resistance | None = Field(None, description="For an X capacitor across the line: the resistance across it that discharges it once the plug is pulled, e.g. 1 Mohm (two 470 kohm in series).")
 
 
 class Heatsink(Section):

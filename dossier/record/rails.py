@@ -7,7 +7,7 @@ from typing import Literal
 
 from pydantic import Field, model_validator
 
-from dossier.record.fields import Capacitance, Current, Name, Resistance, Section, Voltage, out_of_range, problem
+from dossier.record.fields import Capacitance, Current, Fraction, Name, Power, Resistance, Section, Voltage, out_of_range, problem
 from dossier.record.stages import StageId
 from dossier.units import fmt
 
@@ -21,6 +21,9 @@ class Rail(Section):
     no_load_voltage: Voltage | None = Field(None, description="Voltage with no load at nominal mains, measured or from the transformer's regulation, e.g. 395 V.")
     capacitance: Capacitance | None = Field(None, description="Total reservoir and filter capacitance across the rail (a series bank counts as its series value), e.g. 50 uF.")
     bleeder: Resistance | None = Field(None, description="Resistance across the rail that discharges it after switch-off (bleeder, balancing resistors in series), e.g. 220 kohm.")
+    regulation: Fraction | None = Field(None, description="Rise of the rail from full load to no load over its full-load voltage, from the transformer maker's regulation figure, e.g. 12 %; gives the no-load voltage when no_load_voltage is not given.")
+    bleeder_power_rating: Power | None = Field(None, description="Power rating of the bleeder resistor (of each resistor, where several in series make it up: give the total), e.g. 2 W.")
+    bleeder_voltage_rating: Voltage | None = Field(None, description="Limiting element voltage of the bleeder (the sum over resistors in series), from the maker's data, e.g. 500 V.")
     polarity: Literal["positive", "negative"] = Field("positive", description="positive or negative with respect to the unit's 0 V (a DC rail).")
     accessible: bool = Field(False, description="It is brought out to a terminal or socket someone can touch.")
 

@@ -268,4 +268,6 @@ def test_a_finding_the_sign_off_sent_back_says_to_fix_beside_it(tree):
     # demo: solar-bank-charger rev B has a sign-off requesting changes, with 'fix' on its open findings
     overview = page(tree, "builds/solar-bank-charger/rev-B/index.md")
     verdicts = overview.split("## Verdicts")[1].split("| Calc |")[0]
-    assert "**to fix**: " in verdicts and "| open |" not in verdicts
+    assert "**to fix**: " in verdicts
+    # the only open row is a check added after that sign-off was made (the X capacitors at the plug pins)
+    assert [row for row in verdicts.splitlines() if "| open |" in row and "X capacitors" not in row] == []

@@ -4,7 +4,9 @@ and, for X and Y capacitors, the nominal supply against their rated voltage and 
 Series string of n equal capacitors with a resistor R across each: the worst share falls on the one that leaks
 nothing while the others leak I_leak each, V_max = V/n + (n-1)/n x R x I_leak (Kirchhoff's laws; the balancing
 section of makers' aluminium electrolytic application guides). With no leakage figure the makers' usual limit
-0.01 x C x V_R (at 20 degC) is taken. With no resistors the share is set by leakage alone: at best marginal.
+0.01 x C x V_R (at 20 degC) is taken. With no resistors the share is set by leakage alone, so the harsher reading
+puts the whole string on one capacitor; a half-bridge's split pair, held at its midpoint by the converter, at best
+marginal. A capacitor in a stage that delivers a declared rail holds that rail at its worst case (shared.rail_voltage).
 """
 
 from __future__ import annotations
@@ -14,6 +16,8 @@ from dataclasses import replace
 from dossier.calcs.shared import safety_class
 from dossier.calcs.shared.finding_kit import not_assessed
 from dossier.calcs.shared.margins import margin
+from dossier.calcs.rails.supply import rectifier_of
+from dossier.calcs.shared.rail_voltage import rail_voltage
 from dossier.calcs.stress import words
 from dossier.calcs.stress.judging import finding, rating_finding
 from dossier.calcs.stress.voltages import Rail, Voltages, stage_of
@@ -64,12 +68,32 @@ def _string_rail(voltages: Voltages, index: int, capacitor) -> Rail | None:
         return Rail(high, "V = declared no-load voltage x V_high / V_nominal", "declared no-load voltage carried to high line",
                     ("devices", "capacitors", index, "no_load_voltage"))
     found = stage_of(voltages.record, capacitor.ref)
+    rail = _declared_rail(voltages.record, found[1]) if found and capacitor.position in ("bulk", "output") else None
+    if rail is not None:
+        return rail
     supply = voltages.supply_of(found[0]) if found else None
     if capacitor.position == "split":
         return supply
     if capacitor.position == "output" and (found is None or found[1].kind not in ("rectifier", "mains-input")):
         return voltages.output_rail()
     return supply if capacitor.position in ("bulk", "output") else None
+
+
+def _declared_rail(record, stage) -> Rail | None:
+    """The highest DC rail the capacitor's stage delivers, at its worst case (shared.rail_voltage)."""
+    delivered = [found for found in (rail_voltage(record, index) for index, rail in enumerate(record.rails) if rail.kind == "dc" and _holds(record, rail, stage))
+                 if found.how != "regulated" or record.rails[found.index].stage == stage.id]
+    if not delivered:
+        return None
+    worst = max(delivered, key=lambda found: found.worst)
+    return Rail(worst.worst, worst.formula, f"rail '{worst.name}' at no load and high line", worst.keys[0],
+                notes=("no-load-rise",) if worst.how == "assumed" else (), sources=worst.sources)
+
+
+def _holds(record, rail, stage) -> bool:
+    """The rail is delivered by the stage, or by a stage fed from it through no other rectifier."""
+    source = rectifier_of(record, rail.stage)
+    return rail.stage == stage.id or (source is not None and source[1].id == stage.id)
 
 
 def _share(capacitor, string: Rail, count: int):
@@ -80,8 +104,11 @@ def _share(capacitor, string: Rail, count: int):
     measures = (Measure("voltage across the string", string.voltage), Measure("capacitors in series", count),
                 Measure("equal share", ideal))
     formula = f"V_C = V / {count} + ({count}-1)/{count} x R x I_leak"
-    if capacitor.balancing_resistor is None:
+    if capacitor.balancing_resistor is None and capacitor.position == "split":
         return replace(string, voltage=ideal, formula=f"V_C = V / {count} (no balancing: unbounded); {string.formula}"), (words.series_unbalanced(count),), measures
+    if capacitor.balancing_resistor is None:
+        basis = f"{string.basis}; {words.series_whole(count)}"
+        return replace(string, formula=f"V_C = V (no balancing: the whole string on one); {string.formula}", basis=basis), (), measures
     leakage = _leakage(capacitor)
     if leakage is None:
         return replace(string, voltage=ideal, formula=f"{formula}; {string.formula}"), (words.series_no_leakage(count),), measures

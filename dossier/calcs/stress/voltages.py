@@ -6,22 +6,17 @@ from dataclasses import dataclass, field, replace
 
 from dossier.calcs.magnetics.voltages import winding_voltages
 from dossier.calcs.shared.mains_lines import HIGH_PEAK_FORMULA, high_line_peak
-from dossier.findings import Source, common_practice
-from dossier.units import Q_
-
-# A small mains transformer's secondary at no load over its rated (full-load) voltage: regulation of about 5 % for
-# large toroids to 25 % for small EI parts, the smaller the worse; the top is assumed (common practice, from memory).
-NO_LOAD_RISE = Q_(0.25)
-NO_LOAD_PRACTICE = common_practice(
-    "a small mains transformer's no-load secondary voltage is about 5-25 % above its rated full-load voltage, the "
-    "smaller the transformer the higher; 25 % is assumed when the record gives only the loaded voltage (from memory)")
+from dossier.calcs.shared.rail_voltage import NO_LOAD_PRACTICE, NO_LOAD_RISE
+from dossier.findings import Source
 
 MAIN_TRANSFORMER_ROLES = ("transformer", "mains-transformer")
 # Output rectifier topology -> (rail taken from one half of a centre-tapped winding, multiple of that peak, name)
 RAIL_OF_TOPOLOGY = {
     "bridge": (False, 1, "bridge"),
     "centre-tapped": (True, 1, "centre-tapped"),
+    "valve-centre-tapped": (True, 1, "centre-tapped"),
     "half-wave": (False, 1, "half-wave"),
+    "valve-half-wave": (False, 1, "half-wave"),
     "doubler": (False, 2, "doubler"),
     "voltage-doubler": (False, 2, "doubler"),
 }

@@ -95,6 +95,12 @@ def series_unbalanced(count: int) -> str:
             "across each and give balancing_resistor and leakage.")
 
 
+def series_whole(count: int) -> str:
+    return (f"{count} capacitors in series with no balancing resistors: their leakage currents, not their ratings, share "
+            "the voltage, so the harsher reading puts the whole string on the one that leaks least. Fit a resistor across "
+            "each and give balancing_resistor and leakage to judge each on its share")
+
+
 def series_share(count: int, resistor, leakage, assumed_leakage: bool) -> str:
     text = (f"{count} in series with {fmt(resistor)} across each: the worst share, when this one leaks nothing and the "
             f"others {fmt(leakage)} each, is V/n + (n-1)/n x R x I_leak.")
