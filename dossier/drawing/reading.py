@@ -21,8 +21,8 @@ class Graph:
     hazards: dict[str, tuple[str, ...]]
 
     @classmethod
-    def of(cls, record, hazardous=None) -> "Graph":
-        rails = rails_by_stage(record, hazardous)
+    def of(cls, record, hazard_names=None) -> "Graph":
+        rails = rails_by_stage(record, hazard_names)
         return cls(stage_ids(record), sources(record), rails, hazards(record, rails))
 
     def before(self, key: str) -> list[int]:
@@ -37,17 +37,17 @@ class Graph:
         return f"stage {self.ids.index(key) + 1}" if key in self.ids else key
 
 
-def stage_views(record, findings, hazardous=None) -> list[StageView]:
+def stage_views(record, findings, hazard_names=None) -> list[StageView]:
     barriers = [barrier_view(b, findings) for b in record.barriers]
-    graph = Graph.of(record, hazardous)
+    graph = Graph.of(record, hazard_names)
     return [_stage_view(record, i, barriers, graph) for i in range(len(record.stages))]
 
 
-def diagram_view(record, findings, hazardous=None) -> DiagramView:
+def diagram_view(record, findings, hazard_names=None) -> DiagramView:
     crossing = tuple(barrier_view(b, findings) for b in record.barriers if crosses_chain(b))
     others = tuple(barrier_view(b, findings) for b in record.barriers if not crosses_chain(b))
     bridging_refs = {ref for b in record.barriers for ref in b.parts}
-    graph = Graph.of(record, hazardous)
+    graph = Graph.of(record, hazard_names)
     blocks = tuple(_block_view(i, stage, bridging_refs, graph) for i, stage in enumerate(record.stages, start=1))
     return DiagramView(title=f"{record.title}, revision {record.revision}", blocks=blocks, crossing=crossing, others=others)
 

@@ -56,17 +56,17 @@ class Schematics:
     notes: tuple[Finding, ...]
 
 
-def draw(record, findings=(), cache=None, hazardous=None) -> Schematics:
-    """hazardous maps a rail's name to whether it is above the extra-low-voltage limits, as a calc judged it;
-    None (or a rail it leaves out) is judged by dossier.drawing.stage_graph.above_elv."""
+def draw(record, findings=(), cache=None, hazard_names=None) -> Schematics:
+    """hazard_names: the rails above the extra-low-voltage limits as the rails calc named them (its product);
+    None: judged here with the calc's own functions (dossier.drawing.stage_graph)."""
     store = cache if cache is not None else NoCache()
-    views = stage_views(record, list(findings), hazardous)
-    drawn = [_block_figure(record, list(findings), store, hazardous)] + [_stage_figure(view, store) for view in views]
+    views = stage_views(record, list(findings), hazard_names)
+    drawn = [_block_figure(record, list(findings), store, hazard_names)] + [_stage_figure(view, store) for view in views]
     return Schematics(figures=tuple(drawn), notes=tuple(_notes(views)))
 
 
-def figures(record, findings=(), cache=None, hazardous=None) -> list[Figure]:
-    return list(draw(record, findings, cache, hazardous).figures)
+def figures(record, findings=(), cache=None, hazard_names=None) -> list[Figure]:
+    return list(draw(record, findings, cache, hazard_names).figures)
 
 
 def notes(record) -> list[Finding]:
@@ -85,8 +85,8 @@ def plan(view: StageView) -> tuple[StageDrawer | None, str]:
     return drawer, ""
 
 
-def _block_figure(record, findings, store, hazardous=None) -> Figure:
-    view = diagram_view(record, findings, hazardous)
+def _block_figure(record, findings, store, hazard_names=None) -> Figure:
+    view = diagram_view(record, findings, hazard_names)
     key = content_key(view.key, view)
     svg = store.get_or_draw(key, lambda: _finished(draw_block_diagram(view), view.key, key, "Block diagram"))
     return Figure(key=view.key, title="Block diagram", svg=svg, section=SECTION)

@@ -1,33 +1,28 @@
 """The stage graph and rails as drawings need them: each stage's id and sources, the rails each stage
 delivers, and which stages carry a voltage above the extra-low-voltage limits.
 
-Which rails are hazardous comes from the review when a calc hands that on (schematics.draw(hazardous=...));
-without it, a rail is taken as hazardous above the ES1 limits of IEC 62368-1 edition 3.0 (2018), Table 4 (60 V DC,
-30 V RMS AC; table number from memory), the lower of the published extra-low-voltage limits and so the
-harsher reading.
+Which rails are hazardous is the rails calc's judgement: its product, handed in as the names of the hazardous
+rails (schematics.draw(hazard_names=...)); when there is none (the calc did not run, or a caller draws a
+record alone), the same judgement is made here with the calc's own functions, never a second rule.
 """
 
 from __future__ import annotations
 
+from dossier.calcs.rails.hazards import hazardous
+from dossier.calcs.shared.rail_voltage import rail_voltages
 from dossier.drawing.views import RailView, quantity_text
-from dossier.units import Q_
-
-DC_LIMIT = Q_(60, "V")
-AC_LIMIT = Q_(30, "V")
 
 
 def stage_ids(record) -> list[str]:
-    return [getattr(stage, "id", None) or f"s{number}" for number, stage in enumerate(record.stages, start=1)]
+    """Each stage's id; a stage made in code without one (reading a file always gives one) is s1, s2, ... by position."""
+    return [stage.id or f"s{number}" for number, stage in enumerate(record.stages, start=1)]
 
 
 def sources(record) -> dict[str, tuple[str, ...]]:
-    """Each stage's id -> the ids of the stages it is fed from (the one before it when the record says nothing)."""
+    """Each stage's id -> the ids of the stages it is fed from; without fed_from, the one before it."""
     ids = stage_ids(record)
-    found = {}
-    for position, (key, stage) in enumerate(zip(ids, record.stages)):
-        declared = getattr(stage, "fed_from", None)
-        found[key] = tuple(declared) if declared is not None else ((ids[position - 1],) if position else ())
-    return found
+    return {key: stage.feeds_from if stage.fed_from is not None else tuple(ids[max(position - 1, 0):position])
+            for position, (key, stage) in enumerate(zip(ids, record.stages))}
 
 
 def descendants(graph: dict[str, tuple[str, ...]], key: str) -> set[str]:
@@ -52,28 +47,26 @@ def ancestors(graph: dict[str, tuple[str, ...]], key: str) -> set[str]:
     return found
 
 
-def rails_by_stage(record, hazardous=None) -> dict[str, tuple[RailView, ...]]:
-    """stage id -> the rails it delivers; hazardous maps a rail's name to whether it is above ELV (None: judged here)."""
+def rails_by_stage(record, hazard_names=None) -> dict[str, tuple[RailView, ...]]:
+    """stage id -> the rails it delivers; hazard_names are the rails above the extra-low-voltage limits (None: judged here)."""
+    named = set(hazard_names) if hazard_names is not None else judged_hazardous(record)
     found: dict[str, list[RailView]] = {}
-    for rail in getattr(record, "rails", None) or ():
-        danger = hazardous.get(rail.name) if hazardous is not None and rail.name in hazardous else above_elv(rail)
-        found.setdefault(rail.stage, []).append(rail_view(rail, bool(danger)))
+    for rail in record.rails:
+        found.setdefault(rail.stage, []).append(rail_view(rail, rail.name in named))
     return {key: tuple(rails) for key, rails in found.items()}
 
 
-def rail_view(rail, hazardous: bool) -> RailView:
-    direct = getattr(rail, "kind", "dc") != "ac"
-    sign = "\u2212" if direct and getattr(rail, "polarity", "positive") == "negative" else ""
+def judged_hazardous(record) -> set[str]:
+    """The rails the rails calc would name as hazardous: worst case (no load, high line) above the ES1 limit."""
+    return {found.name for found in rail_voltages(record) if hazardous(found)}
+
+
+def rail_view(rail, danger: bool) -> RailView:
+    direct = rail.kind != "ac"
+    sign = "\u2212" if direct and rail.polarity == "negative" else ""
     voltage = f"{sign}{quantity_text(abs(rail.voltage))} {'DC' if direct else 'AC'}"
-    bleeder = quantity_text(rail.bleeder) if getattr(rail, "bleeder", None) is not None else ""
-    return RailView(rail.name, voltage, bleeder, hazardous, direct)
-
-
-def above_elv(rail) -> bool:
-    """The harsher reading: the higher of the nominal and no-load voltage against the ES1 limit for its kind."""
-    highest = max(abs(rail.voltage), abs(getattr(rail, "no_load_voltage", None) or rail.voltage))
-    limit = AC_LIMIT if getattr(rail, "kind", "dc") == "ac" else DC_LIMIT
-    return highest.to("V").magnitude > limit.to("V").magnitude
+    bleeder = quantity_text(rail.bleeder) if rail.bleeder is not None else ""
+    return RailView(rail.name, voltage, bleeder, danger, direct)
 
 
 def hazards(record, rails: dict[str, tuple[RailView, ...]]) -> dict[str, tuple[str, ...]]:

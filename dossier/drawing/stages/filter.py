@@ -21,8 +21,8 @@ NEEDS = {
     "c": ("a capacitor",),
     "lc": ("a choke", "a capacitor"),
     "choke-input": ("a choke", "a capacitor"),
-    "clc": ("a capacitor", "a choke or series resistor", "a second capacitor"),
-    "crc": ("a capacitor", "a choke or series resistor", "a second capacitor"),
+    "clc": ("a capacitor", "a choke or series resistor"),
+    "crc": ("a capacitor", "a choke or series resistor"),
 }
 TESTS = {"a capacitor": FILTER_CAPACITOR, "a second capacitor": FILTER_CAPACITOR, "a choke": P.CHOKE,
          "a choke or series resistor": SERIES_ELEMENT, "a capacitor or a choke": P.either(FILTER_CAPACITOR, P.CHOKE)}
@@ -37,6 +37,9 @@ def draw(view: StageView):
     bleeders = picker.take_all(BLEEDER)
     capacitors, series = picker.take_all(FILTER_CAPACITOR), picker.take_all(SERIES_ELEMENT)
     first = CAPACITORS_FIRST.get(view.topology.lower())
+    if first and len(capacitors) <= first:  # a CLC whose input capacitor sits in the stage before (the rectifier's reservoir)
+        first = 0
+        sheet.note(drawing, (0, ladder.ret - 0.6), f"{view.topology}: its input capacitor is in the stage feeding this one")
     leading = capacitors if first is None else capacitors[:first]
     for part in leading:
         ladder.shunt(part)
