@@ -13,6 +13,7 @@ from xml.etree import ElementTree
 
 from dossier.checklist.overview import CommissioningState, commissioning_state, load_for_revision
 from dossier.calcs.charge import CURVE, NAME as CHARGE
+from dossier.calcs.rails import HAZARDS, NAME as RAILS
 from dossier.checklist.page import checklist_html, checklist_markdown
 from dossier.checklist.sheet import Checklist
 from dossier.drawing.charts.charge import figures as charge_figures
@@ -43,7 +44,9 @@ def revision_extras(loaded, review: Review, checklist: Checklist, cache=None, pr
     """Drawings from the review's findings, the chart from its products, and the pages of the one checklist."""
     extras = Extras()
     curve = review.product(CHARGE, CURVE)
-    _attempt(extras, "schematics", lambda: _schematics(extras, loaded.record, list(review.findings), cache))
+    hazards = review.product(RAILS, HAZARDS)
+    hazard_names = None if hazards is None else {hazard.name for hazard in hazards}
+    _attempt(extras, "schematics", lambda: _schematics(extras, loaded.record, list(review.findings), cache, hazard_names))
     _attempt(extras, "charge chart", lambda: extras.figures.extend(charge_figures(loaded.record, curve)))
     _checklist(extras, loaded, checklist, print_links or {}, pdf_cache)
     extras.figures = _safe_figures(extras)
@@ -57,8 +60,8 @@ def _attempt(extras: Extras, what: str, step) -> None:
         extras.failures.append(f"the {what} could not be made: {type(error).__name__}: {error}")
 
 
-def _schematics(extras: Extras, record, findings, cache) -> None:
-    result = draw(record, findings, cache=cache)
+def _schematics(extras: Extras, record, findings, cache, hazard_names) -> None:
+    result = draw(record, findings, cache=cache, hazard_names=hazard_names)
     extras.figures.extend(result.figures)
     extras.notes.extend(result.notes)
 

@@ -1,5 +1,8 @@
-"""The whole build as a row of stage blocks, with the isolation barrier as a dashed line across it
-and the mains-connected side shaded and headed with the dangerous-voltage mark."""
+"""The whole build as stage blocks laid out like the unit branches (see graph_layout): a chain on one
+row, each branch (a heater or bias supply, say) on a row of its own under the stage that feeds it. The
+rails a stage delivers are named under it. The isolation barrier is a dashed line across the diagram,
+the mains-connected side is shaded and headed with the dangerous-voltage mark, and stages on the
+isolated side above extra-low voltage are hatched; a legend under the diagram tells the two apart."""
 
 from __future__ import annotations
 
@@ -8,12 +11,15 @@ import textwrap
 import schemdraw.elements as elm
 
 from dossier.drawing import sheet
-from dossier.drawing.symbols import Box, HazardMark
+from dossier.drawing.graph_layout import Place, layout
+from dossier.drawing.symbols import Box, Hatching, HazardMark
 from dossier.drawing.views import BlockView, DiagramView
 
-GAP = 1.1  # between blocks, room for the arrow
+GAP = 1.1  # between columns, room for the arrow
+ROW_GAP = 1.5  # between rows, room for the line down to a branch
 NAME_WIDTH = 20  # characters per line of a block's name
 REFS_WIDTH = 16
+MARGIN = 0.35  # shading round a block
 
 
 def draw(view: DiagramView):
@@ -22,61 +28,133 @@ def draw(view: DiagramView):
         sheet.note(drawing, (0, 0), "The record lists no stages, so there is nothing to draw.")
         _barrier_list(drawing, view.crossing + view.others, "Barriers recorded:")
         return drawing
-    texts = [block_text(block) for block in view.blocks]
-    height = max((sheet.text_height(t) for t in texts), default=1.0) + 0.6
-    boxes = _blocks(drawing, view.blocks, texts, height)
-    barrier_x = _barrier_x(view.blocks, boxes)
+    grid = Grid(view.blocks)
+    for block in view.blocks:
+        grid.draw_block(drawing, block)
+    for block in view.blocks:
+        grid.connect(drawing, block)
+    barrier_x = _barrier_x(view.blocks, grid)
+    _shade_mains(drawing, view.blocks, grid, barrier_x)
+    _hatch_high_voltage(drawing, view.blocks, grid, barrier_x)
     if barrier_x is not None:
-        _barrier(drawing, barrier_x, height, view)
+        _barrier(drawing, barrier_x, grid, view)
     _barrier_list(drawing, view.others, "Other barriers (not across the circuit):")
-    _shade_mains(drawing, view.blocks, boxes, barrier_x, height)
+    _legend(drawing, view.blocks)
     return drawing
 
 
-def block_text(block: BlockView) -> str:
+def block_text(block: BlockView, also_from: tuple[str, ...] = ()) -> str:
     name = textwrap.fill(f"{block.index}. {block.name}", NAME_WIDTH, break_on_hyphens=False)
     refs = textwrap.fill(" ".join(block.refs), REFS_WIDTH, break_on_hyphens=False) if block.refs else "(no parts)"
-    return f"{name}\n[{block.kind}]\n{refs}"
+    also = f"\nalso fed from {', '.join(also_from)}" if also_from else ""
+    return f"{name}\n[{block.kind}]\n{refs}{also}"
 
 
-def _blocks(drawing, blocks, texts, height) -> list[tuple[float, float]]:
-    """Draw the row; return each block's left and right x."""
-    x, spans = 0.0, []
-    for number, (block, words) in enumerate(zip(blocks, texts)):
-        width = max(2.6, sheet.text_width(words) + 0.6)
+def rails_text(block: BlockView) -> str:
+    return "\n".join(f"\u2192 {rail.label}" for rail in block.rails)
+
+
+class Grid:
+    """The blocks' places, sizes and the coordinates of every row and column."""
+
+    def __init__(self, blocks: tuple[BlockView, ...]):
+        self.blocks = {block.id: block for block in blocks}
+        self.places: dict[str, Place] = layout([b.id for b in blocks], {b.id: b.fed_from for b in blocks})
+        numbers = {block.id: str(block.index) for block in blocks}
+        self.texts = {b.id: block_text(b, tuple(numbers[s] for s in b.fed_from if s in numbers and s != self.places[b.id].parent))
+                      for b in blocks}
+        self.widths = {key: max(2.6, sheet.text_width(words) + 0.6) for key, words in self.texts.items()}
+        rows = max(place.row for place in self.places.values()) + 1
+        columns = max(place.column for place in self.places.values()) + 1
+        self.box_height = [0.0] * rows
+        self.tag_height = [0.0] * rows
+        column_width = [0.0] * columns
+        for key, place in self.places.items():
+            self.box_height[place.row] = max(self.box_height[place.row], sheet.text_height(self.texts[key]) + 0.6)
+            self.tag_height[place.row] = max(self.tag_height[place.row], _tag_height(self.blocks[key]))
+            tag_width = sheet.text_width(rails_text(self.blocks[key]), sheet.SMALL_FONT)
+            column_width[place.column] = max(column_width[place.column], self.widths[key], tag_width)
+        self.column_x = [sum(column_width[:c]) + GAP * c for c in range(columns)]
+        self.row_y = [-sum(self.box_height[r] + self.tag_height[r] + ROW_GAP for r in range(row)) for row in range(rows)]
+
+    def left(self, key: str) -> float:
+        return self.column_x[self.places[key].column]
+
+    def right(self, key: str) -> float:
+        return self.left(key) + self.widths[key]
+
+    def top(self, key: str) -> float:
+        return self.row_y[self.places[key].row]
+
+    def bottom(self, key: str) -> float:
+        """The bottom of the block's box."""
+        return self.top(key) - self.box_height[self.places[key].row]
+
+    def lowest(self, key: str) -> float:
+        """The bottom of the block with its rail names."""
+        return self.bottom(key) - self.tag_height[self.places[key].row]
+
+    def middle(self, key: str) -> float:
+        return self.top(key) - self.box_height[self.places[key].row] / 2
+
+    @property
+    def floor(self) -> float:
+        return self.row_y[-1] - self.box_height[-1] - self.tag_height[-1]
+
+    def draw_block(self, drawing, block: BlockView) -> None:
         fill = "none" if block.bridging and not block.on_mains else "white"
-        sheet.add(drawing, Box(width, height, words, fill=fill).at((x, 0)).zorder(2))
-        if number:
-            sheet.add(drawing, elm.Arrow().at((x - GAP, -height / 2)).to((x, -height / 2)))
-        spans.append((x, x + width))
-        x += width + GAP
-    return spans
+        height = self.box_height[self.places[block.id].row]
+        sheet.add(drawing, Box(self.widths[block.id], height, self.texts[block.id], fill=fill).at((self.left(block.id), self.top(block.id))).zorder(2))
+        if block.rails:
+            colour = sheet.HIGH_VOLTAGE_INK if block.hazardous_dc or block.on_mains else sheet.INK
+            sheet.text(drawing, (self.left(block.id), self.bottom(block.id) - 0.15), rails_text(block),
+                       valign="top", size=sheet.SMALL_FONT, colour=colour)
+
+    def connect(self, drawing, block: BlockView) -> None:
+        """An arrow from the stage it is drawn from: across from the left, or down and across for a branch."""
+        place = self.places[block.id]
+        if place.parent is None:
+            return
+        y = self.middle(block.id)
+        if not place.branch:
+            sheet.add(drawing, elm.Arrow().at((self.right(place.parent), y)).to((self.left(block.id), y)))
+            return
+        trunk = self.right(place.parent) - 0.45
+        sheet.wire(drawing, (trunk, self.bottom(place.parent)), (trunk, y))
+        sheet.add(drawing, elm.Arrow().at((trunk, y)).to((self.left(block.id), y)))
 
 
-def _barrier_x(blocks, spans) -> float | None:
+def _tag_height(block: BlockView) -> float:
+    return sheet.text_height(rails_text(block), sheet.SMALL_FONT) + 0.25 if block.rails else 0.0
+
+
+def _barrier_x(blocks, grid: Grid) -> float | None:
     """Through the block that forms the barrier at the mains-to-isolated step, else in the gap there."""
-    for number in range(1, len(blocks)):
-        before, after = blocks[number - 1], blocks[number]
-        if before.on_mains and not after.on_mains:
-            if after.bridging:
-                return sum(spans[number]) / 2
-            if before.bridging:
-                return sum(spans[number - 1]) / 2
-            return spans[number][0] - GAP / 2
+    for block in blocks:
+        parent = grid.places[block.id].parent
+        if parent is None or block.on_mains or not grid.blocks[parent].on_mains:
+            continue
+        if block.bridging:
+            return (grid.left(block.id) + grid.right(block.id)) / 2
+        if grid.blocks[parent].bridging:
+            return (grid.left(parent) + grid.right(parent)) / 2
+        return grid.left(block.id) - GAP / 2
     return None
 
 
-def _barrier(drawing, x: float, height: float, view: DiagramView) -> None:
-    """The dashed line from above the row down past it (not over a block's words), each crossing barrier labelled below."""
-    y = -height - 0.5
+def _barrier(drawing, x: float, grid: Grid, view: DiagramView) -> None:
+    """The dashed line from above the diagram down past it (not over a block's words), each crossing barrier labelled below."""
+    first_row = [key for key, place in grid.places.items() if place.row == 0]
+    top_bottom = grid.bottom(first_row[0])
+    y = grid.floor - 0.5
     for barrier in view.crossing:
         sheet.barrier_label(drawing, (x + 0.25, y), barrier)
         y -= sheet.text_height(barrier.label, sheet.SMALL_FONT) + 0.3
     sheet.barrier_line(drawing, x, 1.6, 0)
-    sheet.barrier_line(drawing, x, -height, min(y + 0.2, -height - 0.3))
+    sheet.barrier_line(drawing, x, top_bottom, min(y + 0.2, grid.floor - 0.3))
     sheet.text(drawing, (x + 0.25, 0.95), "isolated side", colour=sheet.BARRIER_INK)
     if not view.crossing:
-        sheet.note(drawing, (x + 0.25, -height - 0.5), "no barrier recorded across the circuit")
+        sheet.note(drawing, (x + 0.25, grid.floor - 0.5), "no barrier recorded across the circuit")
 
 
 def _barrier_list(drawing, barriers, heading: str) -> None:
@@ -91,35 +169,75 @@ def _barrier_list(drawing, barriers, heading: str) -> None:
         y -= sheet.text_height(barrier.label, sheet.SMALL_FONT) + 0.25
 
 
-def _shade_mains(drawing, blocks, spans, barrier_x, height) -> None:
+def _runs(blocks, grid: Grid, marked) -> list[list[str]]:
+    """Runs of marked blocks side by side on one row, each block after the one it is drawn from."""
+    runs: list[list[str]] = []
+    for block in blocks:
+        if not marked(block):
+            continue
+        place = grid.places[block.id]
+        joined = runs and not place.branch and place.parent == runs[-1][-1]
+        if joined:
+            runs[-1].append(block.id)
+        else:
+            runs.append([block.id])
+    return runs
+
+
+def _shade_mains(drawing, blocks, grid: Grid, barrier_x) -> None:
     """Shade each run of mains blocks up to the barrier (or the run's end) and head the first."""
-    runs = _mains_runs(blocks, spans, barrier_x)
-    for number, (left, right) in enumerate(runs):
-        sheet.shade(drawing, (left - 0.35, 1.7), (right, -height - 0.3))
+    for number, run in enumerate(_runs(blocks, grid, lambda b: b.on_mains)):
+        left, right = grid.left(run[0]) - MARGIN, grid.right(run[-1]) + MARGIN
+        top, bottom = grid.top(run[0]) + (1.7 if number == 0 else MARGIN), min(grid.lowest(k) for k in run) - 0.3
+        if barrier_x is not None and right < barrier_x <= right + GAP + grid.widths.get(_next(grid, run[-1]), 0):
+            right = barrier_x
+        sheet.shade(drawing, (left, top), (right, bottom))
         if number == 0:
-            sheet.add(drawing, HazardMark(size=0.45).at((left - 0.15, 0.77)))
-            sheet.text(drawing, (left + 0.45, 0.95), _hazard_heading(right - left - 0.8), colour=sheet.MAINS_INK)
+            sheet.add(drawing, HazardMark(size=0.45).at((left + 0.2, top - 0.93)))
+            sheet.text(drawing, (left + 0.8, top - 0.75), _hazard_heading(right - left - 0.8), colour=sheet.MAINS_INK)
+
+
+def _next(grid: Grid, key: str) -> str:
+    """The block drawn right after key on its row, or ''."""
+    return next((k for k, p in grid.places.items() if p.parent == key and not p.branch), "")
+
+
+def _hatch_high_voltage(drawing, blocks, grid: Grid, barrier_x) -> None:
+    """Hatch each run of isolated blocks above extra-low voltage; a run starting at the block that forms
+    the barrier starts at the barrier, so the hatching never covers the mains side."""
+    for run in _runs(blocks, grid, lambda b: b.hazardous_dc):
+        left, right = grid.left(run[0]) - MARGIN, grid.right(run[-1]) + MARGIN
+        if barrier_x is not None and left < barrier_x < grid.right(run[0]):
+            left = barrier_x
+        top, bottom = grid.top(run[0]) + MARGIN, min(grid.lowest(k) for k in run) - 0.2
+        sheet.shade_high_voltage(drawing, (left, top), (right, bottom))
 
 
 def _hazard_heading(room: float) -> str:
     """The heading on one line when it fits the shaded run, else on two."""
-    words = "MAINS-CONNECTED: hazardous voltage"
+    words = sheet.MAINS_HEADING
     return words if sheet.text_width(words) <= room else words.replace(": ", ":\n")
 
 
-def _mains_runs(blocks, spans, barrier_x) -> list[tuple[float, float]]:
-    """(left, right) of each run of consecutive mains blocks; a run ends at the barrier when it is next."""
-    runs: list[list] = []
-    for number, block in enumerate(blocks):
-        if block.on_mains and runs and runs[-1][2] == number - 1:
-            runs[-1][1:] = [spans[number][1], number]
-        elif block.on_mains:
-            runs.append([spans[number][0], spans[number][1], number])
-    return [(left, _run_end(right, last, spans, barrier_x)) for left, right, last in runs]
+LEGEND_MAINS = "mains-connected: hazardous voltage"
+LEGEND_HIGH_VOLTAGE = "isolated from the mains but above extra-low voltage: hazardous"
 
 
-def _run_end(right: float, last: int, spans, barrier_x) -> float:
-    following = spans[last + 1][1] if last + 1 < len(spans) else right
-    if barrier_x is not None and right < barrier_x <= following:
-        return barrier_x
-    return right + 0.35
+def _legend(drawing, blocks) -> None:
+    """A swatch and words for each kind of shading the diagram uses."""
+    if not any(block.hazardous_dc for block in blocks):
+        return  # the mains heading alone says what the one shading means
+    entries = [(False, LEGEND_MAINS)] if any(block.on_mains for block in blocks) else []
+    entries.append((True, LEGEND_HIGH_VOLTAGE))
+    _, ymin, _, _ = sheet.extent(drawing)
+    y = ymin - 0.5
+    for hatched, words in entries:
+        corner1, corner2 = (0, y), (0.9, y - 0.5)
+        if hatched:
+            sheet.shade(drawing, corner1, corner2, fill=sheet.HIGH_VOLTAGE_FILL)
+            sheet.add(drawing, Hatching(corner1, corner2, spacing=0.2, colour=sheet.HIGH_VOLTAGE_HATCH).at((0, 0)))
+        else:
+            sheet.shade(drawing, corner1, corner2)
+        sheet.text(drawing, (1.15, y - 0.25), words, size=sheet.SMALL_FONT,
+                   colour=sheet.HIGH_VOLTAGE_INK if hatched else sheet.MAINS_INK)
+        y -= 0.75

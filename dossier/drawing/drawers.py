@@ -33,14 +33,21 @@ def lacking(picker: Picker, needs: dict[str, Callable]) -> list[str]:
 
 
 def finish_stage(drawing, view: StageView, picker: Picker, drawn_barriers=()) -> schemdraw.Drawing:
-    """List parts the drawer did not place and barriers it did not draw, then mark a mains stage."""
+    """List parts the drawer did not place and barriers it did not draw, then mark a hazardous stage."""
     _list_leftovers(drawing, picker)
     for barrier in view.barriers:
         if barrier.name not in drawn_barriers:
             _barrier_note(drawing, view, barrier)
+    mark_stage(drawing, view)
+    return drawing
+
+
+def mark_stage(drawing, view: StageView) -> None:
+    """Shade a mains stage, or an isolated one above the extra-low-voltage limits, each its own way."""
     if view.on_mains:
         mark_hazardous(drawing)
-    return drawing
+    elif view.hazardous_dc:
+        mark_high_voltage(drawing, view.hazard)
 
 
 def _barrier_note(drawing, view: StageView, barrier) -> None:
@@ -65,3 +72,12 @@ def mark_hazardous(drawing, right: float | None = None) -> None:
     sheet.hazard_heading(drawing, (xmin, ymax + 0.55))
     edge = xmax + 0.25 if right is None else right
     sheet.shade(drawing, (xmin - 0.25, ymax + 1.0), (edge, ymin - 0.25))
+
+
+def mark_high_voltage(drawing, rails, left: float | None = None) -> None:
+    """Hatch the drawing (or the part right of x = left) and head it with the rails that make it hazardous."""
+    xmin, ymin, xmax, ymax = sheet.extent(drawing)
+    edge = xmin - 0.25 if left is None else left
+    sheet.hazard_heading(drawing, (edge + 0.25, ymax + 0.55), sheet.high_voltage_heading(rails), sheet.HIGH_VOLTAGE_INK)
+    _, _, right, top = sheet.extent(drawing)
+    sheet.shade_high_voltage(drawing, (edge, top + 0.2), (max(xmax, right) + 0.25, ymin - 0.25))

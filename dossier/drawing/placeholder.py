@@ -3,7 +3,7 @@
 from __future__ import annotations
 
 from dossier.drawing import sheet
-from dossier.drawing.drawers import mark_hazardous
+from dossier.drawing.drawers import mark_stage
 from dossier.drawing.symbols import Box
 from dossier.drawing.views import StageView
 
@@ -14,8 +14,7 @@ def draw(view: StageView, reason: str):
     width = sheet.text_width(words) + 1.0
     height = sheet.text_height(words) + 0.8
     sheet.add(drawing, Box(width, height, words, dashed=True).at((0, 0)))
-    if view.on_mains:
-        mark_hazardous(drawing)
+    mark_stage(drawing, view)
     return drawing
 
 

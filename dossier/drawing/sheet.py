@@ -1,5 +1,10 @@
 """Drawing primitives shared by every drawer: an explicit SVG canvas, wires, text, terminals,
-the shaded hazardous area and the dashed isolation barrier.
+the shaded hazardous areas and the dashed isolation barrier.
+
+Two kinds of hazardous area are marked: the mains-connected side (a plain pink tint) and, on the
+isolated side, whatever carries a voltage above the extra-low-voltage limits (a pale amber tint under
+diagonal hatching). The hatching keeps the two apart in greyscale print and for readers who cannot
+tell the tints apart; each carries its own heading in words.
 
 Style is set on each drawing (Drawing.config), never with schemdraw's module-wide settings, so
 nothing here changes how anyone else's drawings look.
@@ -11,7 +16,7 @@ import schemdraw
 import schemdraw.elements as elm
 from schemdraw.backends.svg import text_size
 
-from dossier.drawing.symbols import HazardMark
+from dossier.drawing.symbols import Hatching, HazardMark
 
 FONT_SIZE = 11
 SMALL_FONT = 9.5
@@ -24,6 +29,10 @@ NOTE_INK = "#4a4a4a"
 MAINS_FILL = "#fbe6e3"
 MAINS_INK = "#9b1c1c"
 BARRIER_INK = "#1d4f91"
+HIGH_VOLTAGE_FILL = "#fff4d4"
+HIGH_VOLTAGE_HATCH = "#d9a93f"
+HIGH_VOLTAGE_INK = "#6b4200"
+MAINS_HEADING = "MAINS-CONNECTED: hazardous voltage"
 
 
 def new_drawing() -> schemdraw.Drawing:
@@ -86,10 +95,22 @@ def shade(drawing, corner1, corner2, fill=MAINS_FILL):
     return add(drawing, area)
 
 
-def hazard_heading(drawing, xy, words: str = "MAINS-CONNECTED: hazardous voltage"):
+def shade_high_voltage(drawing, corner1, corner2):
+    """The isolated side's hazardous area: a pale tint under diagonal hatching, behind everything."""
+    shade(drawing, corner1, corner2, fill=HIGH_VOLTAGE_FILL)
+    return add(drawing, Hatching(corner1, corner2, colour=HIGH_VOLTAGE_HATCH).at((0, 0)).zorder(0))
+
+
+def hazard_heading(drawing, xy, words: str = MAINS_HEADING, colour: str = MAINS_INK):
     """The dangerous-voltage mark and a heading, left-aligned at xy."""
-    add(drawing, HazardMark(size=0.5).at((xy[0], xy[1] - 0.2)))
-    text(drawing, (xy[0] + 0.7, xy[1]), words, colour=MAINS_INK)
+    add(drawing, HazardMark(size=0.5, colour=colour).at((xy[0], xy[1] - 0.2)))
+    text(drawing, (xy[0] + 0.7, xy[1]), words, colour=colour)
+
+
+def high_voltage_heading(rails) -> str:
+    """'ABOVE EXTRA-LOW VOLTAGE (not mains): B+ 350 V DC, bias -45 V DC'."""
+    named = ", ".join(rails)
+    return f"ABOVE EXTRA-LOW VOLTAGE (not mains): {named}" if named else "ABOVE EXTRA-LOW VOLTAGE (not mains)"
 
 
 def barrier_line(drawing, x: float, top: float, bottom: float):

@@ -104,3 +104,38 @@ class Box(Element):
             self.segments.append(SegmentText((width / 2, -height / 2), text, align=("center", "center"), fontsize=fontsize))
         self.anchors.update(N=(width / 2, 0), S=(width / 2, -height), W=(0, -height / 2), E=(width, -height / 2),
                             NW=(0, 0), NE=(width, 0), SW=(0, -height), SE=(width, -height))
+
+
+class Hatching(Element):
+    """Diagonal lines (rising to the right) filling the rectangle between two corners, as one path."""
+
+    def __init__(self, corner1, corner2, spacing: float = 0.32, colour: str = "#d9a93f", **kwargs):
+        super().__init__(**kwargs)
+        left, right = sorted((corner1[0], corner2[0]))
+        bottom, top = sorted((corner1[1], corner2[1]))
+        points: list = []
+        step = spacing * math.sqrt(2)
+        offset = bottom - right + step / 2
+        while offset < top - left:
+            start = max(left, bottom - offset)
+            end = min(right, top - offset)
+            if end > start:
+                points += [(start, start + offset), (end, end + offset), (math.nan, math.nan)]
+            offset += step
+        if points:
+            self.segments.append(Segment(points[:-1], color=colour, lw=0.7))
+        self.params["drop"] = (0, 0)
+
+
+class GasTube(Element2Term):
+    """A gas-filled two-electrode tube (neon indicator, gas regulator valve): an envelope holding two
+    facing electrodes, the dot marking the gas fill (IEC 60617-05 style). Drawn along +x."""
+
+    def __init__(self, **kwargs):
+        super().__init__(**kwargs)
+        radius = 0.45
+        self.segments.append(Segment([(0, 0), (radius - 0.12, 0), (math.nan, math.nan), (radius + 0.12, 0), (2 * radius, 0)]))
+        self.segments.append(SegmentCircle((radius, 0), radius))
+        for x in (radius - 0.12, radius + 0.12):
+            self.segments.append(Segment([(x, -0.25), (x, 0.25)]))
+        self.segments.append(SegmentCircle((radius + 0.22, 0.28), 0.05, fill=True))

@@ -97,6 +97,26 @@ class OutputView:
 
 
 @dataclass(frozen=True)
+class RailView:
+    """An output of the unit as drawings label it, e.g. 'B+ 350 V DC', and whether it is above the
+    extra-low-voltage limits."""
+
+    name: str
+    voltage: str  # '350 V DC', '6.3 V AC'
+    bleeder: str = ""  # the resistance declared across it, '' when none is
+    hazardous: bool = False
+    direct: bool = True  # DC; False for an AC rail such as a heater winding
+
+    @property
+    def label(self) -> str:
+        return f"{self.name} {self.voltage}".strip()
+
+    @property
+    def negative(self) -> bool:
+        return self.voltage.lstrip().startswith(("-", "\u2212"))
+
+
+@dataclass(frozen=True)
 class StageView:
     index: int
     kind: str
@@ -113,6 +133,14 @@ class StageView:
     load: str = ""  # what the stage drives in the next stage, e.g. 'T1 primary (stage 3)'
     supply: str = ""  # what feeds it from an earlier stage, e.g. 'T1 secondary (stage 3)'
     direct_current: bool = True  # an earlier stage rectifies; else the stage is fed AC
+    rails: tuple[RailView, ...] = ()  # the rails this stage delivers
+    heater: str = ""  # for a valve rectifier: the winding that heats it, e.g. 'T1 rectifier heater: 9 t'
+    hazard: tuple[str, ...] = ()  # on the isolated side: the hazardous rails this stage carries or feeds
+
+    @property
+    def hazardous_dc(self) -> bool:
+        """Above the extra-low-voltage limits though not connected to the mains."""
+        return bool(self.hazard) and not self.on_mains
 
     def pole(self, positive: bool) -> str:
         """'+' or '-' for a DC stage, '~' for an AC one."""
@@ -149,6 +177,14 @@ class BlockView:
     side: str
     refs: tuple[str, ...]
     bridging: bool  # holds a part that forms or bridges a barrier
+    id: str = ""
+    fed_from: tuple[str, ...] = ()
+    rails: tuple[RailView, ...] = ()
+    hazard: tuple[str, ...] = ()
+
+    @property
+    def hazardous_dc(self) -> bool:
+        return bool(self.hazard) and not self.on_mains
 
     @property
     def on_mains(self) -> bool:

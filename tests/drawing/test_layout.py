@@ -12,15 +12,17 @@ from itertools import combinations
 from xml.etree import ElementTree
 
 import pytest
-from tests.fixtures.demo import DEMO, load_demo
+from tests.fixtures.demo import DEMO, RECORDS, load_demo, load_test_record
+from tests.fixtures.stage_samples import HT, kinds_and_topologies, sample_view
 from schemdraw.backends.svgtext import text_approx_size
 
 from dossier.drawing import schematics, sheet
-from dossier.drawing.sheet import MAINS_FILL
+from dossier.drawing.sheet import HIGH_VOLTAGE_FILL, HIGH_VOLTAGE_HATCH, MAINS_FILL
 from dossier.drawing.svg_text import finish
 
 SVG = "{http://www.w3.org/2000/svg}"
 DEMO_REVISIONS = sorted((path.parent.name, path.stem.split("-")[1]) for path in DEMO.glob("*/rev-*.yaml"))
+SHADING = (MAINS_FILL, HIGH_VOLTAGE_FILL, HIGH_VOLTAGE_HATCH)
 SLACK = 1.5  # points; touching is not overlapping
 TOP_OF_BOX = {"central": 0.5, "hanging": 1.0, "ideographic": 0.0}  # of one line's height, below the y attribute
 
@@ -40,11 +42,12 @@ def text_boxes(root) -> list[tuple[str, tuple[float, float, float, float]]]:
 
 
 def stroke_segments(root) -> list[tuple[tuple[float, float], tuple[float, float]]]:
-    """Straight stroked segments of paths and polygons, leaving out the shading (stroked in its own fill colour)."""
+    """Straight stroked segments of paths and polygons, leaving out the shading (stroked in its own fill colour)
+    and the light hatching of the high-voltage areas, which lies behind the words like the tint."""
     segments = []
     for element in root.iter():
-        style = element.get("style", "")
-        if f"stroke:{MAINS_FILL}" in style.replace(" ", "") or "stroke:none" in style:
+        style = element.get("style", "").replace(" ", "")
+        if any(f"stroke:{colour}" in style for colour in SHADING) or "stroke:none" in style:
             continue
         points = _points(element)
         segments += [(a, b) for a, b in zip(points, points[1:]) if a is not None and b is not None]
@@ -101,7 +104,17 @@ def segment_crosses(box, start, end) -> bool:
 
 @pytest.fixture(scope="module")
 def figures():
-    return [(f"{b}-{r}/{f.key}", f.svg) for b, r in DEMO_REVISIONS for f in schematics.figures(load_demo(b, r))]
+    """Every demo revision's figures, every corpus record's, and a drawing of every stage kind and topology
+    (each also with a hazardous rail, which adds the hatching, its heading and a bleeder)."""
+    found = [(f"{b}-{r}/{f.key}", f.svg) for b, r in DEMO_REVISIONS for f in schematics.figures(load_demo(b, r))]
+    corpus = sorted(path.parent.name for path in RECORDS.glob("*/rev-A.yaml"))
+    found += [(f"{b}/{f.key}", f.svg) for b in corpus for f in schematics.figures(load_test_record(b))]
+    for kind, topology in kinds_and_topologies():
+        for rails in ((), (HT,)):
+            view = sample_view(kind, topology, rails)
+            svg = finish(sheet.svg_of(schematics.plan(view)[0].draw(view)), prefix="k", title=view.title)
+            found.append((f"{kind}:{topology}{'+HT' if rails else ''}", svg))
+    return found
 
 
 def test_no_label_overlaps_another(figures):

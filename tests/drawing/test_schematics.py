@@ -200,20 +200,20 @@ def test_the_transformer_drawing_splits_mains_and_isolated_sides():
     assert 'stroke-dasharray' in figure.svg
 
 
-def test_an_unknown_stage_kind_gets_a_placeholder_and_an_info_finding():
+def test_a_stage_of_kind_other_is_drawn_as_a_block_with_its_parts_not_a_placeholder():
     record = load_demo("solar-bank-charger", "B")
     fan = Stage(kind="other", name="Fan controller", side="isolated",
-                parts=[Part(ref="U7", kind="ic", value="fan controller IC"), Part(ref="M1", kind="fan", value="80 mm 12 V")])
+                parts=[Part(ref="U7", kind="ic", value="fan controller IC"), Part(ref="M1", kind="fan", value="80 mm 12 V"),
+                       Part(ref="R9", kind="resistor", value="10 k", role="speed set")])
     changed = record.model_copy(update={"stages": [*record.stages, fan]})
     result = schematics.draw(changed, [])
-    placeholder = result.figures[-1]
-    assert placeholder.key == f"stage-{len(changed.stages)}-other"
-    assert "not drawn: no drawing for a stage of kind 'other'" in svg_lines(placeholder.svg)
-    assert "U7 fan controller IC" in svg_lines(placeholder.svg)
-    (note,) = result.notes
-    assert (note.code, note.calc, note.verdict) == ("DRAW-PLACEHOLDER", "schematics", Verdict.INFO)
-    assert note.keys == (("stages", len(changed.stages) - 1),)
-    assert schematics.notes(changed) == [note]
+    block = result.figures[-1]
+    lines = svg_lines(block.svg)
+    assert block.key == f"stage-{len(changed.stages)}-other"
+    assert not any(line.startswith("not drawn:") for line in lines)
+    assert "Its parts (the record does not say how they connect):" in lines
+    assert {"U7", "fan controller IC", "M1", "80 mm 12 V", "R9", "10 k", "(speed set)"} <= set(lines)
+    assert result.notes == () and schematics.notes(changed) == []
 
 
 @pytest.mark.parametrize("record, words, subject", [
@@ -230,11 +230,14 @@ def test_a_half_bridge_without_its_lower_switch_gets_a_placeholder(record, words
     assert [n.subject for n in result.notes] == [subject]
 
 
-def test_an_unknown_topology_gets_a_placeholder():
+def test_a_converter_of_a_topology_with_no_drawing_of_its_own_is_drawn_as_a_block():
     record = load_demo("solar-bank-charger", "C")
     flyback = record.stages[1].model_copy(update={"topology": "flyback"})
     changed = record.model_copy(update={"stages": [record.stages[0], flyback, *record.stages[2:]]})
-    assert "topology 'flyback'" in schematics.notes(changed)[0].explanation
+    assert schematics.notes(changed) == []
+    lines = svg_lines(schematics.figures(changed)[2].svg)
+    assert "(converter, flyback)" in lines
+    assert all(part.ref in lines for part in flyback.parts)
 
 
 def test_parts_a_drawer_does_not_place_are_listed_not_dropped():

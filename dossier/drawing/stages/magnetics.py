@@ -139,7 +139,8 @@ def _winding_label(drawing, far: float, top: float, bottom: float, winding: Wind
 
 def _onward(drawing, far: float, y: float, onward: str, outward: int) -> None:
     words = f"{'to' if outward > 0 else 'from'} {onward}"
-    sheet.text(drawing, (far, y + 0.3), words, halign="center", valign="bottom", size=sheet.SMALL_FONT, colour=sheet.NOTE_INK)
+    align = "left" if outward > 0 else "right"  # away from the core, so a long list of stages crosses no lead
+    sheet.text(drawing, (far - outward * 0.15, y + 0.3), words, halign=align, valign="bottom", size=sheet.SMALL_FONT, colour=sheet.NOTE_INK)
 
 
 def _centre_tap(drawing, tap, far: float, outward: int) -> None:

@@ -1,6 +1,7 @@
 """Mains input: inlet with earth, the series parts on the line conductor (fuse, switch, inrush
-limiter, in the record's order), parts across the line (X capacitor, varistor, bleeder), the
-bridge rectifier and the bulk capacitors."""
+limiter, in the record's order), parts across the line (X capacitor, varistor, bleeder), then an
+isolating transformer or a variac where the stage has one (topologies isolating-transformer and
+variac; direct has neither), the bridge rectifier and the bulk capacitors."""
 
 from __future__ import annotations
 
@@ -10,7 +11,9 @@ from dossier.drawing import parts as P
 from dossier.drawing import sheet
 from dossier.drawing.drawers import StageDrawer, finish_stage
 from dossier.drawing.parts import Picker
-from dossier.drawing.symbols import Box, BridgeRectifier, ProtectiveEarth
+from dossier.drawing.stages.ladder import polarised
+from dossier.drawing.stages.rectifier import diode_symbol
+from dossier.drawing.symbols import Box, BridgeRectifier, ProtectiveEarth, Winding
 from dossier.drawing.views import PartView, StageView
 
 LINE_Y = 2.6  # line conductor (L), later the positive DC rail
@@ -26,9 +29,15 @@ def draw(view: StageView):
     _earth(drawing, view)
     x = _series(drawing, picker.take_all(P.either(P.FUSE, P.SWITCH, P.INRUSH)))
     x = _shunts(drawing, x, picker.take_all(P.SHUNT))
+    x, names = _transformation(drawing, x, view, picker)
+    if view.topology in MAINS_RECTIFIERS and picker.peek(P.DIODE):
+        x = MAINS_RECTIFIERS[view.topology](drawing, x, picker)
+        x = _shunts(drawing, x, picker.take_all(P.either(P.BULK, P.SPLIT)))
+        _rails_out(drawing, x, ("+DC", "\u2212DC"), view.goes_to)
+        return finish_stage(drawing, view, picker)
     bridge = picker.take(P.BRIDGE)
     if bridge is None:
-        _rails_out(drawing, x, ("L", "N"), view.goes_to)
+        _rails_out(drawing, x, names, view.goes_to)
         return finish_stage(drawing, view, picker)
     x = _bridge(drawing, x, bridge)
     x = _shunts(drawing, x, picker.take_all(P.either(P.BULK, P.SPLIT)))
@@ -124,6 +133,95 @@ def _bridge(drawing, x: float, bridge: PartView) -> float:
     sheet.wire(drawing, body.plus, (right, body.plus[1]), (right, LINE_Y))
     sheet.wire(drawing, body.minus, (right, body.minus[1]), (right, NEUTRAL_Y))
     return right
+
+
+VARIAC = P.either(P.kind("variac", "autotransformer", "variable transformer"), P.role("variac", "autotransformer"))
+ISOLATING = "isolating-transformer"
+
+
+def _transformation(drawing, x: float, view: StageView, picker: Picker) -> tuple[float, tuple[str, str]]:
+    """An isolating transformer or a variac between the protection and the outputs, with the names its outputs take."""
+    variac = picker.take(VARIAC)
+    if variac is not None:
+        return _variac(drawing, x, variac), ("L adjustable", "N")
+    isolating = view.topology.lower() == ISOLATING or picker.peek(P.kind_and_role(("transformer",), ("isolat",)))
+    transformer = picker.take(P.TRANSFORMER) if isolating else None
+    if transformer is not None:
+        return _isolating(drawing, x, transformer), ("isolated L", "isolated N")
+    return x, ("L", "N")
+
+
+def _isolating(drawing, x: float, part: PartView) -> float:
+    """A 1:1 transformer: primary across L and N, secondary facing it across the core, each winding its own circuit."""
+    primary, secondary = x + 0.8, x + 2.0
+    sheet.wire(drawing, (x, LINE_Y), (primary, LINE_Y))
+    sheet.wire(drawing, (x, NEUTRAL_Y), (primary, NEUTRAL_Y))
+    sheet.add(drawing, Winding(humps=6).at((primary, LINE_Y)).to((primary, NEUTRAL_Y)))
+    sheet.add(drawing, Winding(humps=6).at((secondary, NEUTRAL_Y)).to((secondary, LINE_Y)))
+    for offset in (-0.13, 0.13):
+        core = (primary + secondary) / 2 + offset
+        sheet.wire(drawing, (core, LINE_Y + 0.1), (core, NEUTRAL_Y - 0.1))
+    sheet.text(drawing, ((primary + secondary) / 2, NEUTRAL_Y - 0.4), part.label, halign="center", valign="top")
+    return secondary
+
+
+def _variac(drawing, x: float, part: PartView) -> float:
+    """An autotransformer across L and N; the output line is taken from its wiper (the arrow)."""
+    coil, wiper = x + 0.8, x + 2.0
+    sheet.wire(drawing, (x, LINE_Y), (coil, LINE_Y))
+    sheet.wire(drawing, (x, NEUTRAL_Y), (wiper, NEUTRAL_Y))
+    sheet.add(drawing, Winding(humps=7).at((coil, LINE_Y)).to((coil, NEUTRAL_Y)))
+    sheet.dot(drawing, (coil, NEUTRAL_Y))
+    tap = NEUTRAL_Y + (LINE_Y - NEUTRAL_Y) * 0.6
+    sheet.add(drawing, elm.Arrow().at((wiper, tap)).to((coil + 0.45, tap)))
+    sheet.wire(drawing, (wiper, tap), (wiper, LINE_Y))
+    sheet.text(drawing, (coil, NEUTRAL_Y - 0.4), part.label, halign="center", valign="top")
+    return wiper
+
+
+def _half_wave(drawing, x: float, picker: Picker) -> float:
+    """One diode in the line conductor: the neutral becomes the negative rail."""
+    diode = picker.take(P.DIODE)
+    length = max(sheet.UNIT, sheet.text_width(diode.label) + 0.5)
+    sheet.add(drawing, diode_symbol(diode).at((x, LINE_Y)).right(length).label(diode.label, loc="top"))
+    sheet.wire(drawing, (x, NEUTRAL_Y), (x + length, NEUTRAL_Y))
+    return x + length
+
+
+DOUBLER_TOP, DOUBLER_BOTTOM, DIODE_TOP = LINE_Y + 2.2, NEUTRAL_Y - 2.4, NEUTRAL_Y - 2.4 + sheet.UNIT
+
+
+def _doubler(drawing, x: float, picker: Picker) -> float:
+    """The full-wave doubler straight off the mains: the line to the diodes' midpoint, the neutral to the
+    midpoint of the two reservoir capacitors (crossing the diode column's wire, not joining it)."""
+    diodes = [picker.take(P.DIODE), picker.take(P.DIODE)]
+    capacitors = [c for c in (picker.take(P.CAPACITOR), picker.take(P.CAPACITOR)) if c is not None]
+    diode_x = x + 0.8
+    sheet.wire(drawing, (x, LINE_Y), (diode_x, LINE_Y))
+    upper = [d for d in diodes if d is not None]
+    sheet.add(drawing, diode_symbol(upper[0]).at((diode_x, LINE_Y)).to((diode_x, DOUBLER_TOP)))
+    sheet.text(drawing, (diode_x + 0.45, (LINE_Y + DOUBLER_TOP) / 2), upper[0].label)
+    lower = upper[-1]
+    sheet.add(drawing, diode_symbol(lower).at((diode_x, DOUBLER_BOTTOM)).to((diode_x, DIODE_TOP)))
+    sheet.wire(drawing, (diode_x, DIODE_TOP), (diode_x, LINE_Y))
+    sheet.text(drawing, (diode_x + 0.45, (DOUBLER_BOTTOM + DIODE_TOP) / 2), lower.label if lower is not upper[0] else lower.ref)
+    sheet.dot(drawing, (diode_x, LINE_Y))
+    cap_x = diode_x + max(sheet.text_width(d.label) for d in upper) + 1.0
+    sheet.wire(drawing, (x, NEUTRAL_Y), (cap_x, NEUTRAL_Y))
+    for part, (top, bottom) in zip(capacitors, ((DOUBLER_TOP, NEUTRAL_Y), (NEUTRAL_Y, DOUBLER_BOTTOM))):
+        sheet.add(drawing, elm.Capacitor(polar=polarised(part)).at((cap_x, top)).to((cap_x, bottom)))
+        sheet.text(drawing, (cap_x + 0.45, (top + bottom) / 2), part.label)
+    sheet.dot(drawing, (cap_x, NEUTRAL_Y))
+    right = cap_x + max((sheet.text_width(c.label) for c in capacitors), default=0.0) + 0.9
+    for y in (DOUBLER_TOP, DOUBLER_BOTTOM):
+        sheet.wire(drawing, (diode_x, y), (right, y))
+        sheet.dot(drawing, (cap_x, y))
+    sheet.wire(drawing, (right, DOUBLER_TOP), (right, LINE_Y))
+    sheet.wire(drawing, (right, DOUBLER_BOTTOM), (right, NEUTRAL_Y))
+    return right
+
+
+MAINS_RECTIFIERS = {"half-wave": _half_wave, "doubler": _doubler}
 
 
 def _rails_out(drawing, x: float, names: tuple[str, str], goes_to: str) -> None:

@@ -1,5 +1,5 @@
-"""A regulator as a block with its setpoint, with the series-pass transistor it drives when the
-stage has one."""
+"""A series-pass (linear) regulator as a block with its setpoint, with the pass transistor it drives when
+the stage has one. Shunt and switching regulators have drawers of their own."""
 
 from __future__ import annotations
 
@@ -68,12 +68,16 @@ def _terminals(drawing, view: StageView, out_x: float) -> None:
     onward = f" to {view.goes_to}" if view.goes_to else ""
     sheet.terminal(drawing, (-0.11, RAIL_Y), f"{view.pole(True)}{origin}", side="left")
     sheet.terminal(drawing, (-0.11, RETURN_Y), f"{view.pole(False)}{origin}", side="left")
-    sheet.terminal(drawing, (out_x + 0.11, RAIL_Y), f"{view.pole(True)}{onward}")
-    sheet.terminal(drawing, (out_x + 0.11, RETURN_Y), f"{view.pole(False)}{onward}")
+    rails = ", ".join(rail.label for rail in view.rails)
+    sheet.terminal(drawing, (out_x + 0.11, RAIL_Y), f"{rails or view.pole(True)}{onward}")
+    sheet.terminal(drawing, (out_x + 0.11, RETURN_Y), f"{'0 V' if rails else view.pole(False)}{onward}")
+
+
+OTHER_DRAWERS = ("shunt", "switching")
 
 
 def handles(view: StageView) -> bool:
-    return view.kind == "regulator"
+    return view.kind == "regulator" and view.topology.lower() not in OTHER_DRAWERS
 
 
 def missing(view: StageView) -> list[str]:
