@@ -66,13 +66,7 @@ def test_a_block_diagram_then_one_drawing_per_stage(drawn, build, rev):
     assert all(isinstance(f, Figure) and f.section == "schematics" for f in drawn[build, rev].figures)
 
 
-# The drawers for the filter and branch stages of the valve amplifier's supply come with the drawings work for the
-# stage graph; strict, so the marker must go when they arrive.
-AWAITING_DRAWERS = pytest.mark.xfail(strict=True, reason="no drawer yet for its filter and heater stages")
-PLACEHOLDER_CASES = [pytest.param(b, r, marks=AWAITING_DRAWERS) if b == "valve-amp-supply" else (b, r) for b, r in DEMO_REVISIONS]
-
-
-@pytest.mark.parametrize("build, rev", PLACEHOLDER_CASES)
+@pytest.mark.parametrize("build, rev", DEMO_REVISIONS)
 def test_every_demo_stage_has_a_real_drawing_not_a_placeholder(drawn, build, rev):
     assert drawn[build, rev].notes == ()
     # a placeholder says 'not drawn: <reason>' on a line of its own; parts a drawer leaves are listed under 'Also in ...'
