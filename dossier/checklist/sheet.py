@@ -5,7 +5,7 @@ from __future__ import annotations
 from dataclasses import dataclass
 
 from dossier.caution import POWER_UP_CAUTION
-from dossier.checklist import barriers, general, output_items, soak
+from dossier.checklist import barriers, general, output_items, soak, station
 from dossier.checklist.fuse import fuse_item
 from dossier.checklist.items import Item, Phase
 from dossier.findings import Finding
@@ -72,6 +72,7 @@ def all_items(record, review: Review) -> list[Item]:
         general.isolated_supply(),
         *output_items.minimum_load(record),
         general.series_lamp(record),
+        *station.station_items(record),
         general.bleed_capacitors(record),
         *output_items.setting_items(record),
         *output_items.battery_lead_items(record),

@@ -9,7 +9,7 @@ from pydantic_core import PydanticCustomError
 
 from dossier.record.fields import (
     Designator,
-    Area, Current, Name, FieldStrength, FluxDensity, Frequency, InductanceFactor, Length, Section, Share, Temperature, Voltage, WireSize,
+    Area, Current, Name, FieldStrength, Power, Resistance, FluxDensity, Frequency, InductanceFactor, Length, Section, Share, Temperature, Voltage, WireSize,
     out_of_range,
 )
 
@@ -105,6 +105,7 @@ class Winding(Section):
     tape_layers: int = Field(0, ge=0, le=1000, description="Layers of insulating tape over this winding.")
     centre_tap: bool = Field(False, description="The winding has a centre tap; turns count the whole winding.")
     current: Current | None = Field(None, description="RMS current (in each half of a centre-tapped winding); default derived from the output rating.")
+    resistance: Resistance | None = Field(None, description="Measured DC resistance of the whole winding at room temperature, e.g. 1.9 ohm; used before the one computed from the wire.")
 
     @field_validator("overall_diameter")
     @classmethod
@@ -122,6 +123,7 @@ class Magnetic(Section):
     core: Core = Field(description="The core: a toroid by its dimensions, or declared effective parameters.")
     windings: list[Winding] = Field(min_length=1, description="Every winding, primary first.")
     frequency: Frequency | None = Field(None, description="Operating frequency when the excitation is derived from the converter stage, e.g. 50 kHz.")
+    rated_power: Power | None = Field(None, description="A mains transformer's rated output, e.g. 500 VA; gives its rated primary current.")
     cooling: Literal["natural", "forced-air"] = Field("natural", description="natural (convection) or forced-air (a fan blows on it).")
     excitation: Excitation | None = Field(None, description="Declared drive: waveform, voltage, frequency (and the winding it is across).")
     insulation_class: Literal["A", "E", "B", "F", "H", "N", "R"] | None = Field(
