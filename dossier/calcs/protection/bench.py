@@ -102,10 +102,10 @@ def _lamp(record, lamp):
     overrun = lamp.voltage < high
     text = words.lamp_text(lamp.ref, first_peak, steady, lamp.bypass, lamp.cold_ratio is None) + (words.lamp_overrun(lamp.ref) if overrun else "")
     return finding(code="PROT-SERIES-LAMP", subject=lamp.ref, title="Series lamp: what it limits", verdict=Verdict.MARGINAL if overrun else Verdict.INFO,
-                   values=(measure("current limit once hot", steady), measure("peak at first switch-on (cold filament)", first_peak),
-                           measure("hot resistance", hot), measure("cold resistance", cold), measure("hot over cold", Q_(ratio)),
-                           measure("voltage fed to it (high line)", high)),
-                   limit=measure("lamp's rated voltage", lamp.voltage) if overrun else None, relation=">=",
+                   values=(measure("voltage fed to it (high line)", high), measure("current limit once hot", steady),
+                           measure("peak at first switch-on (cold filament)", first_peak),
+                           measure("hot resistance", hot), measure("cold resistance", cold), measure("hot over cold", Q_(ratio))),
+                   limit=measure("lamp's rated voltage", lamp.voltage), relation="<=",
                    method="R_hot = V_lamp^2 / P; R_cold = R_hot / 15; I_first = sqrt 2 V_high / R_cold; I_steady <= V_high / R_hot",
                    explanation=text, keys=(("protection", "series_lamp"),), sources=(LAMP_COLD,) + ((OVERRUN_LAMP,) if overrun else ()))
 

@@ -121,10 +121,10 @@ def _input_current_finding(record):
         measure("efficiency", Q_(running.efficiency * 100, "percent")),
         measure("crest factor", Q_((running.peak / running.rms).to("").magnitude)),
     )
-    return finding(code="PROT-INPUT-CURRENT", subject="mains input", title="Mains input current at low line", verdict=Verdict.INFO,
+    return finding(code="PROT-INPUT-CURRENT", subject="mains input", title=f"Mains input current at {line} line", verdict=Verdict.INFO,
                    values=values, method=f"P_in = P_out / efficiency; {LOAD_MODELS[running.load_kind]}; "
                                          + ("I_pk = sqrt 2 I_rms" if running.peak_model == "sine" else "I_pk = I_rms sqrt(2 pi / conduction angle)"),
-                   explanation=words.input_text(words.TOPOLOGY_WORDS[running.topology], running.input_power)
+                   explanation=words.input_text(words.TOPOLOGY_WORDS[running.topology], running.input_power, line)
                    + words.load_text(running.load_kind, line, running.load_assumed)
                    + words.assumed_text(running.assumed, words.MORE_CURRENT),
                    keys=OUTPUT_KEYS, sources=_input_sources(running))

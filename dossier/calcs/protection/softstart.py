@@ -90,10 +90,11 @@ def _stuck_bypass(record, limiter):
     verdict, text = _stuck_verdict(limiter, within, cutoff, running)
     values = (measure("dissipation with the relay open", power), measure("current through it", current),
               measure("dissipation if the load shorts (V_high^2 / R)", worst))
+    rating = measure(f"{limiter.ref} power rating", limiter.power_rating)
     if cutoff is not None:
-        values += (measure("thermal cut-off opens at", cutoff.temperature),)
+        values += (measure("thermal cut-off opens at", cutoff.temperature), rating)
     return finding(code="PROT-SOFTSTART-BYPASS", subject=limiter.ref, title=title, verdict=verdict, values=values,
-                   limit=measure(f"{limiter.ref} power rating", limiter.power_rating), relation="<=",
+                   limit=rating if within or cutoff is None else None, relation="<=",
                    method="P = I^2 R, I = min(I_run, V_high / R); over the rating only a thermal cut-off protects it",
                    explanation=text, guards_hazard=True,
                    keys=KEYS + (("protection", "inrush_limiter", "power_rating"), ("protection", "inrush_limiter", "thermal_cutoff")),

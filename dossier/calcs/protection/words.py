@@ -26,8 +26,8 @@ MORE_CURRENT = "gives the most input current"
 LESS_CURRENT = "gives the least input current"
 
 
-def input_text(topology_words: str, input_power) -> str:
-    return f"Input: {topology_words}; at low line the unit draws {fmt(input_power)}."
+def input_text(topology_words: str, input_power, line: str = "low") -> str:
+    return f"Input: {topology_words}; at {line} line the unit draws {fmt(input_power)}."
 
 
 def no_fuse_text(fit_marking: str | None) -> str:
