@@ -238,9 +238,9 @@ def ratio_out_of_range(key: str, value: float) -> str:
 
 # The switch-on surge
 
-NO_CAPACITOR_INRUSH = ("No capacitance charged straight from the mains is declared, so no capacitor inrush is computed. "
-                       "A mains transformer's switch-on surge depends on core remanence and the switch-on angle and is not computed here; "
-                       "a time-lag fuse is the usual answer.")
+NO_CAPACITOR_INRUSH = ("No capacitance charged at switch-on is declared (protection.bulk_capacitance, or secondary_banks behind a"
+                       " transformer), so no capacitor inrush is computed. A mains transformer's own switch-on surge is bounded in"
+                       " its own finding.")
 INRUSH_NOT_COMPUTED = "The switch-on surge cannot be computed from what is declared."
 
 
