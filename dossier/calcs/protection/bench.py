@@ -14,32 +14,24 @@ import math
 from dossier.calcs.protection import words
 from dossier.calcs.protection.common import CALC_NAME, finding, measure
 from dossier.calcs.shared.finding_kit import not_assessed
-from dossier.findings import Source, Verdict, common_practice
+from dossier.citations import HSE_TEST_BENCHES, IEC_60364_4_41, IEC_61008_1, LAMPTECH_STARTING
+from dossier.findings import Verdict, common_practice
 from dossier.units import Q_
 
-IEC_60364_4_41 = Source(
-    title="IEC 60364-4-41, Low-voltage electrical installations - Part 4-41: Protection for safety - Protection against electric shock",
-    publisher="International Electrotechnical Commission", edition="edition 5.0, 2005 (edition from memory)",
-)
 ADDITIONAL_RCD = dataclasses.replace(IEC_60364_4_41, clause="415.1, additional protection: RCDs of rated residual operating current not exceeding 30 mA (clause number from memory)")
 SEPARATION = dataclasses.replace(
     IEC_60364_4_41, clause="413, electrical separation: the separated circuit's exposed-conductive-parts are not connected to the protective "
                            "conductor or to earth; several items only through non-earthed equipotential bonding (clause numbers from memory)",
 )
-HSE_TEST_BENCH = Source(
-    title="Electrical safety for test benches: supplies to equipment under test (HSE guidance on safety in electrical testing at work)",
-    publisher="Health and Safety Executive (UK)", kind="handbook",
-    clause="the supply from an isolating transformer from a single socket outlet; no fixed wiring connected to the earth terminal of the "
+HSE_TEST_BENCH = dataclasses.replace(
+    HSE_TEST_BENCHES, clause="the supply from an isolating transformer from a single socket outlet; no fixed wiring connected to the earth terminal of the "
            "outlet socket; suitable protection against overload and overcurrent, e.g. fuses (confirmed in a public quotation)",
 )
-RCD_TRIP_TIMES = Source(
-    title="IEC 61008-1, Residual current operated circuit-breakers without integral overcurrent protection (RCCBs)",
-    publisher="International Electrotechnical Commission",
-    clause="general-type tripping time at most 300 ms at I_dn and 40 ms at 5 I_dn (confirmed as quoted in RCD testers' instruction manuals)",
+RCD_TRIP_TIMES = dataclasses.replace(
+    IEC_61008_1, clause="general-type tripping time at most 300 ms at I_dn and 40 ms at 5 I_dn (confirmed as quoted in RCD testers' instruction manuals)",
 )
-LAMP_COLD = Source(
-    title="Incandescent lamps: starting characteristics", publisher="Lamptech (lamptech.co.uk), P. Flesch, reference pages", kind="reference",
-    clause="hot resistance V^2 / P; at switch-on the cold filament draws typically about 14 times the normal current (confirmed)",
+LAMP_COLD = dataclasses.replace(
+    LAMPTECH_STARTING, clause="hot resistance V^2 / P; at switch-on the cold filament draws typically about 14 times the normal current (confirmed)",
 )
 OVERRUN_LAMP = common_practice("a series lamp runs at no more than its rated voltage; overrun it fails open sooner")
 DOWNSTREAM = common_practice("a variac's top of scale sets the voltage of everything it feeds; their ratings are compared with it")

@@ -12,6 +12,7 @@ only the winding's resistance, the supply's and any series soft-start resistance
 
 from __future__ import annotations
 
+import dataclasses
 import math
 from dataclasses import dataclass
 
@@ -22,13 +23,13 @@ from dossier.calcs.protection.transformer import (
     COLD, Transformer, air_core_inductance, mains_transformers, normal_peak_flux,
 )
 from dossier.calcs.shared.finding_kit import not_assessed
-from dossier.findings import Source, Verdict, common_practice
+from dossier.citations import ESP_PROJECT_39
+from dossier.findings import Verdict, common_practice
 from dossier.standards.fuses import half_sine_i2t, pulse_fraction, single_figure_share
 from dossier.units import Q_
 
-ESP_SOFT_START = Source(
-    title="Project 39, Soft-Start Circuit for Power Amps", publisher="Elliott Sound Products (Rod Elliott)", kind="application-note",
-    clause="the transformer's switch-on surge is worst when power is applied as the mains passes through zero and is limited then "
+ESP_SOFT_START = dataclasses.replace(
+    ESP_PROJECT_39, clause="the transformer's switch-on surge is worst when power is applied as the mains passes through zero and is limited then "
            "only by the wiring and winding resistance; a series resistor sized for about 200 % of full-load current, bypassed after "
            "about 100 ms (500 VA at 240 V: 2 A, 4 A, 60 ohm), dissipates V^2 / R if the bypass fails (confirmed in a public copy)",
 )
