@@ -241,3 +241,21 @@ ARRL_FILTERS = Source(
             "above the critical inductance); bleeder resistors"),
     kind="handbook",
 )
+ESP_PROJECT_39 = Source(
+    title="Project 39, Soft-Start Circuit for Power Amps", publisher="Elliott Sound Products (Rod Elliott)", kind="application-note",
+)
+IEC_60364_4_41 = Source(
+    title="IEC 60364-4-41, Low-voltage electrical installations - Part 4-41: Protection for safety - Protection against electric shock",
+    publisher="International Electrotechnical Commission", edition="edition 5.0, 2005 (edition from memory)",
+)
+IEC_61008_1 = Source(
+    title="IEC 61008-1, Residual current operated circuit-breakers without integral overcurrent protection (RCCBs)",
+    publisher="International Electrotechnical Commission",
+)
+HSE_TEST_BENCHES = Source(
+    title="Electrical safety for test benches: supplies to equipment under test (HSE guidance on safety in electrical testing at work)",
+    publisher="Health and Safety Executive (UK)", kind="handbook",
+)
+LAMPTECH_STARTING = Source(
+    title="Incandescent lamps: starting characteristics", publisher="Lamptech (lamptech.co.uk), reference pages", kind="reference",
+)

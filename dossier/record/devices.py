@@ -9,7 +9,7 @@ from pydantic_core import PydanticCustomError
 
 from dossier.record.fields import (
     Designator,
-    Capacitance, Current, Duration, Energy, Frequency, MarginRatio, Power, Ratio, Resistance, Section, Temperature, TemperatureRise,
+    Capacitance, Current, Duration, Energy, Frequency, MarginRatio, MeltingIntegral, Power, Ratio, Resistance, Section, Temperature, TemperatureRise,
     ThermalResistance, Voltage,
 )
 
@@ -61,6 +61,9 @@ class Semiconductor(Section):
     current_rms: Current | None = Field(None, description="RMS current through a MOSFET over a whole cycle, for its conduction loss.")
     rds_on: Resistance | None = Field(None, description="A MOSFET's on-resistance at 25 degC from the maker's data (the maximum, not the typical).")
     rds_on_hot: Resistance | None = Field(None, description="A MOSFET's on-resistance at its hot junction temperature, read from the maker's curve.")
+    surge_current: Current | None = Field(None, description="Non-repetitive peak forward surge current I_FSM of a rectifier (one half-sine), e.g. 200 A.")
+    surge_duration: Duration | None = Field(None, description="The half-sine I_FSM is given for, e.g. 8.3 ms or 10 ms; 8.3 ms when not given (harsher).")
+    surge_i2t: MeltingIntegral | None = Field(None, description="A rectifier's I^2 t rating for fusing, e.g. 166 A^2 s.")
     rds_on_rise: Ratio | None = Field(None, description="A MOSFET's on-resistance at its hot junction temperature over its value at 25 degC, from the maker's curve, e.g. 1.9.")
 
     @model_validator(mode="after")
