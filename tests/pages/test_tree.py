@@ -272,3 +272,15 @@ def test_a_finding_the_sign_off_sent_back_says_to_fix_beside_it(tree):
     assert "**to fix**: " in verdicts
     open_rows = [row for row in verdicts.splitlines() if row.endswith("| open |")]
     assert open_rows and all(any(title in row for title in ("Touch current", "Absorption timer", "High-temperature cut-off")) for row in open_rows)
+
+
+def test_rev_c_s_overview_and_checklist_ask_for_a_re_review_after_the_new_checks(tree):
+    # demo: solar-bank-charger rev C was cleared on 2026-06-20; checks added since find its battery cut-off,
+    # absorption timer and C4's capacitance undeclared, so that review is outdated and rev C is not cleared
+    checklist = page(tree, "builds/solar-bank-charger/rev-C/checklist.md")
+    assert "Not cleared for first power-up" in checklist and "Signed off" not in checklist
+    assert "review outdated: the checks changed after signoff-C.yaml" in checklist
+    assert "CHG-HOT-CUTOFF (battery, fail), PROT-TOUCH-CURRENT (touch current, not assessed), CHG-TIMER (battery, marginal)" in checklist
+    overview = page(tree, "builds/solar-bank-charger/rev-C/index.md")
+    assert '<span class="dossier-signoff dossier-signoff-review-outdated">' in overview
+    assert "| cleared for first power-up (**outdated**: the checks changed the findings after it) | `signoff-C.yaml` |" in overview
