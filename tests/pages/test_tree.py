@@ -290,7 +290,7 @@ def test_rev_c_s_overview_and_checklist_ask_for_a_re_review_after_the_new_checks
     checklist = page(tree, "builds/solar-bank-charger/rev-C/checklist.md")
     assert "Not cleared for first power-up" in checklist and "Signed off" not in checklist
     assert "review outdated: the checks changed after signoff-C.yaml" in checklist
-    assert "CHG-HOT-CUTOFF (battery, fail), PROT-TOUCH-CURRENT (touch current, not assessed), CHG-TIMER (battery, marginal)" in checklist
+    assert "CHG-HOT-CUTOFF (battery, fail), PROT-TOUCH-CURRENT (touch current, not assessed), RAILS-X-DISCHARGE (X capacitors, not assessed), CHG-TIMER (battery, marginal)" in checklist
     overview = page(tree, "builds/solar-bank-charger/rev-C/index.md")
     assert '<span class="dossier-signoff dossier-signoff-review-outdated">' in overview
     assert "| cleared for first power-up (**outdated**: the checks changed the findings after it) | `signoff-C.yaml` |" in overview

@@ -17,7 +17,7 @@ from dossier.signoff.state import ReviewState
 from dossier.wording import signoff_line
 from tests.fixtures.demo import DEMO
 
-NEW_CHECKS = [("CHG-HOT-CUTOFF", "battery"), ("PROT-TOUCH-CURRENT", "touch current"), ("CHG-TIMER", "battery")]
+NEW_CHECKS = [("CHG-HOT-CUTOFF", "battery"), ("PROT-TOUCH-CURRENT", "touch current"), ("RAILS-X-DISCHARGE", "X capacitors"), ("CHG-TIMER", "battery")]
 
 
 @pytest.fixture(scope="module")
