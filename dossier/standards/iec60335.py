@@ -56,7 +56,7 @@ EARTH = EarthRule(
 )
 
 
-def clearance(impulse_v: float, pollution_degree: int, grade: str) -> Requirement:
+def clearance(impulse_v: float, pollution_degree: int, grade: str, **_conditions) -> Requirement:
     """Table 16; reinforced insulation at the next higher step of rated impulse voltage; PD3 at least 0.8 mm."""
     if pollution_degree not in (1, 2, 3):
         raise OutsideTable("IEC 60335-1 Table 16 is read here for pollution degrees 1 to 3 only")
@@ -96,7 +96,7 @@ def creepage(working_v: float, pollution_degree: int, group: str, printed_board:
     return Requirement(basic * factor, table, False, tuple(notes))
 
 
-def test_voltage(grade: str, mains_v: float | None, working_v: float, impulse_v: float) -> TestVoltage:
+def test_voltage(grade: str, mains_v: float | None, working_v: float, impulse_v: float, **_conditions) -> TestVoltage:
     """Table 7 by rated voltage (the mains nominal, or the working voltage without mains); above 250 V by working voltage."""
     kind = "reinforced" if grade in DOUBLED_GRADES else grade if grade == "supplementary" else "basic"
     rated = mains_v if mains_v is not None else working_v

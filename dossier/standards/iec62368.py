@@ -72,7 +72,7 @@ EARTH = EarthRule(
 )
 
 
-def clearance(impulse_v: float, pollution_degree: int, grade: str) -> Requirement:
+def clearance(impulse_v: float, pollution_degree: int, grade: str, **_conditions) -> Requirement:
     """Table 14, entered with the rated impulse voltage (the mains transient voltage) as the required withstand voltage."""
     if pollution_degree not in (1, 2, 3):
         raise OutsideTable("IEC 62368-1 Table 14 gives clearances for pollution degrees 1 to 3 only")
@@ -100,7 +100,7 @@ def creepage(working_v: float, pollution_degree: int, group: str, printed_board:
     return Requirement(basic * factor, table, (row, column) in CONFIRMED_T17, tuple(notes))
 
 
-def test_voltage(grade: str, mains_v: float | None, working_v: float, impulse_v: float) -> TestVoltage:
+def test_voltage(grade: str, mains_v: float | None, working_v: float, impulse_v: float, **_conditions) -> TestVoltage:
     """Clause 5.4.9.1: the highest of Table 25 (transients) and, on a mains barrier, Table 27 (temporary overvoltages)."""
     doubled = grade in DOUBLED_GRADES
     t25_row = _row(TEST_T25, impulse_v, "IEC 62368-1 Table 25 (V peak)")

@@ -44,7 +44,8 @@ class ProductCreepage:
 
 def product_clearance(standard: ProductStandard, inputs: Inputs, site: Site, need: ClearanceNeed) -> ProductClearance:
     """The standard's table entered with the rated impulse voltage; Table F.8's steady-state clearance stays a floor."""
-    table = standard.clearance(need.basic_impulse, inputs.pollution_degree, site.grade)
+    table = standard.clearance(need.basic_impulse, inputs.pollution_degree, site.grade,
+                               working_v=inputs.creepage_voltage.to("V").magnitude, category=inputs.category)
     return ProductClearance(table, need.steady_mm, need.factor, need.required_mm)
 
 
