@@ -94,11 +94,12 @@ def _clearance_extra(chosen: Chosen, need: ClearanceNeed, clearance) -> tuple[Me
             Measure("altitude factor", Q_(clearance.factor)), Measure("IEC 60664-1 alone", Q_(clearance.basic_standard_mm, "mm")))
 
 
-def product_creepage_finding(site: Site, inputs: Inputs, chosen: Chosen, group: str, clearance_mm: float, keys: tuple) -> Finding:
+def product_creepage_finding(site: Site, inputs: Inputs, chosen: Chosen, group: str, clearance_mm: float | None, keys: tuple) -> Finding:
+    """The product standard's creepage, never less than the required clearance (None: the clearance is not known)."""
     standard = chosen.standard
     keys = (*keys, *chosen.keys)
     try:
-        basic_mm = creepage_need(inputs, site, group, clearance_mm).required_mm
+        basic_mm = creepage_need(inputs, site, group, clearance_mm if clearance_mm is not None else 0.0).required_mm
     except OutsideTable:
         basic_mm = None
     try:
@@ -108,6 +109,9 @@ def product_creepage_finding(site: Site, inputs: Inputs, chosen: Chosen, group: 
         return _table_not_held(site, "ISO-CREEPAGE", "Creepage", problem, keys, chosen, basic)
     except OutsideTable as problem:
         return not_assessed(site, "ISO-CREEPAGE", "Creepage", str(problem), keys, standard_source(standard, "creepage table"))
+    if clearance_mm is None:
+        return not_assessed(site, "ISO-CREEPAGE", "Creepage", words.NO_CLEARANCE_FLOOR, (*keys, site.key("clearance")),
+                            standard_source(standard, "creepage table"))
     declared, required = site.barrier.creepage, Q_(creepage.required_mm, "mm")
     bridged = bridged_slots(site, inputs)
     outcome = verdict(site, declared, required)

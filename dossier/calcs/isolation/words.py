@@ -322,9 +322,12 @@ HIPOT_CAUTION = ("An electric-strength (hi-pot) test is for trained people with 
 
 def standard_text(chosen, from_memory: list[str], confirmed: list[str], missing: list[str] = ()) -> str:
     parts = [f"{chosen.name}: {ORIGIN_WORDS[chosen.origin]}"]
-    if chosen.standard is not None:
+    if chosen.standard is not None and not missing:
         parts.append("clearance, creepage and the electric-strength test voltage of each barrier come from its tables, "
                      "and where they differ from IEC 60664-1 the product standard's figure is taken")
+    elif chosen.standard is not None:
+        parts.append("the electric-strength test voltage and the earth limit come from it; what it holds no table for is "
+                     "not assessed, with IEC 60664-1's figure shown as guidance only")
     if confirmed:
         parts.append("confirmed in public material: " + "; ".join(confirmed))
     if from_memory:
