@@ -11,6 +11,8 @@ bbs.angui.org). The rated impulse voltages (Table 15) are those of IEC 60664-1 T
 - Table 17 (creepage, basic insulation): IEC 60664-1 Table F.5's general columns; reinforced insulation twice.
 - Table 7 (electric strength, clause 16.3): by rated voltage, basic 1 000 / 1 250 V, supplementary 1 750 V,
   reinforced 3 000 V r.m.s.; above 250 V by working voltage U: 1.2 U + 700, 1.2 U + 1 450, 2.4 U + 2 400 V; 1 min.
+- Table 3 (clause 11.8, temperature rises of handles, knobs and grips, metal): 35 K for parts held for short periods
+  only, 30 K for parts held continuously; rises over the room, not temperatures.
 - Clause 27.5: at most 0.1 ohm, the supply cord excluded, at 1.5 times the rated current or 25 A, whichever is
   higher, from a source of no more than 12 V.
 
@@ -21,7 +23,7 @@ from __future__ import annotations
 
 from dossier.standards import iec60664
 from dossier.standards.iec60664 import OutsideTable, up_to_and_including
-from dossier.standards.product import EarthRule, ProductStandard, Requirement, TestVoltage
+from dossier.standards.product import EarthRule, ProductStandard, Requirement, TestVoltage, TouchLimit, TouchLimits
 
 KEY = "iec-60335-1"
 EDITION = 5
@@ -113,4 +115,9 @@ def _between_rows(value: float, row: float) -> str:
     return f"{value:g} V lies between rows: the next row up, {row:g} V, is used (the harsher reading)"
 
 
-STANDARD = ProductStandard(KEY, EDITION, TITLE, EDITION_TEXT, clearance, creepage, test_voltage, EARTH)
+TOUCH = TouchLimits(
+    brief=TouchLimit(35, True, "Table 3 (clause 11.8), metal handles held for short periods only (from memory)", False),
+    held=TouchLimit(30, True, "Table 3 (clause 11.8), metal handles held continuously (from memory)", False),
+)
+
+STANDARD = ProductStandard(KEY, EDITION, TITLE, EDITION_TEXT, clearance, creepage, test_voltage, EARTH, TOUCH)
