@@ -136,6 +136,17 @@ IEC_60740_1 = Source(
     publisher="International Electrotechnical Commission",
     edition="edition 2.0, 2005 (edition from memory)",
 )
+IEC_61010_1 = Source(
+    title=("IEC 61010-1, Safety requirements for electrical equipment for measurement, control, and laboratory use - "
+           "Part 1: General requirements"),
+    publisher="International Electrotechnical Commission",
+    edition="edition 3.0, 2010, with amendment 1 (2016)",
+)
+IEC_61558_1 = Source(
+    title="IEC 61558-1, Safety of transformers, reactors, power supply units and combinations thereof - Part 1: General requirements and tests",
+    publisher="International Electrotechnical Commission",
+    edition="edition 3.0, 2017",
+)
 IEC_60335_1 = Source(
     title="IEC 60335-1, Household and similar electrical appliances - Safety - Part 1: General requirements",
     publisher="International Electrotechnical Commission",

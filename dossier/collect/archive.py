@@ -24,7 +24,7 @@ from dossier.collect.caches import Caches
 from dossier.collect.extras import Extras, revision_extras
 from dossier.collect.parallel import collect_in_workers, worker_count
 from dossier.reading.settings import ArchiveSettings, load_settings
-from dossier.calcs import isolation
+from dossier.calcs import isolation, rails, thermal
 
 CHECKLIST_SHEETS = {"a4": "checklist-a4.html", "letter": "checklist-letter.html"}
 
@@ -97,9 +97,13 @@ def open_archive(root: Path, calcs: list[Calc] | None = None) -> tuple[Archive, 
     return Archive(root, settings, configured_calcs(calcs, settings), ledger), problems
 
 
+CONFIGURABLE = ((isolation.CALC, isolation.configured), (thermal.CALC, thermal.configured), (rails.CALC, rails.configured))
+
+
 def configured_calcs(calcs: list[Calc], settings: ArchiveSettings) -> list[Calc]:
-    """The isolation calc reads the archive's table_interpolation setting; the others take none."""
-    return [isolation.configured(settings) if calc is isolation.CALC else calc for calc in calcs]
+    """The isolation calc reads the archive's table_interpolation setting and default standard; the thermal and
+    rails calcs read the default standard (touch limits, energy-source classes); the others take none."""
+    return [next((configure(settings) for built_in, configure in CONFIGURABLE if calc is built_in), calc) for calc in calcs]
 
 
 def each_build(archive: Archive, problems: list[Problem], cache=None, jobs: int | None = None) -> Iterator[Build]:
