@@ -21,10 +21,11 @@ from dossier.reading.archive import build_dirs
 from dossier.problems import InputError
 from dossier.output.atomic import check_output, swap_in
 from dossier.collect.caches import user_caches
-from dossier.collect.archive import Archive, Build, each_build, open_archive
+from dossier.collect.archive import Archive, open_archive
 from dossier.output.fingerprint import marker_text, render_inputs, still_current
 from dossier.output.lock import building, real_output
-from dossier.pages.tree import TreeSummary, write_tree
+from dossier.pages.reuse import each_build_pages
+from dossier.pages.tree import BuildPages, TreeSummary, finish_tree
 from dossier.render.mkdocs_run import RenderError, run_mkdocs, source_epoch, write_config
 
 PROGRESS_FROM = 20  # builds; smaller archives build in a few seconds and need no progress bar
@@ -58,17 +59,19 @@ def build_site(archive: Path, output: Path, *, pages_only: bool = False, calcs=N
     check_output(output, archive)
     opened, problems = open_archive(archive, calcs)
     with building(output) as work:
-        builds = _reported(each_build(opened, problems, cache, jobs), progress)
-        tree = write_tree(opened, work / DOCS, builds)
+        builds = _reported(each_build_pages(opened, problems, work / DOCS, cache, jobs), progress)
+        tree = finish_tree(opened, work / DOCS, builds)
         if problems:
             raise InputError(problems)
+        if cache is not None and cache.builds is not None:
+            cache.builds.trim()
         if pages_only:
             swap_in(work / DOCS, output)
         replaced = pages_only or _render_and_swap(opened, tree, work, output, announce, reuse)
     return Built(output, len(tree.rows), tree.pages, time.perf_counter() - started, tree.warnings, replaced)
 
 
-def _reported(builds: Iterator[Build], progress: Callable | None) -> Iterator[Build]:
+def _reported(builds: Iterator[BuildPages], progress: Callable | None) -> Iterator[BuildPages]:
     for build in builds:
         if progress is not None:
             progress(build)

@@ -202,7 +202,7 @@ def test_a_failed_write_is_a_message_naming_the_path(tmp_path, monkeypatch):
     def disk_full(*args, **kwargs):
         raise OSError(28, "No space left on device", str(tmp_path / "site"))
 
-    monkeypatch.setattr("dossier.commands.build.write_tree", disk_full)
+    monkeypatch.setattr("dossier.commands.build.finish_tree", disk_full)
     result = CliRunner().invoke(main, ["build", str(DEMO), "-o", str(tmp_path / "site"), "--pages-only", "--no-cache"])
     assert result.exit_code == 2
     assert f"cannot write {tmp_path / 'site'}: No space left on device; nothing was replaced" in result.stderr
