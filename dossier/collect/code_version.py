@@ -95,6 +95,11 @@ def _version(name: str) -> str:
         return "absent"
 
 
+def installed_distributions() -> tuple[str, ...]:
+    """Every installed distribution as 'name version', sorted; read once per process."""
+    return _installed()
+
+
 @functools.lru_cache(maxsize=1)
 def _installed() -> tuple[str, ...]:
     """Every installed distribution with its version: schemdraw, pint, WeasyPrint and the rest shape pages too."""

@@ -22,11 +22,12 @@ from dossier.problems import InputError
 from dossier.output.atomic import check_output, swap_in
 from dossier.collect.caches import user_caches
 from dossier.collect.archive import Archive, open_archive
-from dossier.output.fingerprint import marker_text, render_inputs, still_current
+from dossier.output.fingerprint import file_hashes, marker_text, render_inputs, shared_context, site_hashes, still_current
+from dossier.output.incremental import Rendered, RenderRecords, render
 from dossier.output.lock import building, real_output
 from dossier.pages.reuse import each_build_pages
 from dossier.pages.tree import BuildPages, TreeSummary, finish_tree
-from dossier.render.mkdocs_run import RenderError, run_mkdocs, source_epoch, write_config
+from dossier.render.mkdocs_run import RenderError, source_epoch, write_config
 
 PROGRESS_FROM = 20  # builds; smaller archives build in a few seconds and need no progress bar
 DOCS, SITE = "pages", "site"
@@ -40,6 +41,7 @@ class Built:
     seconds: float
     warnings: list[str]
     replaced: bool = True  # False: the site in place already was this rendering and was kept
+    rendered: Rendered | None = None  # what was rendered, when it was
 
 
 def default_output(archive: Path) -> Path:
@@ -67,8 +69,13 @@ def build_site(archive: Path, output: Path, *, pages_only: bool = False, calcs=N
             cache.builds.trim()
         if pages_only:
             swap_in(work / DOCS, output)
-        replaced = pages_only or _render_and_swap(opened, tree, work, output, announce, reuse)
-    return Built(output, len(tree.rows), tree.pages, time.perf_counter() - started, tree.warnings, replaced)
+        rendered = None if pages_only else _render_and_swap(opened, tree, work, output, announce, reuse, RenderRecords(_records_folder(cache)), jobs)
+    replaced = pages_only or rendered is not None
+    return Built(output, len(tree.rows), tree.pages, time.perf_counter() - started, tree.warnings, replaced, rendered)
+
+
+def _records_folder(cache) -> Path | None:
+    return cache.renders if cache is not None else None
 
 
 def _reported(builds: Iterator[BuildPages], progress: Callable | None) -> Iterator[BuildPages]:
@@ -78,18 +85,25 @@ def _reported(builds: Iterator[BuildPages], progress: Callable | None) -> Iterat
         yield build
 
 
-def _render_and_swap(opened: Archive, tree: TreeSummary, work: Path, output: Path, announce, reuse: bool) -> bool:
-    """Render the tree and put the site in place; False when the site in place already is that rendering."""
+def _render_and_swap(opened: Archive, tree: TreeSummary, work: Path, output: Path, announce, reuse: bool, records: RenderRecords, jobs: int | None) -> Rendered | None:
+    """Render the tree and put the site in place: only the changed pages when the site in place allows it.
+    None when the site in place already is that rendering and was kept."""
     config = write_config(opened.settings, tree, work, DOCS, SITE)
     epoch = source_epoch(tree.newest)
-    inputs = render_inputs(work / DOCS, config, epoch)
-    if reuse and still_current(output, inputs):
-        return False
+    sources = file_hashes(work / DOCS)
+    shared = shared_context(config.read_text(encoding="utf-8"), epoch)
+    inputs = render_inputs(sources, shared)
+    existing = site_hashes(output) if reuse else None
+    if existing is not None and still_current(output, inputs, existing):
+        return None
+    previous = records.load(output, existing) if reuse else None
     if announce is not None:
-        announce(f"rendering {tree.pages} pages with MkDocs")
-    run_mkdocs(config, epoch)
-    swap_in(work / SITE, output, marker_text(work / SITE, inputs))
-    return True
+        announce(f"rendering {tree.pages} pages with MkDocs" if previous is None else "rendering the changed pages with MkDocs")
+    rendered = render(config, work / DOCS, work / SITE, epoch, sources, shared, previous, jobs or os.cpu_count() or 1)
+    hashes = file_hashes(work / SITE)
+    swap_in(work / SITE, output, marker_text(hashes, inputs))
+    records.save(shared, sources, hashes)
+    return rendered
 
 
 def run_build(archive: Path, output: Path | None, pages_only: bool, quiet: bool, use_cache: bool, pdfs: bool = True, jobs: int | None = None) -> int:

@@ -86,7 +86,7 @@ def test_a_failed_render_leaves_the_previous_site_untouched(site, tmp_path, monk
     def broken(config, epoch):
         raise RenderError("MkDocs failed on purpose")
 
-    monkeypatch.setattr("dossier.commands.build.run_mkdocs", broken)
+    monkeypatch.setattr("dossier.output.incremental.run_mkdocs", broken)
     with pytest.raises(RenderError):
         build_site(DEMO, output, cache=drawing_cache, reuse=False)
     assert tree_digest(output) == before
