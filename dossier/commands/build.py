@@ -129,7 +129,26 @@ def _outcome(built: Built, pages_only: bool) -> str:
     size = f"{counted(built.builds, 'build')} ({counted(built.pages, 'page')})"
     if not built.replaced:
         return f"the site at {built.output} already shows these {size}; kept it as it is, nothing rendered ({built.seconds:.1f} s)"
-    return f"wrote the {what} of {size} to {built.output} in {built.seconds:.1f} s"
+    done = f"wrote the {what} of {size} to {built.output} in {built.seconds:.1f} s"
+    return done if built.rendered is None or built.rendered.how != "changed" else f"{done}; {rendered_text(built)}"
+
+
+def rendered_text(built: Built, shown: int = 4) -> str:
+    """What MkDocs rendered: 'every page', or the pages rendered again after an edit, a few of them by name."""
+    from dossier.wording import counted
+
+    rendered = built.rendered
+    if rendered is None:
+        return "nothing rendered"
+    if rendered.how != "changed":
+        runs = f" in {rendered.parts} MkDocs runs on every core" if rendered.how == "parts" else ""
+        return f"rendered every page{runs}"
+    pages = rendered.rendered
+    names = ", ".join(pages[:shown]) + (f" and {len(pages) - shown} more" if len(pages) > shown else "")
+    said = f"re-rendered {counted(len(pages), 'changed page')}" + (f" ({names})" if pages else "")
+    if rendered.removed:
+        said += f", removed {counted(len(rendered.removed), 'page')}"
+    return f"{said}; kept the other {built.pages - len(pages)}"
 
 
 def _failed(error: Exception, target: Path) -> int:
