@@ -18,6 +18,7 @@ by the site's digest; without it (first build, --no-cache, cache cleared) the wh
 
 from __future__ import annotations
 
+import hashlib
 import json
 import math
 import os
@@ -25,9 +26,10 @@ import re
 import shutil
 from dataclasses import dataclass, field
 from pathlib import Path
+from urllib.parse import quote
 
 from dossier.files import write_whole
-from dossier.output.fingerprint import digest_of, file_hashes
+from dossier.output.fingerprint import digest_of
 from dossier.render import parts
 from dossier.render.mkdocs_run import run_mkdocs
 
@@ -156,8 +158,6 @@ def _link_previous(previous: Previous, site: Path, left_out: set[str]) -> None:
 
 
 def _without_pages(index: dict, pages: set[str]) -> dict:
-    from urllib.parse import quote
-
     dropped = {quote(page) for page in pages}
     return {"config": index["config"], "docs": [entry for entry in index["docs"] if entry["location"].split("#", 1)[0] not in dropped]}
 
@@ -176,7 +176,7 @@ def _render_pages(config: Path, docs: Path, site: Path, epoch: int, pages: list[
         if relative in written:
             (site / relative).parent.mkdir(parents=True, exist_ok=True)
             os.replace(path, site / relative)
-        elif relative not in parts.MERGED and file_hashes_equal(path, previous, relative) is False:
+        elif relative not in parts.MERGED and previous.hashes.get(relative) != _sha256(path):
             raise parts.PartsDisagree(relative)  # the theme's files, the 404 page and the sitemap must not change
     index = parts.read_search_index(alone)
     if index is None:
@@ -184,11 +184,5 @@ def _render_pages(config: Path, docs: Path, site: Path, epoch: int, pages: list[
     return index
 
 
-def file_hashes_equal(path: Path, previous: Previous, relative: str) -> bool:
-    import hashlib
-
-    return previous.hashes.get(relative) == hashlib.sha256(path.read_bytes()).hexdigest()
-
-
-def new_site_hashes(site: Path) -> dict[str, str]:
-    return file_hashes(site)
+def _sha256(path: Path) -> str:
+    return hashlib.sha256(path.read_bytes()).hexdigest()

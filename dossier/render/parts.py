@@ -110,8 +110,8 @@ def exclusions(every: list[Unit], kept: list[str]) -> str:
 def render_parts(config_text: str, work: Path, site: Path, epoch: int, parts: list[list[str]], every: list[Unit], jobs: int) -> None:
     """Render each part (a list of kept patterns) by its own MkDocs run, `jobs` at a time, and merge into site.
 
-    config_text is the site's configuration with `site_dir: SITE_DIR_PLACEHOLDER`-free text: each part's
-    configuration is written beside it with its own site_dir and exclusions. Raises PartsDisagree when two
+    Each part's configuration is the site's (config_text) with its own site_dir and exclusions, written in
+    work beside it. Raises PartsDisagree when two
     parts wrote different bytes for a shared file."""
     configs = []
     for number, kept in enumerate(parts):
