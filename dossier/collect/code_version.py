@@ -15,7 +15,7 @@ from importlib import metadata
 from pathlib import Path
 
 import dossier
-from dossier.plugins import Calc
+from dossier.plugins import GROUP, Calc
 from dossier.templates import templates_dir
 
 
@@ -30,6 +30,8 @@ def forget() -> None:
     _fingerprint.cache_clear()
     _package_digest.cache_clear()
     _installed.cache_clear()
+    _calc_distributions.cache_clear()
+    _all_distributions.cache_clear()
 
 
 def calc_identity(calc: Calc) -> str:
@@ -84,8 +86,25 @@ def _file_digest(path: Path) -> str:
 
 
 def _distribution_versions(top: str) -> list[str]:
-    names = metadata.packages_distributions().get(top, [])
+    names = _calc_distributions().get(top) or _all_distributions().get(top, [])
     return [f"{name} {_version(name)}" for name in sorted(set(names))] or [f"{top}: no distribution"]
+
+
+@functools.lru_cache(maxsize=1)
+def _calc_distributions() -> dict[str, list[str]]:
+    """Top-level module -> the distributions whose calc entry points live in it (quick: entry points only)."""
+    found: dict[str, list[str]] = {}
+    for point in metadata.entry_points(group=GROUP):
+        if point.dist is not None:
+            found.setdefault(point.module.split(".")[0], []).append(point.dist.metadata["Name"])
+    return found
+
+
+@functools.lru_cache(maxsize=1)
+def _all_distributions() -> dict[str, list[str]]:
+    """Every top-level module's distributions (slow: reads every installed file list), for a calc not
+    registered through an entry point."""
+    return metadata.packages_distributions()
 
 
 def _version(name: str) -> str:
