@@ -34,7 +34,7 @@ from dossier.render import parts
 from dossier.render.mkdocs_run import run_mkdocs
 
 PARTS_FROM_PAGES = 300  # a smaller site renders in one run: starting MkDocs twice costs more than it saves
-PAGES_PER_PART = 1000  # bounds each MkDocs run's memory (about 0.24 MB a page)
+PAGES_PER_PART = 600  # bounds each MkDocs run's memory (541 MB was seen with parts of 1000 pages)
 RECORDS_KEPT = 8
 _PLAIN_PATH = re.compile(r"[A-Za-z0-9._/-]+")  # a path usable as an exclude_docs pattern as it is
 
