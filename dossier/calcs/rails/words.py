@@ -10,14 +10,22 @@ HOW_NO_LOAD = {
     "declared": "its declared no-load voltage",
     "regulation": "its loaded voltage raised by its declared regulation",
     "assumed": ("its loaded voltage raised by an assumed 25 % no-load rise (the harsher reading for a small mains "
-                "transformer): declare no_load_voltage or regulation to make it exact"),
+                "transformer): declare no_load_voltage or regulation to make it exact, or name the transformer winding "
+                "that feeds it (rails[].winding, with the transformer under magnetics) to have it worked out"),
+    "choke-peak": ("its loaded voltage raised to the peak a choke-input filter reaches with no load (x pi / 2, the harsher "
+                   "reading): declare no_load_voltage or regulation, or name the winding that feeds it (rails[].winding), to make it exact"),
+    "windings": ("the resistances of the transformer winding that feeds it (worked out, not declared: measure the "
+                 "no-load voltage and declare no_load_voltage, or the maker's regulation, to make it exact)"),
     "regulated": "its declared voltage: a regulator holds it whatever the mains does",
 }
 
 
 def worst_case(found) -> str:
     text = f"Rail {found.name} at no load and high line, from {HOW_NO_LOAD[found.how]}"
-    return text + ("." if found.how == "regulated" else ", carried to the top of the mains tolerance.")
+    text += ("." if found.how == "regulated" else ", carried to the top of the mains tolerance.")
+    if found.how == "windings":
+        text += f" Regulation: {found.basis}; no-load {fmt(found.no_load)} against {fmt(found.loaded)} loaded, a rise of {found.rise.magnitude:.1%}."
+    return text
 
 
 def hazard(name: str, worst, limit, accessible: bool) -> str:

@@ -16,8 +16,8 @@ from dataclasses import replace
 from dossier.calcs.shared import safety_class
 from dossier.calcs.shared.finding_kit import not_assessed
 from dossier.calcs.shared.margins import margin
-from dossier.calcs.rails.supply import rectifier_of
 from dossier.calcs.shared.rail_voltage import rail_voltage
+from dossier.calcs.shared.stage_graph import rectifier_of
 from dossier.calcs.stress import words
 from dossier.calcs.stress.judging import finding, rating_finding
 from dossier.calcs.stress.voltages import Rail, Voltages, stage_of
@@ -87,7 +87,7 @@ def _declared_rail(record, stage) -> Rail | None:
         return None
     worst = max(delivered, key=lambda found: found.worst)
     return Rail(worst.worst, worst.formula, f"rail '{worst.name}' at no load and high line", worst.keys[0],
-                notes=("no-load-rise",) if worst.how == "assumed" else (), sources=worst.sources)
+                notes=("rail-rise",) if worst.how in ("assumed", "choke-peak", "windings") else (), sources=worst.sources)
 
 
 def _holds(record, rail, stage) -> bool:

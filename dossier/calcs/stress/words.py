@@ -84,6 +84,8 @@ ROLE_ASSUMED = ("The record gives no role for this diode (devices.semiconductors
 
 # --- capacitors ----------------------------------------------------------------------------------
 
+RAIL_RISE = ("The rail's no-load voltage is not declared: it is taken as the rails calc works it out (its RAILS-VOLTAGE "
+             "finding says how). Declare rails[].no_load_voltage, measured, to make it exact.")
 NO_LOAD_RISE = ("The winding's declared excitation is taken as its rated, loaded voltage: raised by the assumed no-load "
                 "rise of a small mains transformer. Declare no_load_voltage on the capacitor, or the excitation across "
                 "the primary (the turns then give the no-load voltage), to make it exact.")
