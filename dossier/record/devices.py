@@ -82,6 +82,11 @@ class Capacitor(Section):
     capacitance: Capacitance | None = Field(None, description="Capacitance of one capacitor, e.g. 470 uF; gives the makers' usual leakage limit when leakage is not given.")
     no_load_voltage: Voltage | None = Field(None, description="DC voltage across the whole string with no load at nominal line, measured or from the transformer maker's regulation figure.")
     ripple_current: Current | None = Field(None, description="Rated ripple current (RMS) at the ripple frequency and the hot temperature, from the maker's data, e.g. 0.8 A.")
+    doubler: Literal["full-wave", "half-wave-input", "half-wave-output"] | None = Field(
+        None, description="In a voltage doubler, which capacitor it is, which sets the voltage it holds: full-wave (either of the "
+                          "pair, each charged to the winding's peak), half-wave-input (the series capacitor of a half-wave doubler, "
+                          "at the peak) or half-wave-output (its output capacitor, at twice the peak). When not given for a capacitor "
+                          "in a doubler stage: the doubler's whole output (the harsher reading).")
     discharge_resistor: Resistance | None = Field(None, description="For an X capacitor across the line: the resistance across it that discharges it once the plug is pulled, e.g. 1 Mohm (two 470 kohm in series).")
 
 
