@@ -90,6 +90,15 @@ class Capacitor(Section):
     discharge_resistor: Resistance | None = Field(None, description="For an X capacitor across the line: the resistance across it that discharges it once the plug is pulled, e.g. 1 Mohm (two 470 kohm in series).")
 
 
+class Valve(Section):
+    """A rectifier valve's maximum ratings from its maker's data sheet."""
+
+    ref: Designator
+    peak_inverse_voltage: Voltage | None = Field(None, description="The maker's peak inverse anode voltage, e.g. 1400 V.")
+    peak_current: Current | None = Field(None, description="The maker's peak anode current, per anode, e.g. 440 mA.")
+    max_reservoir: Capacitance | None = Field(None, description="The largest capacitor-input reservoir the maker allows, e.g. 32 uF.")
+
+
 class Heatsink(Section):
     ref: Designator
     rth_sa: ThermalResistance = Field(description="Sink-to-air thermal resistance.")
@@ -125,6 +134,7 @@ class Devices(Section):
     semiconductors: list[Semiconductor] = Field(default_factory=list, description="Power semiconductors with ratings and thermal data.")
     capacitors: list[Capacitor] = Field(default_factory=list, description="Capacitors whose voltage or safety class matters.")
     heatsinks: list[Heatsink] = Field(default_factory=list, description="Heatsinks by designator, with sink-to-air resistance.")
+    valves: list[Valve] = Field(default_factory=list, description="Rectifier valves with their maker's ratings, checked against what their stage puts on them.")
     margins: Margins = Field(default_factory=Margins, description="Margins the builder's club sets; defaults are common practice.")
     soak: list[SoakReading] = Field(default_factory=list, description="Temperatures measured after a run at full load.")
 

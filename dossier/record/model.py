@@ -77,6 +77,7 @@ class Record(Identity):
         yield [(("devices", "semiconductors", d, "ref"), device.ref) for d, device in enumerate(self.devices.semiconductors)] + [
             (("devices", "heatsinks", h, "ref"), sink.ref) for h, sink in enumerate(self.devices.heatsinks)
         ]
+        yield [(("devices", "valves", v, "ref"), valve.ref) for v, valve in enumerate(self.devices.valves)]
 
 
 def _raise_located(record, errors: list) -> None:

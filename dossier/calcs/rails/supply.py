@@ -15,6 +15,7 @@ import math
 
 from dossier.calcs.rails import words
 from dossier.calcs.rails.hazards import NAME, finding
+from dossier.calcs.rails.valves import valve_findings, valves_in
 from dossier.calcs.shared.finding_kit import not_assessed
 from dossier.calcs.shared.rail_voltage import RailVoltage
 from dossier.calcs.shared.stage_graph import rectifier_of, upstream
@@ -159,9 +160,11 @@ def _rectifier(record, index, stage, voltages) -> list[Finding]:
     topology = stage.topology_name
     piv = rail.worst * PIV_PER_OUTPUT[topology]
     valve = topology in VALVES
+    rated = valve_findings(record, index, stage, rail, piv) if valve else []
     return [finding(code="RAILS-RECTIFIER", subject=stage.name, title=title, verdict=Verdict.INFO,
                     values=(Measure("output, no load, high line", rail.worst), Measure("peak inverse voltage", piv)),
                     method=f"PIV = {PIV_PER_OUTPUT[topology]} x V_out ({topology}); V_out from rail {rail.name} at its worst case",
-                    explanation=words.rectifier(stage.name, topology, rail.worst, piv, valve),
-                    keys=(("stages", index, "topology"),) + rail.keys, sources=(ARRL_FILTERS,) + rail.sources)]
+                    explanation=words.rectifier(stage.name, topology, rail.worst, piv, valve, bool(valves_in(record, stage))),
+                    keys=(("stages", index, "topology"),) + rail.keys + ((("devices", "valves"),) if valve else ()),
+                    sources=(ARRL_FILTERS,) + rail.sources)] + rated
 

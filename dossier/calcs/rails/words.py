@@ -146,13 +146,31 @@ RECTIFIER_WORDS = {
 }
 
 
-def rectifier(stage_name: str, topology: str, output, piv, valve: bool) -> str:
+def rectifier(stage_name: str, topology: str, output, piv, valve: bool, rated: bool = False) -> str:
     text = f"Stage '{stage_name}': {RECTIFIER_WORDS[topology]}. From its rail at the worst case: output {fmt(output)}, peak inverse {fmt(piv)}."
-    if valve:
-        text += (" dossier holds no ratings for valves: compare the peak inverse voltage with the valve maker's peak "
-                 "inverse anode voltage and its largest reservoir capacitance, and allow its warm-up (the rail rises "
-                 "to no load before the other valves draw current).")
+    if valve and rated:
+        text += (" The valve's maker ratings are judged in the RAILS-VALVE findings; allow its warm-up (the rail rises to "
+                 "no load before the other valves draw current).")
+    elif valve:
+        text += (" The record gives no maker ratings for the valve, so they are not compared: add it under devices.valves "
+                 "(ref, peak_inverse_voltage, peak_current, max_reservoir) from its data sheet, and allow its warm-up (the "
+                 "rail rises to no load before the other valves draw current).")
     return text
+
+
+def valve_rating(ref: str, what: str, value, rating) -> str:
+    verdict = "within" if value <= rating else "above"
+    return f"{ref}'s {what} here is {fmt(value)}, {verdict} the maker's maximum of {fmt(rating)}."
+
+
+RESERVOIR_DECLARED = ("The reservoir is the bulk capacitors declared in the rectifier stage or ahead of the first choke of the "
+                      "filter after it (a series string at its series value).")
+RESERVOIR_RAIL = ("No bulk capacitor with its capacitance is declared in the rectifier stage or ahead of the filter's first choke, so the rail's whole capacitance is "
+                  "taken as the reservoir (the harsher reading): declare the reservoir under devices.capacitors to make it exact.")
+NO_RESERVOIR = "the reservoir's capacitance is not known: give rails[].capacitance or the reservoir under devices.capacitors"
+NO_PEAK_CURRENT = ("the valve's peak current needs the winding's source resistance, which is worked out only when the rail names "
+                   "its winding (rails[].winding, with the transformer under magnetics) and gives its current; compare it with "
+                   "the maker's figure by hand until then")
 
 
 def no_rectifier_rail(stage_name: str) -> str:

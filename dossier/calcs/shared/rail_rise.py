@@ -20,6 +20,8 @@ from dossier.record.rails import split_winding
 from dossier.units import Q_, fmt
 
 POWER_ROLES = ("mains-transformer", "transformer")
+SOURCE_LABEL = "source resistance R_s (hot)"
+ANGLE_LABEL = "half conduction angle"
 
 
 @dataclass(frozen=True)
@@ -129,7 +131,7 @@ def _dc(record, rail, index, feed, current, source_stage, figures) -> WindingRis
         sources = (TRANSFORMER_REGULATION, SCHADE_RECTIFIER)
     turns = _turns_peak(feed.secondary, half, topology)
     no_load, basis = _harsher(peak, turns, feed, model)
-    measures = _measures(resistance, current, turns) + ((Measure("half conduction angle", Q_(math.degrees(theta), "degree")),) if theta else ())
+    measures = _measures(resistance, current, turns) + ((Measure(ANGLE_LABEL, Q_(math.degrees(theta), "degree")),) if theta else ())
     measures += (Measure("choke resistance (hot)", choke),) if choke.magnitude else ()
     return WindingRise(no_load, f"V_no-load = V_pk, {model}; or the winding's no-load peak from the turns, the higher",
                        basis, _keys(rail, index, feed), sources, measures)
@@ -161,7 +163,7 @@ def _harsher(modelled, turns, feed, how: str):
 
 
 def _measures(source, current, turns) -> tuple:
-    found = (Measure("source resistance R_s (hot)", source), Measure("winding load current", current))
+    found = (Measure(SOURCE_LABEL, source), Measure("winding load current", current))
     return found + ((Measure("no-load from the turns", turns),) if turns is not None else ())
 
 
