@@ -27,7 +27,8 @@ def rail_items(record, review) -> list[Item]:
     hazards = review.product(RAILS, HAZARDS) or ()
     dc_hazards = [hazard for hazard in hazards if hazard.kind == "dc"]
     voltages = review.product(RAILS, VOLTAGES) or ()
-    items = _staged(record, dc_hazards, voltages) if dc_hazards or has_valves(record) else []
+    staged = dc_hazards or has_valves(record) or (hazards and variac_input(record) is not None)
+    items = _staged(record, dc_hazards or list(hazards), voltages) if staged else []
     items += [_reading(found) for found in voltages]
     times = {f.subject: f for f in review.findings if f.code == DISCHARGE}
     items += [_discharge_check(hazard, times.get(hazard.name)) for hazard in dc_hazards]
@@ -65,21 +66,32 @@ VARIAC_PRACTICE = common_practice(
 
 
 def variac_input(record):
-    """The record's variac or isolating-transformer mains-input stage, or None."""
-    return next((stage for stage in record.stages if stage.kind == "mains-input" and stage.topology_name in INPUT_TOPOLOGIES), None)
+    """The record's variac mains-input stage, else its isolating-transformer one, or None."""
+    inputs = [stage for stage in record.stages if stage.kind == "mains-input" and stage.topology_name in INPUT_TOPOLOGIES]
+    return next((stage for stage in inputs if stage.topology_name == "variac"), inputs[0] if inputs else None)
+
+
+def _out_first(record) -> str:
+    return OUT_FIRST if has_valves(record) or any(rail.kind == "dc" for rail in record.rails) else "Take the load off."
 
 
 def _series_lamp(record, rails: str) -> Item:
     return Item(
         key="staged-power-up", phase=Phase.POWER_UP, origin=Origin.BUILD, title="Staged first power-up through a series lamp",
         steps=(
-            f"{OUT_FIRST} Switch on through an incandescent lamp in series with the live lead (about 60 W for a unit drawing "
+            f"{_out_first(record)} Switch on through an incandescent lamp in series with the live lead (about 60 W for a unit drawing "
             "under 100 W, 100 W above): it glows, then dims as the capacitors charge. If it stays bright, switch off: there is "
-            f"a fault. Check the heater and bias rails first, then fit the rectifier and watch {rails} rise; only then fit "
-            "the remaining valves or connect the load, one stage at a time, and take the lamp out last."
+            f"a fault. {_then(record, rails)} Take the lamp out last."
         ),
         sources=(STAGED_PRACTICE, LAMP_PRACTICE),
     )
+
+
+def _then(record, rails: str) -> str:
+    if has_valves(record) or any(rail.kind == "dc" for rail in record.rails):
+        return (f"Check the heater and bias rails first, then fit the rectifier and watch {rails} rise; only then fit the "
+                "remaining valves or connect the load, one stage at a time.")
+    return f"Watch {rails} rise with nothing connected; only then connect the load."
 
 
 def _variac_steps(record, rails: str, voltages) -> list[Item]:
@@ -88,14 +100,14 @@ def _variac_steps(record, rails: str, voltages) -> list[Item]:
     first = Item(
         key="staged-power-up", phase=Phase.POWER_UP, origin=Origin.BUILD, title=f"Staged first power-up from {device}",
         steps=(
-            f"{OUT_FIRST} Turn {device} right down and switch on. Bring the mains up in steps of a quarter, reading the input "
+            f"{_out_first(record)} Turn {device} right down and switch on. Bring the mains up in steps of a quarter, reading the input "
             f"current and each rail at every step (the readings below); stop and switch off at any step that reads high or low, "
-            f"or where the current keeps rising. Check the heater and bias rails first, then fit the rectifier and watch {rails} "
-            "rise; only then fit the remaining valves or connect the load, one stage at a time."
+            f"or where the current keeps rising. {_then(record, rails)}"
         ),
         sources=(STAGED_PRACTICE, VARIAC_PRACTICE),
     )
-    main = max((found for found in voltages if found.kind == "dc"), key=lambda found: found.no_load, default=None)
+    direct = [found for found in voltages if found.kind == "dc"] or list(voltages)
+    main = max(direct, key=lambda found: found.no_load, default=None)
     if main is None or record.mains is None:
         return [first]
     return [first] + [_step(record, main, voltages, share) for share in STEPS]

@@ -48,3 +48,12 @@ def test_a_direct_input_is_switched_on_through_a_series_lamp():
     first = sheet.item("staged-power-up")
     assert "series lamp" in first.title and "stays bright" in first.steps and "pull the valves" in first.steps
     assert not [item for item in sheet.items if item.key.startswith("variac-step-")]
+
+
+def test_a_bench_unit_with_its_own_variac_and_only_an_ac_rail_gets_the_steps_too():
+    from tests.fixtures.demo import load_test_record
+
+    sheet = checklist(load_test_record("iso-variac-bench"))
+    first = sheet.item("staged-power-up")
+    assert "its variac" in first.title and "valves" not in first.steps
+    assert sheet.item("variac-step-100").expected.high == Q_(260, "V")
