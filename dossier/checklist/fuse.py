@@ -58,17 +58,22 @@ def _recommended(declared, choice, sources) -> Item:
     if choice.minimum_melting_i2t is not None:
         steps += f", of a type whose melting I^2 t is at least {fmt(choice.minimum_melting_i2t)}"
     steps += f". This is the smallest preferred rating that carries the running current at {fmt(choice.ambient)}. "
-    steps += _against_declared(declared, fit) + _reading_text()
+    steps += _against_declared(declared, fit, choice) + _reading_text()
+    title = f"fit {fit}" + (f" with melting I^2 t at least {fmt(choice.minimum_melting_i2t)}" if choice.transformer_i2t is not None else "")
     return Item(
         key="mains-fuse", phase=Phase.UNPOWERED, origin=Origin.BUILD,
-        title=f"Mains fuse {declared.ref}: fit {fit}" if declared is not None else f"Mains fuse: fit {fit}",
+        title=f"Mains fuse {declared.ref}: {title}" if declared is not None else f"Mains fuse: {title}",
         steps=steps, sources=sources + (MARKING_PRACTICE,),
     )
 
 
-def _against_declared(declared, fit: str) -> str:
+def _against_declared(declared, fit: str, choice) -> str:
     if declared is None:
         return "The record declares no fuse: record the one fitted. "
+    if choice.surge_blows_declared:
+        return (f"Do not fit the declared {declared_text(declared)}: the upper bound of the transformer's switch-on surge is more than its "
+                "melting I^2 t allows. Fit a type with the melting I^2 t above, or a soft-start first (see the switch-on surge finding), "
+                "and record the one fitted. ")
     if marking(declared.rating, declared.speed) == fit:
         return f"The record declares the same: {declared_text(declared)}. "
     return (f"The record declares {declared_text(declared)}: fit the recommended one, or note on this sheet "

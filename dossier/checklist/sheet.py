@@ -7,7 +7,7 @@ from dataclasses import dataclass
 from dossier.calcs.rails import HAZARDS
 from dossier.calcs.rails.hazards import NAME as RAILS
 from dossier.caution import POWER_UP_CAUTION, beyond_mains_caution, rail_label
-from dossier.checklist import barriers, general, output_items, rails, soak
+from dossier.checklist import barriers, general, output_items, rails, soak, station
 from dossier.checklist.fuse import fuse_item
 from dossier.checklist.items import Item, Phase
 from dossier.findings import Finding
@@ -76,6 +76,7 @@ def all_items(record, review: Review) -> list[Item]:
         *output_items.minimum_load(record),
         general.series_lamp(record),
         *general.protective_conductor_current(record),
+        *station.station_items(record),
         general.bleed_capacitors(record),
         *rails.rail_items(record, review),
         *output_items.setting_items(record),

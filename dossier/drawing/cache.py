@@ -16,7 +16,7 @@ from typing import Callable
 from dossier.files import write_whole
 
 # Raise when any drawer changes what it draws, so old drawings are not served from a cache.
-DRAWER_VERSION = "schematics-2"
+DRAWER_VERSION = "schematics-3"
 CACHE_FOLDER = Path(".cache") / "drawings"
 
 

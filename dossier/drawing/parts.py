@@ -61,6 +61,10 @@ TERMINAL = kind("terminal", "connector", "jack", "socket", "clamp", "binding pos
 START_RESISTOR = kind_and_role(("resistor",), ("start",))
 START_CAPACITOR = kind_and_role(CAPACITORS, ("start",))
 TRIGGER = either(kind("diac"), role("trigger"))
+RCD = either(kind("rcd", "rccb", "rcbo"), role("residual"))
+SOFT_START = kind_and_role(("resistor",), ("soft",))
+LAMP = kind("lamp")
+BYPASS = either(kind_and_role(("relay", "switch", "contactor"), ("bypass",)))
 
 
 class Picker:

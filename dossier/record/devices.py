@@ -9,7 +9,7 @@ from pydantic_core import PydanticCustomError
 
 from dossier.record.fields import (
     Designator,
-    Capacitance, Current, Duration, Energy, Frequency, MarginRatio, Power, Ratio, Resistance, Section, Temperature, TemperatureRise,
+    Capacitance, Current, Duration, Energy, Frequency, MarginRatio, MeltingIntegral, Power, Ratio, Resistance, Section, Temperature, TemperatureRise,
     ThermalResistance, Voltage,
 )
 
@@ -61,6 +61,9 @@ class Semiconductor(Section):
     current_rms: Current | None = Field(None, description="RMS current through a MOSFET over a whole cycle, for its conduction loss.")
     rds_on: Resistance | None = Field(None, description="A MOSFET's on-resistance at 25 degC from the maker's data (the maximum, not the typical).")
     rds_on_hot: Resistance | None = Field(None, description="A MOSFET's on-resistance at its hot junction temperature, read from the maker's curve.")
+    surge_current: Current | None = Field(None, description="Non-repetitive peak forward surge current I_FSM of a rectifier (one half-sine), e.g. 200 A.")
+    surge_duration: Duration | None = Field(None, description="The half-sine I_FSM is given for, e.g. 8.3 ms or 10 ms; 8.3 ms when not given (harsher).")
+    surge_i2t: MeltingIntegral | None = Field(None, description="A rectifier's I^2 t rating for fusing, e.g. 166 A^2 s.")
     rds_on_rise: Ratio | None = Field(None, description="A MOSFET's on-resistance at its hot junction temperature over its value at 25 degC, from the maker's curve, e.g. 1.9.")
 
     @model_validator(mode="after")
@@ -104,6 +107,9 @@ class Heatsink(Section):
     rth_sa: ThermalResistance = Field(description="Sink-to-air thermal resistance.")
     touchable: bool = Field(True, description="It can be touched from outside the enclosure.")
     earthed: bool = Field(False, description="It is bonded to protective earth.")
+    contact: Literal["brief", "held"] | None = Field(None, description="How it is touched, for a product standard's touch limit: brief "
+                                                                     "(touched now and then, let go at once) or held (held or touched for longer); "
+                                                                     "left out, held is assumed (the lower limit).")
     outside: bool = Field(False, description="It stands outside the enclosure in the room's air (e.g. fins on the back panel); "
                                              "when false it is taken inside, in the enclosure's warmer air (protection.internal_ambient).")
 

@@ -9,8 +9,8 @@ from pydantic_core import PydanticCustomError
 
 from dossier.record.fields import (
     Designator,
-    Area, Current, Name, FieldStrength, FluxDensity, Frequency, InductanceFactor, Length, Mass, Section, Share, SpecificLoss, Temperature,
-    Voltage, WireSize, out_of_range,
+    Area, Current, Name, FieldStrength, FluxDensity, Frequency, InductanceFactor, Length, Mass, Power, Resistance, Section, Share, SpecificLoss,
+    Temperature, Voltage, WireSize, out_of_range,
 )
 from dossier.standards.electrical_steel import is_grade
 from dossier.standards.laminations import size_names, tongue_of
@@ -173,6 +173,7 @@ class Winding(Section):
     layers: int | None = Field(None, ge=1, le=1000, description="Layers the winding is wound in, for its proximity loss (Dowell); "
                                                                 "a toroid's is worked out at the hole when not given.")
     current: Current | None = Field(None, description="RMS current (in each half of a centre-tapped winding); default derived from the output rating.")
+    resistance: Resistance | None = Field(None, description="Measured DC resistance of the whole winding at room temperature, e.g. 1.9 ohm; used before the one computed from the wire.")
 
     @field_validator("overall_diameter")
     @classmethod
@@ -193,6 +194,7 @@ class Magnetic(Section):
         None, description="How a transformer on a bobbin keeps its windings apart: split-bobbin (windings in separate sections of a "
                           "sectioned bobbin) or layered (one over another, with tape between). Not for a toroid.")
     frequency: Frequency | None = Field(None, description="Operating frequency when the excitation is derived from the converter stage, e.g. 50 kHz.")
+    rated_power: Power | None = Field(None, description="A mains transformer's rated output, e.g. 500 VA; gives its rated primary current.")
     cooling: Literal["natural", "forced-air"] = Field("natural", description="natural (convection) or forced-air (a fan blows on it).")
     excitation: Excitation | None = Field(None, description="Declared drive: waveform, voltage, frequency (and the winding it is across).")
     insulation_class: Literal["A", "E", "B", "F", "H", "N", "R"] | None = Field(

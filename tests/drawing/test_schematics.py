@@ -66,13 +66,7 @@ def test_a_block_diagram_then_one_drawing_per_stage(drawn, build, rev):
     assert all(isinstance(f, Figure) and f.section == "schematics" for f in drawn[build, rev].figures)
 
 
-# The drawers for the filter and branch stages of the valve amplifier's supply come with the drawings work for the
-# stage graph; strict, so the marker must go when they arrive.
-AWAITING_DRAWERS = pytest.mark.xfail(strict=True, reason="no drawer yet for its filter and heater stages")
-PLACEHOLDER_CASES = [pytest.param(b, r, marks=AWAITING_DRAWERS) if b == "valve-amp-supply" else (b, r) for b, r in DEMO_REVISIONS]
-
-
-@pytest.mark.parametrize("build, rev", PLACEHOLDER_CASES)
+@pytest.mark.parametrize("build, rev", DEMO_REVISIONS)
 def test_every_demo_stage_has_a_real_drawing_not_a_placeholder(drawn, build, rev):
     assert drawn[build, rev].notes == ()
     # a placeholder says 'not drawn: <reason>' on a line of its own; parts a drawer leaves are listed under 'Also in ...'
@@ -283,3 +277,15 @@ def test_a_diode_across_the_output_is_drawn_across_the_rails_after_the_fuse(draw
     # a series part is labelled above the positive lead; a part across the rails beside it, lower down
     assert where["F2"][0] < where["D9"][0]
     assert where["D9"][1] > where["F2"][1] + 30
+
+
+@pytest.mark.parametrize("build, drawn_refs", [("toroid-amp-supply", ("F1", "S1", "R1", "K1")), ("repair-station", ("F1", "RCD1", "RT1"))])
+def test_the_mains_input_draws_an_rcd_and_a_bypassed_soft_start_in_the_line(build, drawn_refs):
+    # test records: a relay contact across a soft-start resistor; a residual-current device breaking L and N
+    from tests.fixtures.demo import load_test_record
+
+    first = schematics.figures(load_test_record(build))[1]
+    lines = svg_lines(first.svg)
+    assert not any("not drawn" in line for line in lines)
+    for ref in drawn_refs:
+        assert ref in lines

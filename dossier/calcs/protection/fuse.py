@@ -11,7 +11,8 @@ from dossier.calcs.protection.common import (
     PLAUSIBLE_EFFICIENCY, POWER_FACTOR, RUNNING_SOURCES, finding, measure, percent,
 )
 from dossier.calcs.protection.inrush import minimum_melting_i2t, pulse_fits
-from dossier.calcs.protection.input import LEAST, has_inrush, input_current
+from dossier.calcs.protection.input import LEAST, LOAD_MODELS, has_inrush, input_current
+from dossier.calcs.protection.surge import needed_melting_i2t, surge_fits
 from dossier.findings import Verdict, common_practice, judge
 from dossier.standards.fuses import (
     HIGH_BREAKING_CAPACITY_A, ambient_factor, ambient_in_range, marking, minimum_rating, next_preferred,
@@ -47,6 +48,8 @@ class FuseChoice:
     ambient: object
     minimum_melting_i2t: object | None
     declared_fits: bool = False
+    surge_blows_declared: bool = False  # the declared fuse does not survive a mains transformer's switch-on surge bound
+    transformer_i2t: object | None = None  # the melting I^2 t a mains transformer's switch-on surge bound alone needs
 
     @property
     def marking(self) -> str:
@@ -69,9 +72,18 @@ def recommended_fuse(record) -> FuseChoice | None:
     ambient, _ = fuse_ambient(record)
     minimum = minimum_rating(running.rms, ambient)
     speed = "time-lag" if has_inrush(record) else "fast-acting"
-    needed_i2t = minimum_melting_i2t(record)
+    transformer = needed_melting_i2t(record)
+    needed_i2t = combined_i2t(minimum_melting_i2t(record), transformer)
     fits = _declared_fits(record, minimum, speed)
-    return FuseChoice(next_preferred(minimum), speed, minimum, ambient, needed_i2t, fits)
+    return FuseChoice(next_preferred(minimum), speed, minimum, ambient, needed_i2t, fits, surge_fits(record) is False, transformer)
+
+
+def combined_i2t(capacitor, transformer):
+    """The melting I^2 t two surges at the same switch-on need together: at most (sqrt a + sqrt b)^2 (Minkowski's inequality)."""
+    found = [q.to("A**2*s").magnitude for q in (capacitor, transformer) if q is not None]
+    if not found:
+        return None
+    return Q_(sum(value**0.5 for value in found) ** 2, "A**2*s")
 
 
 def _declared_fits(record, minimum, speed: str) -> bool:
@@ -79,7 +91,7 @@ def _declared_fits(record, minimum, speed: str) -> bool:
     fuse = record.protection.fuse
     if fuse is None or fuse.rating < minimum or fuse.speed != speed or fuse.voltage_rating < record.mains.nominal:
         return False
-    return pulse_fits(record) is not False
+    return pulse_fits(record) is not False and surge_fits(record) is not False
 
 
 def fuse_findings(record, choice: FuseChoice | None) -> list:
@@ -99,18 +111,22 @@ def _input_current_finding(record):
         return finding(code="PROT-INPUT-CURRENT", subject="mains input", title="Mains input current not computed", verdict=Verdict.INFO,
                        explanation=words.INPUT_NOT_COMPUTED + words.add_text(["output (voltage, current, efficiency, power_factor)"]),
                        keys=OUTPUT_KEYS, sources=(POWER_FACTOR,))
+    line = running.line_name
     values = (
-        measure("RMS input current at low line", running.rms),
-        measure("peak input current at low line", running.peak),
+        measure(f"RMS input current at {line} line", running.rms),
+        measure(f"peak input current at {line} line", running.peak),
         measure("input power", running.input_power),
-        measure("low line", running.low_line),
+        measure(f"{line} line", running.low_line),
+        measure("load model", running.load_kind),
         measure("power factor", Q_(running.power_factor)),
         measure("efficiency", Q_(running.efficiency * 100, "percent")),
         measure("crest factor", Q_((running.peak / running.rms).to("").magnitude)),
     )
-    return finding(code="PROT-INPUT-CURRENT", subject="mains input", title="Mains input current at low line", verdict=Verdict.INFO,
-                   values=values, method="I_rms = P_out / (efficiency x power factor x V_low); I_pk = I_rms sqrt(2 pi / conduction angle)",
-                   explanation=words.input_text(words.TOPOLOGY_WORDS[running.topology], running.input_power)
+    return finding(code="PROT-INPUT-CURRENT", subject="mains input", title=f"Mains input current at {line} line", verdict=Verdict.INFO,
+                   values=values, method=f"P_in = P_out / efficiency; {LOAD_MODELS[running.load_kind]}; "
+                                         + ("I_pk = sqrt 2 I_rms" if running.peak_model == "sine" else "I_pk = I_rms sqrt(2 pi / conduction angle)"),
+                   explanation=words.input_text(words.TOPOLOGY_WORDS[running.topology], running.input_power, line)
+                   + words.load_text(running.load_kind, line, running.load_assumed)
                    + words.assumed_text(running.assumed, words.MORE_CURRENT),
                    keys=OUTPUT_KEYS, sources=_input_sources(running))
 
@@ -200,7 +216,7 @@ def _oversize_running(record, fuse, least, wiring_declared: bool):
     verdict = (Verdict.MARGINAL if wiring_declared else Verdict.FAIL) if too_big else Verdict.PASS
     text = words.oversize_running_text(fuse.ref, OVERSIZE_MULTIPLE, wiring_declared) if too_big else ""
     text += words.assumed_text(least.assumed, words.LESS_CURRENT)
-    values = (measure("least plausible running current at low line", least.rms),)
+    values = (measure(f"least plausible running current at {least.line_name} line", least.rms),)
     return _oversize(fuse, verdict, measure(f"{OVERSIZE_MULTIPLE:g} x the smallest rating that carries it", bound), text,
                      (("protection", "wiring"), ("output",)), (OVERSIZE_RUNNING, OVERSIZE_WIRING) + RUNNING_SOURCES, values)
 

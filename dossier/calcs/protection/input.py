@@ -1,4 +1,13 @@
-"""Mains input current, from output power, efficiency and power factor at low line."""
+"""Mains input current, from output power, efficiency and power factor, by the kind of load.
+
+Three load models (protection.load_kind):
+- regulated: constant input power, so the most current at low line;
+- unregulated-linear: input power as the square of the mains (an unregulated rail into a class-AB amplifier),
+  so current in proportion to the mains and the most at high line;
+- resistive: current in proportion to the mains, a sine with no bulk capacitor.
+When the record is silent, regulated and unregulated-linear are both worked out and each check takes the one
+that makes its own verdict harsher.
+"""
 
 from __future__ import annotations
 
@@ -11,6 +20,15 @@ from dossier.calcs.protection import words
 CAPACITOR_INPUT = "capacitor-input"
 TRANSFORMER_CAPACITOR_INPUT = "transformer-capacitor-input"
 NO_BULK_CAPACITOR = "no-bulk-capacitor"
+
+REGULATED = "regulated"
+UNREGULATED = "unregulated-linear"
+RESISTIVE = "resistive"
+LOAD_MODELS = {
+    REGULATED: "constant power: I = P_in / (pf V)",
+    UNREGULATED: "input power as V^2: P_in(V) = P_in (V / V_nom)^2, I = P_in V / (pf V_nom^2)",
+    RESISTIVE: "resistive: I = P_in V / (pf V_nom^2), a sine",
+}
 
 MOST = "most"
 LEAST = "least"
@@ -32,12 +50,23 @@ class InputCurrent:
     efficiency: float
     topology: str
     assumed: tuple[str, ...]
+    load_kind: str = REGULATED
+    line_name: str = "low"
+    load_assumed: bool = False
+
+    @property
+    def peak_model(self) -> str:
+        return "sine" if self.topology == NO_BULK_CAPACITOR and self.load_kind == RESISTIVE else "half-sine pulses"
 
 
 def input_topology(record) -> str:
-    if record.protection.bulk_capacitance is not None or _mains_bulk_capacitor(record):
+    """A mains transformer in front of the capacitors keeps a unit a transformer input, whatever is declared."""
+    transformer = _has_mains_transformer(record)
+    if record.protection.load_kind == RESISTIVE:
+        return NO_BULK_CAPACITOR
+    if _mains_bulk_capacitor(record) or (record.protection.bulk_capacitance is not None and not transformer):
         return CAPACITOR_INPUT
-    if _has_mains_transformer(record) and _has_rectifier(record):
+    if transformer and (_has_rectifier(record) or record.protection.secondary_banks or record.protection.bulk_capacitance is not None):
         return TRANSFORMER_CAPACITOR_INPUT
     return NO_BULK_CAPACITOR
 
@@ -69,18 +98,35 @@ def output_power(output):
 
 
 def input_current(record, reading: str = MOST) -> InputCurrent | None:
-    """Running current at low line; None without mains or a declared output.
+    """Running current at the line that gives the most (or least) of it; None without mains or a declared output.
 
     What the record leaves out is taken at the plausible end that gives the MOST current (for sizing a fuse
-    or a limiter) or the LEAST (for judging whether a fuse is too big).
+    or a limiter) or the LEAST (for judging whether a fuse is too big); so is the load model when
+    protection.load_kind is not declared.
     """
     if record.mains is None or record.output is None:
         return None
     topology = input_topology(record)
     pf, efficiency, assumed = _factors(record.output, topology, reading)
-    input_power = output_power(record.output) / efficiency
-    rms = (input_power / (record.mains.low * pf)).to("A")
-    return InputCurrent(rms, rms * crest_factor(pf), input_power.to("W"), record.mains.low.to("V"), pf, efficiency, topology, assumed)
+    nominal_power = output_power(record.output) / efficiency
+    kinds = (record.protection.load_kind,) if record.protection.load_kind else (REGULATED, UNREGULATED)
+    found = [_at_worst_line(record.mains, kind, nominal_power, pf, reading) for kind in kinds]
+    pick = max if reading == MOST else min
+    kind, line_name, line, rms, power = pick(found, key=lambda item: item[3].magnitude)
+    crest = math.sqrt(2) if topology == NO_BULK_CAPACITOR and kind == RESISTIVE else crest_factor(pf)
+    return InputCurrent(rms, rms * crest, power.to("W"), line.to("V"), pf, efficiency, topology, assumed, kind, line_name,
+                        not record.protection.load_kind)
+
+
+def _at_worst_line(mains, kind: str, nominal_power, pf: float, reading: str):
+    """(kind, line name, line voltage, RMS current, input power) at whichever of low and high line the reading wants."""
+    candidates = []
+    for name, line in (("low", mains.low), ("high", mains.high)):
+        scale = 1.0 if kind == REGULATED else float((line / mains.nominal).to("").magnitude) ** 2
+        power = nominal_power * scale
+        candidates.append((kind, name, line, (power / (line * pf)).to("A"), power))
+    pick = max if reading == MOST else min
+    return pick(candidates, key=lambda item: item[3].magnitude)
 
 
 def _factors(output, topology: str, reading: str) -> tuple[float, float, tuple[str, ...]]:

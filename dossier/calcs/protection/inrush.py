@@ -14,6 +14,7 @@ from dossier.calcs.protection.common import (
     percent,
 )
 from dossier.calcs.protection.input import CAPACITOR_INPUT, input_topology
+from dossier.calcs.protection.transformer import mains_transformers, referred
 from dossier.findings import Verdict, common_practice, judge
 from dossier.standards.fuses import (
     exponential_i2t, melting_i2t_at, pulse_fraction, pulses_in_chart, single_figure_share,
@@ -57,19 +58,50 @@ class Pulse:
     assumed: tuple[str, ...]
 
 
-def _path_resistance(protection, limiter_resistance) -> tuple[object, tuple[str, ...]]:
-    parts = {"protection.source_resistance": protection.source_resistance, "protection.bulk_esr": protection.bulk_esr}
+def _path_resistance(record, limiter_resistance) -> tuple[object, tuple[str, ...]]:
+    protection = record.protection
+    parts = {"protection.source_resistance": protection.source_resistance}
+    if protection.bulk_capacitance is not None:
+        parts["protection.bulk_esr"] = protection.bulk_esr
     assumed = tuple(key for key, value in parts.items() if value is None)
     total = sum((value for value in parts.values() if value is not None), limiter_resistance)
-    return total.to("ohm"), assumed
+    return (total + windings_resistance(record)).to("ohm"), assumed
+
+
+def windings_resistance(record):
+    """Behind a mains transformer the banks charge through its primary and (referred) the lowest secondary, cold.
+
+    Nothing is added when no bank is declared behind it or the windings' resistances are not known (the harsher reading).
+    """
+    if not record.protection.secondary_banks:
+        return Q_(0, "ohm")
+    transformers = mains_transformers(record)
+    if not transformers or transformers[0].primary.resistance is None:
+        return Q_(0, "ohm")
+    first = transformers[0]
+    secondaries = [r for r in (referred(w, first.primary) for w in first.secondaries) if r is not None]
+    return (first.primary.resistance + (min(secondaries, key=lambda r: r.magnitude) if secondaries else Q_(0, "ohm"))).to("ohm")
+
+
+def referred_capacitance(record):
+    """Capacitance the mains charges at switch-on: protection.bulk_capacitance plus each secondary bank referred
+    to the primary at equal energy, C (V_bank / (sqrt 2 V_nominal))^2; None when neither is declared."""
+    protection = record.protection
+    if protection.bulk_capacitance is None and not protection.secondary_banks:
+        return None
+    primary_peak = record.mains.nominal * math.sqrt(2)
+    banks = sum((bank.capacitance * (bank.voltage / primary_peak).to("") ** 2 for bank in protection.secondary_banks), Q_(0, "uF"))
+    return (banks + (protection.bulk_capacitance if protection.bulk_capacitance is not None else Q_(0, "uF"))).to("uF")
 
 
 def charging_pulse(record, limiter_resistance) -> Pulse | None:
     """The pulse through a given limiter resistance; None without mains, capacitance or any resistance."""
-    capacitance = record.protection.bulk_capacitance
-    if record.mains is None or capacitance is None:
+    if record.mains is None:
         return None
-    resistance, assumed = _path_resistance(record.protection, limiter_resistance)
+    capacitance = referred_capacitance(record)
+    if capacitance is None:
+        return None
+    resistance, assumed = _path_resistance(record, limiter_resistance)
     if resistance.magnitude <= 0:
         return None
     crest = high_line_peak(record.mains)
@@ -139,10 +171,10 @@ def inrush_findings(record) -> list:
 
 
 def _not_computed(record):
-    if record.protection.bulk_capacitance is None and input_topology(record) != CAPACITOR_INPUT:
+    if referred_capacitance(record) is None and input_topology(record) != CAPACITOR_INPUT:
         return finding(code="PROT-INRUSH", subject="switch-on", title="No capacitor inrush to compute", verdict=Verdict.INFO,
                        explanation=words.NO_CAPACITOR_INRUSH, keys=(("protection",),), sources=(RC_CHARGE,))
-    missing = ["protection.bulk_capacitance"] if record.protection.bulk_capacitance is None else ["protection.source_resistance", "protection.bulk_esr"]
+    missing = ["protection.bulk_capacitance"] if referred_capacitance(record) is None else ["protection.source_resistance", "protection.bulk_esr"]
     return finding(code="PROT-INRUSH", subject="switch-on", title="Inrush not computed", verdict=Verdict.INFO,
                    explanation=words.INRUSH_NOT_COMPUTED + words.add_text(missing),
                    keys=(("protection",),), sources=(RC_CHARGE,))

@@ -5,7 +5,7 @@ from __future__ import annotations
 from dossier.calcs.protection import words
 from dossier.calcs.protection.common import NTC_GUIDES, RC_CHARGE, finding, measure, percent
 from dossier.calcs.shared.mains_lines import high_line_peak
-from dossier.calcs.protection.inrush import MELTING_CURVE, charging_pulse, fuse_melting
+from dossier.calcs.protection.inrush import MELTING_CURVE, charging_pulse, fuse_melting, referred_capacitance
 from dossier.findings import Source
 from dossier.calcs.protection.input import input_current
 from dossier.findings import Verdict, common_practice, judge
@@ -26,7 +26,8 @@ def limiter_findings(record) -> list:
     limiter = record.protection.inrush_limiter
     if limiter is None or record.mains is None:
         return []
-    found = [_energy_finding(record, limiter), *_dissipation_findings(record, limiter)]
+    found = [_energy_finding(record, limiter)] if limiter.kind != "relay-bypassed-resistor" else []
+    found += _dissipation_findings(record, limiter)
     if limiter.kind == "ntc":
         found.append(_cool_down_finding(record, limiter))
     return found
@@ -38,7 +39,7 @@ def switch_on_energy(capacitance, crest_voltage):
 
 
 def _energy_finding(record, limiter):
-    capacitance = record.protection.bulk_capacitance
+    capacitance = referred_capacitance(record)
     if capacitance is None:
         return _energy_info(limiter, None, ["protection.bulk_capacitance"])
     energy = switch_on_energy(capacitance, high_line_peak(record.mains))

@@ -27,8 +27,8 @@ MORE_CURRENT = "gives the most input current"
 LESS_CURRENT = "gives the least input current"
 
 
-def input_text(topology_words: str, input_power) -> str:
-    return f"Input: {topology_words}; at low line the unit draws {fmt(input_power)}."
+def input_text(topology_words: str, input_power, line: str = "low") -> str:
+    return f"Input: {topology_words}; at {line} line the unit draws {fmt(input_power)}."
 
 
 def no_fuse_text(fit_marking: str | None) -> str:
@@ -239,9 +239,9 @@ def ratio_out_of_range(key: str, value: float) -> str:
 
 # The switch-on surge
 
-NO_CAPACITOR_INRUSH = ("No capacitance charged straight from the mains is declared, so no capacitor inrush is computed. "
-                       "A mains transformer's switch-on surge depends on core remanence and the switch-on angle and is not computed here; "
-                       "a time-lag fuse is the usual answer.")
+NO_CAPACITOR_INRUSH = ("No capacitance charged at switch-on is declared (protection.bulk_capacitance, or secondary_banks behind a"
+                       " transformer), so no capacitor inrush is computed. A mains transformer's own switch-on surge is bounded in"
+                       " its own finding.")
 INRUSH_NOT_COMPUTED = "The switch-on surge cannot be computed from what is declared."
 
 
@@ -344,4 +344,207 @@ def touch_text(klass, refs, verdict, wanted) -> str:
                  "IEC 62368-1 (ES1, from memory); check which product standard applies.")
     elif verdict is Verdict.MARGINAL:
         text += " It is within the Y capacitors' usual 20 % tolerance of the limit."
+    return text
+
+
+# A mains transformer's switch-on surge
+
+SURGE_METHOD = ("bound: I_pk <= sqrt 2 V_high / (R_primary + R_source + R_series); refined: sqrt 2 V_high / sqrt((omega L_air)^2 + R^2) "
+                "x (2 B_n + B_r - B_s) / B_n, L_air = mu_0 N^2 A_e / l_e; I^2 t = I_pk^2 / (4 f) x 1 / (1 - e^(-2 / (f tau)))")
+SURGE_NOT_ASSESSED = ("the primary's resistance cannot be worked out: declare magnetics[].windings[].resistance (measured), or the core's "
+                      "mean_turn_length for a declared core")
+
+
+def surge_text(ref: str, peak, series_ref: str | None, remanence_assumed: bool) -> str:
+    text = (f"Switched on at a zero crossing of high line with the core's remanence the same way, {ref}'s core saturates and draws up to "
+            f"{fmt(peak)}. This is an upper bound, not an estimate: most switch-ons draw far less.")
+    text += f" {series_ref} limits it at switch-on." if series_ref else " Nothing but the windings and the supply limits it."
+    if remanence_assumed:
+        text += (" The core's remanence is taken as its saturation flux density (the bound);"
+                 " declare core.material.remanence from the maker's data to refine it.")
+    return text
+
+
+def surge_against_fuse(ref: str, ratio_percent: float, melts: bool, over_share: bool) -> str:
+    text = f" The bound's I^2 t is {ratio_percent} % of {ref}'s melting I^2 t at a half-cycle."
+    if melts:
+        return text + (f" A worst-case switch-on melts {ref}: fit a soft-start (a resistor bypassed by a relay, or an NTC) "
+                       "or a fuse with a larger melting I^2 t that still protects the transformer.")
+    if over_share:
+        return text + f" {ref} survives one worst-case switch-on but is worn by repeated ones."
+    return text
+
+
+def surge_no_melting(ref: str | None) -> str:
+    if ref is None:
+        return ""
+    return f" {ref}'s melting I^2 t is not declared, so the surge is not compared with it. Add protection.fuse.melting_curve or melting_i2t."
+
+
+# A soft-start resistor bypassed by a relay
+
+def softstart_missing(missing) -> str:
+    return "the record does not give " + " and ".join(missing) + "; declare them"
+
+
+def softstart_energy_text(ref: str, verdict) -> str:
+    if verdict.value == "fail":
+        return (f"Every switch-on puts more energy into {ref} than its pulse rating: it can crack or go open, and a soft-start"
+                " that goes open leaves the unit dead or, with the relay closed, unprotected at the next switch-on.")
+    if verdict.value == "marginal":
+        return f"{ref} takes within 20 % of its pulse rating at every switch-on at high line."
+    return ""
+
+
+def stuck_within_text(ref: str) -> str:
+    return f"If the relay never closes, {ref} carries the running current and stays within its power rating."
+
+
+def stuck_unprotected_text(ref: str) -> str:
+    return (f"If the relay never closes (a failed coil, a dead timer, welded-open contacts), {ref} carries the running current and"
+            " dissipates far more than it is rated for; the mains fuse does not blow, because the current is at most the running"
+            f" current. {ref} overheats and can set fire to what is near it. Fit a thermal cut-off clamped to it, in series,"
+            " and declare it as protection.inrush_limiter.thermal_cutoff.")
+
+
+def cutoff_too_small_text(ref: str) -> str:
+    return f"The thermal cut-off on {ref} is rated below the running current it carries: it can open in normal use or fail to break it."
+
+
+def stuck_cutoff_text(ref: str, temperature, rating_missing: bool) -> str:
+    text = (f"If the relay never closes, {ref} overheats, and the thermal cut-off clamped to it opens at {fmt(temperature)}."
+            " The checklist has an item to verify it is in series and in thermal contact.")
+    if rating_missing:
+        text += " Its current rating is not declared: declare protection.inrush_limiter.thermal_cutoff.current_rating."
+    return text
+
+
+def delay_text(ref: str, short: bool) -> str:
+    if short:
+        return (f"The relay closes across {ref} before the surge has settled: the rest of it flows through the relay contacts"
+                " and the fuse. Lengthen the delay.")
+    return ""
+
+
+# What the mains fuse must also protect and clear
+
+def primary_unknown(refs) -> str:
+    return (f"the rated primary current of {', '.join(refs)} is not known, so nothing shows the fuse protects it;"
+            " declare magnetics[].rated_power (VA) or the primary winding's current")
+
+
+def primary_text(ref: str, too_big: bool, bases) -> str:
+    text = ""
+    if too_big:
+        text = (f"{ref} is more than twice the transformer's rated primary current: a transformer overloaded or with shorted turns"
+                " can run hot for hours without blowing it. Fit a smaller fuse with a soft-start to carry the switch-on surge,"
+                " or declare a thermal fuse in the transformer.")
+    if "primary current" in bases:
+        text += " The rated primary current is taken from the primary winding's declared current; declare rated_power (VA) to make it exact."
+    return text.strip()
+
+
+def short_unknown(refs) -> str:
+    return f"the winding resistances of {', '.join(refs)} are not known; declare magnetics[].windings[].resistance"
+
+
+def short_text(ref: str, transformer: str, winding: str, multiple: float, thermal: str | None) -> str:
+    text = f"A short across {transformer}'s {winding} draws about {multiple:.3g} times {ref}'s rating from the mains."
+    if multiple >= 10:
+        return text + f" {ref} clears it within a fraction of a second."
+    if thermal is not None:
+        return text + f" That is too little to blow {ref} quickly; {thermal} opens on the transformer's heat instead."
+    if multiple >= 4:
+        return text + f" {ref} takes up to seconds to clear it while the winding heats; a thermal fuse in the transformer is the usual answer."
+    return (text + f" {ref} may not clear it at all: the winding cooks until its insulation fails. Fit a smaller mains fuse,"
+            " a fuse on the secondary, or a thermal fuse in the transformer (declare protection.thermal_fuse).")
+
+
+BRIDGE_UNKNOWN = "The rectifier's surge rating is not declared, so the charging pulse is not compared with it."
+
+
+def bridge_text(ref: str, verdict, over_peak: bool, derived: bool) -> str:
+    text = ""
+    if verdict.value == "fail":
+        text = f"The switch-on charging pulse exceeds {ref}'s I^2 t rating: it can fail short at switch-on, and then the fuse must clear it."
+    elif over_peak:
+        text = f"The charging pulse's peak exceeds {ref}'s I_FSM, though its I^2 t is within the rating; a soft-start or more resistance in the path lowers it."
+    if derived:
+        text += f" {ref}'s I^2 t is worked out from its I_FSM as one half-sine; declare surge_i2t (rating for fusing) from its data sheet."
+    return text.strip()
+
+
+# A test station's parts
+
+RCD_TOO_LARGE = "Its rated residual current is above 30 mA: it protects the wiring from earth faults but not a person touching a live part."
+RCD_NO_BUTTON = "The record does not declare a test button (read as none): the device cannot be checked before use."
+RCD_BEHIND_ISOLATION = ("It sits behind the isolating transformer: a person touching one pole of the isolated output and earth makes no"
+                        " return path through it, so it does not trip; it protects only the supply side if moved there.")
+RCD_CHECKLIST = " The checklist has the test-button item and a trip-time test with an RCD tester on an earthed supply."
+
+
+def lamp_text(ref: str, first_peak, steady, bypass: bool, ratio_assumed: bool) -> str:
+    text = (f"{ref} limits the unit under test to about {fmt(steady)} once its filament is hot; at the first instant the cold filament"
+            f" lets through up to {fmt(first_peak)} at the crest.")
+    if ratio_assumed:
+        text += " The cold resistance is taken as a fifteenth of the hot (the harsher reading); declare protection.series_lamp.cold_ratio."
+    if bypass:
+        text += f" {ref} has a bypass: the checklist asks that it be open (the lamp in circuit) at every first switch-on of a unit under test."
+    return text
+
+
+def lamp_overrun(ref: str) -> str:
+    return f" {ref} is rated below the voltage it is fed at high line (the variac's top of scale): it runs overvolted and fails open sooner."
+
+
+def variac_text(ref: str, top, mains, below) -> str:
+    text = (f"{ref} gives {fmt(top)} at the top of its scale from {fmt(mains)} mains: more than it takes in. That top-of-scale voltage is"
+            " the nominal for everything it feeds, and its high line is that plus the mains tolerance.")
+    if below:
+        text += f" Rated below it: {', '.join(below)}. Fit parts rated for the top of scale, or a stop on the variac."
+    return text + " The checklist asks for the top-of-scale voltage to be measured."
+
+
+SOCKET_EARTH_UNKNOWN = ("the record does not say where the socket's earth contact goes; declare "
+                        "protection.isolating_output.sockets[].earth_contact (unconnected, protective-earth or equipotential-bond)")
+
+
+def socket_earth_text(ref: str, contact: str) -> str:
+    if contact == "protective-earth":
+        return (f"{ref}'s earth contact is wired to the case or protective earth behind the isolating transformer. A unit under test"
+                " with a fault from one pole to its case then ties the isolated output to earth: the isolation is gone, and a person"
+                " touching the other pole and anything earthed takes the full voltage with nothing to trip. Leave the earth contact"
+                " unconnected, or bond the sockets' earth contacts only to each other (equipotential bonding, not earthed).")
+    if contact == "equipotential-bond":
+        return (f"{ref}'s earth contact is bonded only to the other isolated sockets' (not to earth): two faulty units under test"
+                " cannot put the two poles on touchable metal at once. The checklist verifies it is not earthed.")
+    return f"{ref}'s earth contact is unconnected: the isolated output stays floating. The checklist verifies it."
+
+
+NO_ISOLATED_FUSE = ("The isolated output has no fuse of its own: a short in a unit under test is cleared only by the station's mains fuse,"
+                    " sized for the whole station, while the isolating transformer, the variac and the sockets' wiring overheat."
+                    " Fit a fuse on the output, rated for the smallest of them.")
+
+
+def isolated_fuse_text(ref: str, too_big, low_voltage: bool, voltage) -> str:
+    parts = []
+    if too_big:
+        parts.append(f"{ref} is rated above the {', '.join(too_big)}: it does not protect them")
+    if low_voltage:
+        parts.append(f"{ref} is rated below the {fmt(voltage)} it may break")
+    return ("; ".join(parts) + ".") if parts else ""
+
+
+LOAD_WORDS = {
+    "regulated": "a regulated load draws constant power, so the most current at low line",
+    "unregulated-linear": "an unregulated linear load (e.g. a class-AB amplifier on unregulated rails) draws power as the square of the mains, so current in proportion to it",
+    "resistive": "a resistive load draws current in proportion to the mains, a sine (not the half-sine pulses of a capacitor input)",
+}
+
+
+def load_text(kind: str, line: str, assumed: bool) -> str:
+    text = f" Load model: {LOAD_WORDS[kind]}; worked out at {line} line."
+    if assumed:
+        text += (" The record does not give protection.load_kind: constant power and power as V^2 were both worked out and the one"
+                 " that makes each check harsher was taken. Declare protection.load_kind to make it exact.")
     return text

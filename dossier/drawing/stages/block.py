@@ -8,7 +8,7 @@ from __future__ import annotations
 from dossier.drawing import sheet
 from dossier.drawing.drawers import StageDrawer, finish_stage
 from dossier.drawing.parts import Picker
-from dossier.drawing.stages.ladder import has_symbol, symbol_for
+from dossier.drawing.stages.ladder import has_symbol, placed, symbol_for
 from dossier.drawing.symbols import Box
 from dossier.drawing.views import PartView, StageView
 
@@ -46,7 +46,7 @@ def _parts(drawing, found: list[PartView], top: float) -> None:
     x, upper = 0.3, top - 0.8
     for part in found:
         if has_symbol(part):
-            sheet.add(drawing, symbol_for(part).at((x, upper)).to((x, upper - sheet.UNIT)))
+            sheet.add(drawing, placed(symbol_for(part), (x, upper), (x, upper - sheet.UNIT)))
             label_x = x + 0.45
         else:
             width = sheet.text_width(part.kind, sheet.SMALL_FONT) + 0.4

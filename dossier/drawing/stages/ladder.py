@@ -53,6 +53,14 @@ def symbol_for(part: PartView):
     return elm.ResistorIEC()
 
 
+def placed(symbol, start, end):
+    """The symbol from start to end; upright ones by direction and length, since a lamp's own `to` turns it round."""
+    (x0, y0), (x1, y1) = start, end
+    if x0 == x1:
+        return symbol.at(start).down(y0 - y1) if y0 > y1 else symbol.at(start).up(y1 - y0)
+    return symbol.at(start).to(end)
+
+
 def has_symbol(part: PartView) -> bool:
     """Whether symbol_for knows the part, rather than falling back to a plain resistor."""
     known = (P.FUSE, P.SWITCH, P.DIODE, P.CAPACITOR, P.CHOKE,
@@ -106,7 +114,7 @@ class Ladder:
     def _across(self, symbol, words: str, upward: bool = False) -> None:
         self.run(SHUNT_GAP)
         ends = ((self.x, self.ret), (self.x, self.live)) if upward else ((self.x, self.live), (self.x, self.ret))
-        sheet.add(self.drawing, symbol.at(ends[0]).to(ends[1]))
+        sheet.add(self.drawing, placed(symbol, *ends))
         sheet.text(self.drawing, (self.x + 0.45, (self.live + self.ret) / 2), words)
         for y in (self.live, self.ret):
             sheet.dot(self.drawing, (self.x, y))

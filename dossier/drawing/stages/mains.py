@@ -1,5 +1,6 @@
-"""Mains input: inlet with earth, the series parts on the line conductor (fuse, switch, inrush
-limiter, in the record's order), parts across the line (X capacitor, varistor, bleeder), then an
+"""Mains input: inlet with earth, the series parts on the line conductor (fuse, switch, residual-current
+device, inrush limiter, soft-start resistor or series lamp with the contact that bypasses it, in the
+record's order), parts across the line (X capacitor, varistor, bleeder), then an
 isolating transformer or a variac where the stage has one (topologies isolating-transformer and
 variac; direct has neither), the bridge rectifier and the bulk capacitors."""
 
@@ -27,7 +28,7 @@ def draw(view: StageView):
     picker = Picker(view.parts)
     _inlet(drawing, picker.take(P.INLET))
     _earth(drawing, view)
-    x = _series(drawing, picker.take_all(P.either(P.FUSE, P.SWITCH, P.INRUSH)))
+    x = _series(drawing, picker.take_all(P.either(P.FUSE, P.RCD, P.SWITCH, P.INRUSH, P.SOFT_START, P.LAMP)), picker)
     x = _shunts(drawing, x, picker.take_all(P.SHUNT))
     x, names = _transformation(drawing, x, view, picker)
     if view.topology in MAINS_RECTIFIERS and picker.peek(P.DIODE):
@@ -65,18 +66,36 @@ def _earth(drawing, view: StageView) -> None:
     sheet.text(drawing, earth.note, "protective earth\nto chassis", size=sheet.SMALL_FONT)
 
 
-def _series(drawing, found: list[PartView]) -> float:
-    """Fuse, switch and inrush limiter in the line conductor; a 2-pole switch breaks N as well."""
+def _series(drawing, found: list[PartView], picker: Picker) -> float:
+    """Parts in the line conductor; a 2-pole switch or an RCD breaks N as well, and a soft-start resistor or a
+    series lamp has the contact that bypasses it drawn across it."""
     x = START_X
     for part in found:
         length = max(sheet.UNIT, sheet.text_width(part.label) + 0.5)
-        sheet.add(drawing, _symbol(part).at((x, LINE_Y)).right(length).label(part.label, loc="top"))
-        if P.SWITCH(part) and _two_pole(part):
-            _neutral_pole(drawing, x, length)
+        sheet.add(drawing, _symbol(part).at((x, LINE_Y)).right(length).label(part.label, loc="bottom" if _bypassed(part) else "top"))
+        if (P.SWITCH(part) and _two_pole(part)) or P.RCD(part):
+            _neutral_pole(drawing, x, length, P.RCD(part))
         else:
             sheet.wire(drawing, (x, NEUTRAL_Y), (x + length, NEUTRAL_Y))
+        bypass = picker.take(P.BYPASS) if _bypassed(part) else None
+        if bypass is not None:
+            _bypass(drawing, x, length, bypass)
         x += length
     return x
+
+
+def _bypassed(part: PartView) -> bool:
+    return P.SOFT_START(part) or P.LAMP(part)
+
+
+def _bypass(drawing, x: float, length: float, contact: PartView) -> None:
+    """The relay contact or switch that shorts a soft-start resistor or a series lamp, drawn above it."""
+    top = LINE_Y + 1.1
+    sheet.wire(drawing, (x, LINE_Y), (x, top))
+    sheet.add(drawing, elm.Switch().at((x, top)).right(length).label(contact.label, loc="top"))
+    sheet.wire(drawing, (x + length, top), (x + length, LINE_Y))
+    sheet.dot(drawing, (x, LINE_Y))
+    sheet.dot(drawing, (x + length, LINE_Y))
 
 
 def _symbol(part: PartView):
@@ -84,6 +103,12 @@ def _symbol(part: PartView):
         return elm.FuseIEC()
     if P.SWITCH(part):
         return elm.Switch()
+    if P.RCD(part):
+        return elm.RBox()
+    if P.SOFT_START(part):
+        return elm.ResistorIEC()
+    if P.LAMP(part):
+        return elm.Lamp()
     return elm.Thermistor()
 
 
@@ -92,8 +117,9 @@ def _two_pole(part: PartView) -> bool:
     return any(w in words for w in ("2-pole", "two-pole", "double-pole", "2 pole", "dpst", "dp "))
 
 
-def _neutral_pole(drawing, x: float, length: float) -> None:
-    sheet.add(drawing, elm.Switch().at((x, NEUTRAL_Y)).right(length))
+def _neutral_pole(drawing, x: float, length: float, sensing: bool = False) -> None:
+    """The second pole on N, linked to the first: a switch contact, or an RCD's sensing pole."""
+    sheet.add(drawing, (elm.RBox() if sensing else elm.Switch()).at((x, NEUTRAL_Y)).right(length))
     middle = x + length / 2
     sheet.wire(drawing, (middle, NEUTRAL_Y + 0.2), (middle, LINE_Y + 0.2), dashed=True)
 

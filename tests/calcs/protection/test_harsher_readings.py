@@ -49,11 +49,12 @@ def test_a_clearly_small_fuse_is_not_lowered_to_info():
 # 21.5: an oversized mains fuse does not protect what is behind it.
 
 def test_a_20_a_fuse_on_a_unit_drawing_a_quarter_ampere_fails():
-    # 24 W / 0.8 / (207 x 0.6) = 0.2415 A; the smallest rating that carries it 0.322 A (75 % rule, Fuseology);
-    # 3 times that is 0.966 A (common practice, from memory). 20 A is far above, and no wiring rating is declared.
+    # No load kind declared: the least current is the unregulated reading at low line, input power as V^2:
+    # 24 W / 0.8 x (207 / 230)^2 / (207 x 0.6) = 0.1957 A; the smallest rating that carries it 0.261 A (75 % rule,
+    # Fuseology); 3 times that is 0.783 A (common practice, from memory). 20 A is far above, and no wiring rating is declared.
     oversize = found(record_with(protection__fuse__rating="20 A"))["PROT-FUSE-OVERSIZE"]
     assert oversize.verdict is Verdict.FAIL
-    assert oversize.limit.quantity.to("A").magnitude == pytest.approx(3 * 24 / 0.8 / (207 * 0.6) / 0.75, rel=1e-6)
+    assert oversize.limit.quantity.to("A").magnitude == pytest.approx(3 * 24 / 0.8 * (207 / 230) ** 2 / (207 * 0.6) / 0.75, rel=1e-6)
     assert "protection.wiring" in oversize.explanation
 
 
@@ -71,10 +72,11 @@ def test_oversize_against_the_running_current_is_marginal_when_the_wiring_is_dec
 
 
 def test_oversize_takes_the_least_plausible_current_when_silent():
-    # power factor missing: the highest plausible for a capacitor input, 0.6 (Wellforces), gives the least current.
-    oversize = found(record_with(output__power_factor=None, protection__fuse__rating="1 A"))["PROT-FUSE-OVERSIZE"]
-    assert values(oversize)["least plausible running current at low line"].to("A").magnitude == pytest.approx(24 / 0.8 / (207 * 0.6))
-    assert oversize.verdict is Verdict.FAIL  # 1 A > 0.966 A
+    # power factor missing: the highest plausible for a capacitor input, 0.6 (Wellforces), gives the least current
+    # (a regulated load declared: constant power draws the least at high line, 253 V).
+    oversize = found(record_with(output__power_factor=None, protection__fuse__rating="1 A", protection__load_kind="regulated"))["PROT-FUSE-OVERSIZE"]
+    assert values(oversize)["least plausible running current at high line"].to("A").magnitude == pytest.approx(24 / 0.8 / (253 * 0.6))
+    assert oversize.verdict is Verdict.FAIL  # 1 A > 3 x 0.1976 / 0.75 = 0.791 A
 
 
 # 23.2: a described bond is a claim to verify; 'none' on a class I metal enclosure fails.
