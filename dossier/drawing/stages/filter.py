@@ -8,7 +8,7 @@ from dossier.drawing import parts as P
 from dossier.drawing import sheet
 from dossier.drawing.drawers import StageDrawer, finish_stage, lacking
 from dossier.drawing.parts import Picker
-from dossier.drawing.stages.ladder import Ladder
+from dossier.drawing.stages.ladder import opened_ladder
 from dossier.drawing.views import StageView
 
 SERIES_ELEMENT = P.either(P.CHOKE, P.kind_and_role(("resistor",), ("series", "dropping", "filter resistor")))
@@ -29,11 +29,7 @@ TESTS = {"a capacitor": FILTER_CAPACITOR, "a second capacitor": FILTER_CAPACITOR
 
 
 def draw(view: StageView):
-    drawing = sheet.new_drawing()
-    picker = Picker(view.parts)
-    ladder = Ladder(drawing, view)
-    ladder.inputs()
-    ladder.run(0.4)
+    drawing, picker, ladder = opened_ladder(view)
     bleeders = picker.take_all(BLEEDER)
     capacitors, series = picker.take_all(FILTER_CAPACITOR), picker.take_all(SERIES_ELEMENT)
     first = CAPACITORS_FIRST.get(view.topology.lower())

@@ -10,6 +10,7 @@ import schemdraw.elements as elm
 
 from dossier.drawing import parts as P
 from dossier.drawing import sheet
+from dossier.drawing.parts import Picker
 from dossier.drawing.symbols import GasTube, Winding
 from dossier.drawing.views import PartView, RailView, StageView
 
@@ -162,3 +163,12 @@ class Ladder:
         for rail in self.view.rails:
             if rail.bleeder:
                 self.bleeder(rail)
+
+
+def opened_ladder(view: StageView, lead: float = 0.4):
+    """A new drawing with its part picker and a ladder whose input terminals are drawn and led in."""
+    drawing = sheet.new_drawing()
+    ladder = Ladder(drawing, view)
+    ladder.inputs()
+    ladder.run(lead)
+    return drawing, Picker(view.parts), ladder

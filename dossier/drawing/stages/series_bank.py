@@ -5,11 +5,10 @@ drawing, since without one the voltage splits by leakage current, not equally.""
 from __future__ import annotations
 
 from dossier.drawing import parts as P
-from dossier.drawing import sheet
 from dossier.drawing.drawers import StageDrawer, finish_stage
 from dossier.drawing.parts import Picker
 from dossier.drawing.stages.filter import BLEEDER, SERIES_ELEMENT
-from dossier.drawing.stages.ladder import Ladder
+from dossier.drawing.stages.ladder import opened_ladder
 from dossier.drawing.views import PartView, StageView
 
 TOPOLOGY = "series-bank"
@@ -17,11 +16,7 @@ BALANCING = P.kind_and_role(("resistor",), ("balanc", "shar", "equalis", "equali
 
 
 def draw(view: StageView):
-    drawing = sheet.new_drawing()
-    picker = Picker(view.parts)
-    ladder = Ladder(drawing, view)
-    ladder.inputs()
-    ladder.run(0.4)
+    drawing, picker, ladder = opened_ladder(view)
     for part in picker.take_all(SERIES_ELEMENT):
         ladder.series(part)
     capacitors = picker.take_all(P.CAPACITOR)

@@ -4,11 +4,10 @@ the rails (zener diodes, a shunt reference, a transistor or a gas regulator valv
 from __future__ import annotations
 
 from dossier.drawing import parts as P
-from dossier.drawing import sheet
 from dossier.drawing.drawers import StageDrawer, finish_stage, lacking
 from dossier.drawing.parts import Picker
 from dossier.drawing.stages.filter import BLEEDER
-from dossier.drawing.stages.ladder import Ladder
+from dossier.drawing.stages.ladder import opened_ladder
 from dossier.drawing.views import StageView
 
 TOPOLOGY = "shunt"
@@ -18,11 +17,7 @@ SHUNT_ELEMENT = P.either(P.kind("zener", "regulator", "reference", "valve", "tub
 
 
 def draw(view: StageView):
-    drawing = sheet.new_drawing()
-    picker = Picker(view.parts)
-    ladder = Ladder(drawing, view)
-    ladder.inputs()
-    ladder.run(0.4)
+    drawing, picker, ladder = opened_ladder(view)
     bleeders = picker.take_all(BLEEDER)
     for part in picker.take_all(DROPPING):
         ladder.series(part)

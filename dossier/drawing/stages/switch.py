@@ -9,7 +9,7 @@ from dossier.drawing import sheet
 from dossier.drawing.drawers import StageDrawer, finish_stage, lacking
 from dossier.drawing.parts import Picker
 from dossier.drawing.stages.filter import BLEEDER
-from dossier.drawing.stages.ladder import Ladder
+from dossier.drawing.stages.ladder import opened_ladder
 from dossier.drawing.views import StageView
 
 TOPOLOGIES = ("standby", "high-voltage")
@@ -24,11 +24,7 @@ NOTES = {
 
 
 def draw(view: StageView):
-    drawing = sheet.new_drawing()
-    picker = Picker(view.parts)
-    ladder = Ladder(drawing, view)
-    ladder.inputs()
-    ladder.run(0.4)
+    drawing, picker, ladder = opened_ladder(view)
     for part in picker.take_all(IN_LINE):
         ladder.series(part)
     bleeders = picker.take_all(ACROSS)

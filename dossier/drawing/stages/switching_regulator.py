@@ -8,7 +8,7 @@ from dossier.drawing import sheet
 from dossier.drawing.drawers import StageDrawer, finish_stage, lacking
 from dossier.drawing.parts import Picker
 from dossier.drawing.stages.filter import BLEEDER
-from dossier.drawing.stages.ladder import Ladder
+from dossier.drawing.stages.ladder import Ladder, opened_ladder
 from dossier.drawing.symbols import Box
 from dossier.drawing.views import PartView, StageView
 
@@ -20,11 +20,7 @@ INPUT_CAPACITOR = P.kind_and_role(P.CAPACITORS, ("input",))
 
 
 def draw(view: StageView):
-    drawing = sheet.new_drawing()
-    picker = Picker(view.parts)
-    ladder = Ladder(drawing, view)
-    ladder.inputs()
-    ladder.run(0.4)
+    drawing, picker, ladder = opened_ladder(view)
     for part in picker.take_all(INPUT_CAPACITOR):
         ladder.shunt(part)
     _switch_block(ladder, [picker.take(CONTROLLER), picker.take(SWITCH_DEVICE)])
