@@ -259,3 +259,27 @@ HSE_TEST_BENCHES = Source(
 LAMPTECH_STARTING = Source(
     title="Incandescent lamps: starting characteristics", publisher="Lamptech (lamptech.co.uk), reference pages", kind="reference",
 )
+SCHADE_RECTIFIER = Source(
+    title='O. H. Schade, "Analysis of rectifier operation"',
+    publisher="Proceedings of the IRE, vol. 31, no. 7",
+    edition="1943",
+    clause=("capacitor-input rectifier with source resistance R_s feeding a large reservoir: half conduction angle from "
+            "tan theta - theta = pi R_s / (n R_L), output V_pk cos theta (the limit of the published curves for large "
+            "omega C R_L; relation and figures from memory, checked here against a numerical simulation)"),
+    kind="reference",
+)
+TRANSFORMER_REGULATION = Source(
+    title=ARRL_HANDBOOK.title,
+    publisher=ARRL_HANDBOOK.publisher,
+    clause=("power supplies chapter: transformer regulation from the winding resistances, the primary's referred to the "
+            "secondary by the square of the turns ratio, R = R_p (N_s / N_p)^2 + R_s; a capacitor-input rectifier "
+            "regulates worse than a resistive load (from memory)"),
+    kind="handbook",
+)
+VALVE_RECTIFIER_RATINGS = Source(
+    title="RCA Receiving Tube Manual",
+    publisher="Radio Corporation of America",
+    clause=("rectifier ratings: peak inverse plate voltage, peak plate current and the largest capacitor-input filter "
+            "capacitance a rectifier valve takes, each a maximum not to be exceeded (section and wording from memory)"),
+    kind="handbook",
+)

@@ -372,6 +372,7 @@ PROBLEM_TEXT.update({
     "unknown_stage": "no stage has this id",
     "stage_loop": "stages feed each other round a circle",
     "duplicate_rail": "rail name given twice",
+    "unknown_winding": "no magnetic has this winding",
     "revision_spelt_twice": "one revision in two files",
     "attachment_type": "attachment of a type that is not published",
     "attachment_name": "attachment name would break its link",
@@ -390,7 +391,7 @@ HELP_SECTIONS = {
         "temperature_not_rise", "temperature_difference")),
     "keys": ("docs/writing-records.md#keys", ("missing", "extra_forbidden", "duplicate_key", "literal_error", "string_pattern_mismatch")),
     "stages and rails": ("docs/writing-records.md#stages-and-rails", (
-        "unknown_topology", "duplicate_stage_id", "unknown_stage", "stage_loop", "duplicate_rail")),
+        "unknown_topology", "duplicate_stage_id", "unknown_stage", "stage_loop", "duplicate_rail", "unknown_winding")),
     "YAML": ("docs/writing-records.md#yaml-itself", (
         "yaml_syntax", "yaml_value", "yaml_tag", "merge_key", "bad_key", "not_a_mapping", "not_utf8", "control_character",
         "too_many_nodes", "too_deep", "file_too_large")),

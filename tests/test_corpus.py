@@ -10,13 +10,14 @@ import shutil
 
 import pytest
 from tests.drawing.test_schematics import svg_lines
-from tests.fixtures.demo import RECORDS, load_test_record
+from tests.fixtures.demo import DEMO, RECORDS, load_demo, load_test_record
 
 from dossier.drawing import schematics
 from dossier.findings import Verdict
 from dossier.review import CALC_ERROR, load_plugins, run_review
 
 CORPUS = sorted(path.parent.name for path in RECORDS.glob("*/rev-*.yaml"))
+DEMO_REVISIONS = sorted((path.parent.name, path.stem.removeprefix("rev-")) for path in DEMO.glob("*/rev-*.yaml"))
 
 
 @pytest.fixture(scope="module")
@@ -34,6 +35,15 @@ def test_the_corpus_holds_at_least_six_kinds_of_unit():
 @pytest.mark.parametrize("build", CORPUS)
 def test_each_record_reviews_without_a_crash_or_an_unexplained_not_assessed(build, calcs):
     review = run_review(load_test_record(build), calcs)
+    assert not [f for f in review.findings if f.code == CALC_ERROR]
+    for finding in review.findings:
+        if finding.verdict == Verdict.NOT_ASSESSED:
+            assert finding.explanation.strip() and finding.keys, f"{finding.code} {finding.subject} does not say what is missing"
+
+
+@pytest.mark.parametrize("build, revision", DEMO_REVISIONS)
+def test_each_demo_revision_reviews_without_a_crash_or_an_unexplained_not_assessed(build, revision, calcs):
+    review = run_review(load_demo(build, revision), calcs)
     assert not [f for f in review.findings if f.code == CALC_ERROR]
     for finding in review.findings:
         if finding.verdict == Verdict.NOT_ASSESSED:

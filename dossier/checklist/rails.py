@@ -26,25 +26,18 @@ def has_valves(record) -> bool:
 def rail_items(record, review) -> list[Item]:
     hazards = review.product(RAILS, HAZARDS) or ()
     dc_hazards = [hazard for hazard in hazards if hazard.kind == "dc"]
-    items = _staged(record, dc_hazards) if dc_hazards or has_valves(record) else []
-    items += [_reading(found) for found in review.product(RAILS, VOLTAGES) or ()]
+    voltages = review.product(RAILS, VOLTAGES) or ()
+    staged = dc_hazards or has_valves(record) or (hazards and variac_input(record) is not None)
+    items = _staged(record, dc_hazards or list(hazards), voltages) if staged else []
+    items += [_reading(found) for found in voltages]
     times = {f.subject: f for f in review.findings if f.code == DISCHARGE}
     items += [_discharge_check(hazard, times.get(hazard.name)) for hazard in dc_hazards]
     return items
 
 
-def _staged(record, hazards) -> list[Item]:
+def _staged(record, hazards, voltages=()) -> list[Item]:
     rails = ", ".join(f"{hazard.name} ({fmt(hazard.worst)})" for hazard in hazards) or "its high-voltage rails"
-    items = [Item(
-        key="staged-power-up", phase=Phase.POWER_UP, origin=Origin.BUILD, title="Staged first power-up",
-        steps=(
-            "Take the load off, and pull the valves (the rectifier valve last, if there is one) or leave the high-voltage "
-            "stages unplugged. Switch on through a series lamp or a variac turned right down; bring the mains up slowly "
-            f"while watching the input current. Check the heater and bias rails first, then fit the rectifier and watch "
-            f"{rails} rise; only then fit the remaining valves or connect the load, one stage at a time."
-        ),
-        sources=(STAGED_PRACTICE,),
-    )]
+    items = _variac_steps(record, rails, voltages) if variac_input(record) is not None else [_series_lamp(record, rails)]
     negative = [rail for rail in record.rails if rail.polarity == "negative" and rail.kind == "dc"]
     if negative and has_valves(record):
         names = ", ".join(rail.name for rail in negative)
@@ -57,6 +50,88 @@ def _staged(record, hazards) -> list[Item]:
             sources=(STAGED_PRACTICE,),
         ))
     return items
+
+
+OUT_FIRST = ("Take the load off, and pull the valves (the rectifier valve last, if there is one) or leave the high-voltage "
+             "stages unplugged.")
+STEPS = (0.25, 0.5, 0.75, 1.0)
+INPUT_TOPOLOGIES = ("variac", "isolating-transformer")
+LAMP_PRACTICE = common_practice(
+    "a first switch-on through an incandescent lamp in series with the live lead (about 60 W for a unit drawing under "
+    "100 W, 100 W above): it glows and dims as the capacitors charge; a lamp that stays bright is a fault (from memory)")
+VARIAC_PRACTICE = common_practice(
+    "a first switch-on from a variac brought up in steps (a quarter, a half, three quarters, then the full mains), "
+    "the rails read at each step: with no load each follows the mains in proportion; a step that reads high, low or "
+    "draws current that keeps rising is a fault")
+
+
+def variac_input(record):
+    """The record's variac mains-input stage, else its isolating-transformer one, or None."""
+    inputs = [stage for stage in record.stages if stage.kind == "mains-input" and stage.topology_name in INPUT_TOPOLOGIES]
+    return next((stage for stage in inputs if stage.topology_name == "variac"), inputs[0] if inputs else None)
+
+
+def _out_first(record) -> str:
+    return OUT_FIRST if has_valves(record) or any(rail.kind == "dc" for rail in record.rails) else "Take the load off."
+
+
+def _series_lamp(record, rails: str) -> Item:
+    return Item(
+        key="staged-power-up", phase=Phase.POWER_UP, origin=Origin.BUILD, title="Staged first power-up through a series lamp",
+        steps=(
+            f"{_out_first(record)} Switch on through an incandescent lamp in series with the live lead (about 60 W for a unit drawing "
+            "under 100 W, 100 W above): it glows, then dims as the capacitors charge. If it stays bright, switch off: there is "
+            f"a fault. {_then(record, rails)} Take the lamp out last."
+        ),
+        sources=(STAGED_PRACTICE, LAMP_PRACTICE),
+    )
+
+
+def _then(record, rails: str) -> str:
+    if has_valves(record) or any(rail.kind == "dc" for rail in record.rails):
+        return (f"Check the heater and bias rails first, then fit the rectifier and watch {rails} rise; only then fit the "
+                "remaining valves or connect the load, one stage at a time.")
+    return f"Watch {rails} rise with nothing connected; only then connect the load."
+
+
+def _variac_steps(record, rails: str, voltages) -> list[Item]:
+    stage = variac_input(record)
+    device = "its variac" if stage.topology_name == "variac" else "a variac ahead of its isolating transformer"
+    first = Item(
+        key="staged-power-up", phase=Phase.POWER_UP, origin=Origin.BUILD, title=f"Staged first power-up from {device}",
+        steps=(
+            f"{_out_first(record)} Turn {device} right down and switch on. Bring the mains up in steps of a quarter, reading the input "
+            f"current and each rail at every step (the readings below); stop and switch off at any step that reads high or low, "
+            f"or where the current keeps rising. {_then(record, rails)}"
+        ),
+        sources=(STAGED_PRACTICE, VARIAC_PRACTICE),
+    )
+    direct = [found for found in voltages if found.kind == "dc"] or list(voltages)
+    main = max(direct, key=lambda found: found.no_load, default=None)
+    if main is None or record.mains is None:
+        return [first]
+    return [first] + [_step(record, main, voltages, share) for share in STEPS]
+
+
+def _step(record, main, voltages, share: float) -> Item:
+    mains = record.mains.nominal * share
+    others = "; ".join(f"{found.name} about {fmt(found.no_load * _follows(found, share))}" for found in voltages if found is not main)
+    return Item(
+        key=f"variac-step-{round(share * 100)}", phase=Phase.POWER_UP, origin=Origin.BUILD,
+        title=f"Variac at {round(share * 100)} % ({fmt(mains)}): rail {main.name}",
+        steps=(
+            f"With the mains at {fmt(mains)} and no load, read rail {main.name}: with no load it follows the mains, so about "
+            f"{fmt(main.no_load * share)}." + (f" The other rails: {others}." if others else "")
+        ),
+        unit="V", expected=Expected(low=main.loaded * share, high=main.no_load * share),
+        sources=(VARIAC_PRACTICE,),
+        note="Range: the loaded voltage up to the no-load voltage, each scaled by the share of the mains.",
+    )
+
+
+def _follows(found, share: float) -> float:
+    """A regulated rail holds its voltage once its regulator has headroom; shown at its own value."""
+    return 1.0 if found.how == "regulated" else share
 
 
 def _reading(found) -> Item:

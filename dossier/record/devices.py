@@ -85,7 +85,21 @@ class Capacitor(Section):
     capacitance: Capacitance | None = Field(None, description="Capacitance of one capacitor, e.g. 470 uF; gives the makers' usual leakage limit when leakage is not given.")
     no_load_voltage: Voltage | None = Field(None, description="DC voltage across the whole string with no load at nominal line, measured or from the transformer maker's regulation figure.")
     ripple_current: Current | None = Field(None, description="Rated ripple current (RMS) at the ripple frequency and the hot temperature, from the maker's data, e.g. 0.8 A.")
+    doubler: Literal["full-wave", "half-wave-input", "half-wave-output"] | None = Field(
+        None, description="In a voltage doubler, which capacitor it is, which sets the voltage it holds: full-wave (either of the "
+                          "pair, each charged to the winding's peak), half-wave-input (the series capacitor of a half-wave doubler, "
+                          "at the peak) or half-wave-output (its output capacitor, at twice the peak). When not given for a capacitor "
+                          "in a doubler stage: the doubler's whole output (the harsher reading).")
     discharge_resistor: Resistance | None = Field(None, description="For an X capacitor across the line: the resistance across it that discharges it once the plug is pulled, e.g. 1 Mohm (two 470 kohm in series).")
+
+
+class Valve(Section):
+    """A rectifier valve's maximum ratings from its maker's data sheet."""
+
+    ref: Designator
+    peak_inverse_voltage: Voltage | None = Field(None, description="The maker's peak inverse anode voltage, e.g. 1400 V.")
+    peak_current: Current | None = Field(None, description="The maker's peak anode current, per anode, e.g. 440 mA.")
+    max_reservoir: Capacitance | None = Field(None, description="The largest capacitor-input reservoir the maker allows, e.g. 32 uF.")
 
 
 class Heatsink(Section):
@@ -123,6 +137,7 @@ class Devices(Section):
     semiconductors: list[Semiconductor] = Field(default_factory=list, description="Power semiconductors with ratings and thermal data.")
     capacitors: list[Capacitor] = Field(default_factory=list, description="Capacitors whose voltage or safety class matters.")
     heatsinks: list[Heatsink] = Field(default_factory=list, description="Heatsinks by designator, with sink-to-air resistance.")
+    valves: list[Valve] = Field(default_factory=list, description="Rectifier valves with their maker's ratings, checked against what their stage puts on them.")
     margins: Margins = Field(default_factory=Margins, description="Margins the builder's club sets; defaults are common practice.")
     soak: list[SoakReading] = Field(default_factory=list, description="Temperatures measured after a run at full load.")
 

@@ -11,7 +11,7 @@ from dossier.record.insulation import Barrier, BoardSpacing
 from dossier.record.magnetics import Magnetic
 from dossier.record.output import Output
 from dossier.record.protection import Protection
-from dossier.record.rails import Rail, rail_problems
+from dossier.record.rails import Rail, rail_problems, winding_problems
 from dossier.record.stages import Stage, default_stage_ids, graph_problems
 from dossier.record.standard import StandardChoice
 from dossier.record.supply import Environment, Mains
@@ -63,8 +63,10 @@ class Record(Identity):
 
     @model_validator(mode="after")
     def _graph_holds(self):
-        """Stage ids once, every fed_from and rail naming a stage that exists, no stage fed round a circle."""
+        """Stage ids once, every fed_from and rail naming a stage that exists, no stage fed round a circle, every rail's
+        winding one the record has."""
         found = list(graph_problems(self.stages)) + list(rail_problems(self.rails, self.stage_ids))
+        found += list(winding_problems(self.rails, self.magnetics))
         _raise_located(self, [InitErrorDetails(type=problem, loc=where, input=None) for where, problem in found])
         return self
 
@@ -75,6 +77,7 @@ class Record(Identity):
         yield [(("devices", "semiconductors", d, "ref"), device.ref) for d, device in enumerate(self.devices.semiconductors)] + [
             (("devices", "heatsinks", h, "ref"), sink.ref) for h, sink in enumerate(self.devices.heatsinks)
         ]
+        yield [(("devices", "valves", v, "ref"), valve.ref) for v, valve in enumerate(self.devices.valves)]
 
 
 def _raise_located(record, errors: list) -> None:

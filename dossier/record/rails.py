@@ -24,6 +24,10 @@ class Rail(Section):
     regulation: Fraction | None = Field(None, description="Rise of the rail from full load to no load over its full-load voltage, from the transformer maker's regulation figure, e.g. 12 %; gives the no-load voltage when no_load_voltage is not given.")
     bleeder_power_rating: Power | None = Field(None, description="Power rating of the bleeder resistor (of each resistor, where several in series make it up: give the total), e.g. 2 W.")
     bleeder_voltage_rating: Voltage | None = Field(None, description="Limiting element voltage of the bleeder (the sum over resistors in series), from the maker's data, e.g. 500 V.")
+    winding: str | None = Field(None, description=(
+        "The transformer winding that feeds it, as the magnetic's designator and the winding's name, e.g. 'T1 HT': its "
+        "regulation is then worked out from the windings' resistances when neither no_load_voltage nor regulation is given. "
+        "When not given, the winding is known only where the transformer in the stages above the rail has one secondary."))
     polarity: Literal["positive", "negative"] = Field("positive", description="positive or negative with respect to the unit's 0 V (a DC rail).")
     accessible: bool = Field(False, description="It is brought out to a terminal or socket someone can touch.")
 
@@ -46,3 +50,18 @@ def rail_problems(rails: list[Rail], stage_ids: list[str]):
             known = ", ".join(dict.fromkeys(stage_ids)) or "none: the record lists no stages"
             yield ("rails", index, "stage"), problem("unknown_stage", f"the id of a stage in this record ({known})", repr(rail.stage))
 
+
+
+def split_winding(text: str) -> tuple[str, str]:
+    """'T1 HT' -> ('T1', 'HT'): the designator, then the winding's name (which may hold spaces)."""
+    ref, _, name = text.strip().partition(" ")
+    return ref, name.strip()
+
+
+def winding_problems(rails: list[Rail], magnetics: list):
+    """(key path, problem) for each rail whose winding names no winding of a magnetic in the record."""
+    known = {(magnetic.ref, winding.name) for magnetic in magnetics for winding in magnetic.windings}
+    for index, rail in enumerate(rails):
+        if rail.winding is not None and split_winding(rail.winding) not in known:
+            listed = ", ".join(f"{ref} {name}" for ref, name in sorted(known)) or "none: the record lists no magnetics"
+            yield ("rails", index, "winding"), problem("unknown_winding", f"a magnetic's designator and one of its windings ({listed})", repr(rail.winding))

@@ -4,15 +4,17 @@ from __future__ import annotations
 
 from dossier.calcs.magnetics.barrier import barrier_findings
 from dossier.calcs.magnetics.context import context_of
+from dossier.calcs.magnetics.figures import winding_figures
 from dossier.calcs.magnetics.flux import choke_findings, core_finding, core_loss_findings, flux_findings, ratio_findings
 from dossier.calcs.magnetics.inputs import input_findings
 from dossier.calcs.magnetics.windings import (
     density_findings, fill_findings, proximity_findings, resistance_findings, skin_findings, temperature_findings,
 )
-from dossier.plugins import Calc
+from dossier.plugins import Calc, CalcResult
 
 TEMP_RISE = "MAG-TEMP-RISE"
 RESISTANCE = "MAG-RESISTANCE"
+WINDINGS = "windings"
 
 CODES = {
     "MAG-CORE": "Effective area, path length, volume, window, mean turn and A_L of a core (IEC 60205 for a toroid; limb, stack and window for an E-I, U-I or C core).",
@@ -43,7 +45,7 @@ def run(record):
         ctx = context_of(record, index, magnetic)
         for step in STEPS:
             findings.extend(step(ctx))
-    return findings
+    return CalcResult(findings, {WINDINGS: winding_figures(record)})
 
 
 CALC = Calc(
@@ -58,5 +60,6 @@ CALC = Calc(
         "tape layers by the thin-sheet rule, split bobbins, end margins; IEC 62368-1, IEC 61558-1)."
     ),
     codes=CODES,
+    products={WINDINGS: "each winding's resistance at 20 degC and hot and its no-load peak at nominal line, for the rails' regulation and the checklist"},
     order=30,
 )

@@ -43,7 +43,7 @@ CALC = Calc(
         "IEC 60204-1 6.2.4), and the bleeder's dissipation and voltage against its ratings. The X capacitors across the "
         "line against 34 V one second after unplugging (IEC 60335-1 22.5). Ripple (I / (f_r C)) and the reservoir's ripple "
         "current against its rating; a series-pass regulator's dissipation at high line; each rectifier's output and peak "
-        "inverse voltage by its topology; and a word on each filter, switch, input and regulator topology it does not compute."
+        "inverse voltage by its topology, and a rectifier valve's against its maker's ratings; and a word on each filter, switch, input and regulator topology it does not compute."
     ),
     codes={
         "RAILS-VOLTAGE": "a rail's worst-case voltage: no load, high line (information for the other checks)",
@@ -56,6 +56,7 @@ CALC = Calc(
         "RAILS-RIPPLE-CURRENT": "a reservoir capacitor's ripple current against its rating",
         "RAILS-REGULATOR": "a linear regulator's dissipation: a series-pass device at high line, a shunt at no load",
         "RAILS-RECTIFIER": "a rectifier stage's output and peak inverse voltage from its topology and its rail",
+        "RAILS-VALVE": "a rectifier valve's peak inverse voltage, peak anode current and reservoir against its maker's ratings",
         "RAILS-STAGE": "what dossier checks, and does not compute, for a stage's kind and topology",
     },
     products={

@@ -42,7 +42,7 @@ def voltage_finding(found: RailVoltage) -> Finding:
     return finding(
         code="RAILS-VOLTAGE", subject=found.name, title=f"Rail {found.name} at its worst case", verdict=Verdict.INFO,
         values=(Measure("worst case (no load, high line)", found.worst),),
-        extra=(Measure("declared (loaded, nominal line)", found.loaded), Measure("no load, nominal line", found.no_load)),
+        extra=(Measure("declared (loaded, nominal line)", found.loaded), Measure("no load, nominal line", found.no_load)) + found.measures,
         method=found.formula, explanation=words.worst_case(found), keys=found.keys, sources=found.sources,
     )
 

@@ -15,11 +15,13 @@ import math
 
 from dossier.calcs.rails import words
 from dossier.calcs.rails.hazards import NAME, finding
+from dossier.calcs.rails.valves import valve_findings, valves_in
 from dossier.calcs.shared.finding_kit import not_assessed
 from dossier.calcs.shared.rail_voltage import RailVoltage
+from dossier.calcs.shared.stage_graph import rectifier_of, upstream
 from dossier.citations import ARRL_FILTERS, MOHAN_POWER_ELECTRONICS
 from dossier.findings import Finding, Measure, Verdict, common_practice
-from dossier.record.stages import RECTIFIER_TOPOLOGIES, TOPOLOGIES
+from dossier.record.stages import TOPOLOGIES
 
 HALF_WAVE = ("half-wave", "valve-half-wave", "doubler")  # a doubler read as the half-wave kind: ripple at f (harsher)
 VALVES = ("valve-centre-tapped", "valve-half-wave")
@@ -29,27 +31,6 @@ RIPPLE_PRACTICE = common_practice(
     "capacitor ripple current of a capacitor-input rectifier from rectangular charging pulses over the conduction "
     "angle arccos(1 - V_r / V_pk); real pulses are peakier, so the estimate is low by some tens of per cent (from memory)")
 DIODE_KINDS = ("diode", "schottky", "bridge")
-
-
-def upstream(record, stage_id: str):
-    """The stage with this id and every stage it is fed from, nearest first."""
-    seen, waiting = [], [stage_id]
-    while waiting:
-        current = waiting.pop(0)
-        found = record.stage_by_id(current)
-        if found is None or current in seen:
-            continue
-        seen.append(current)
-        yield found
-        waiting.extend(found[1].feeds_from)
-
-
-def rectifier_of(record, stage_id: str):
-    """(index, stage) of the nearest rectifying stage feeding stage_id, or None."""
-    for index, stage in upstream(record, stage_id):
-        if stage.kind == "rectifier" or (stage.kind == "mains-input" and stage.topology_name in RECTIFIER_TOPOLOGIES):
-            return index, stage
-    return None
 
 
 # --- ripple -----------------------------------------------------------------------------------------------
@@ -179,9 +160,11 @@ def _rectifier(record, index, stage, voltages) -> list[Finding]:
     topology = stage.topology_name
     piv = rail.worst * PIV_PER_OUTPUT[topology]
     valve = topology in VALVES
+    rated = valve_findings(record, index, stage, rail, piv) if valve else []
     return [finding(code="RAILS-RECTIFIER", subject=stage.name, title=title, verdict=Verdict.INFO,
                     values=(Measure("output, no load, high line", rail.worst), Measure("peak inverse voltage", piv)),
                     method=f"PIV = {PIV_PER_OUTPUT[topology]} x V_out ({topology}); V_out from rail {rail.name} at its worst case",
-                    explanation=words.rectifier(stage.name, topology, rail.worst, piv, valve),
-                    keys=(("stages", index, "topology"),) + rail.keys, sources=(ARRL_FILTERS,) + rail.sources)]
+                    explanation=words.rectifier(stage.name, topology, rail.worst, piv, valve, bool(valves_in(record, stage))),
+                    keys=(("stages", index, "topology"),) + rail.keys + ((("devices", "valves"),) if valve else ()),
+                    sources=(ARRL_FILTERS,) + rail.sources)] + rated
 

@@ -10,14 +10,22 @@ HOW_NO_LOAD = {
     "declared": "its declared no-load voltage",
     "regulation": "its loaded voltage raised by its declared regulation",
     "assumed": ("its loaded voltage raised by an assumed 25 % no-load rise (the harsher reading for a small mains "
-                "transformer): declare no_load_voltage or regulation to make it exact"),
+                "transformer): declare no_load_voltage or regulation to make it exact, or name the transformer winding "
+                "that feeds it (rails[].winding, with the transformer under magnetics) to have it worked out"),
+    "choke-peak": ("its loaded voltage raised to the peak a choke-input filter reaches with no load (x pi / 2, the harsher "
+                   "reading): declare no_load_voltage or regulation, or name the winding that feeds it (rails[].winding), to make it exact"),
+    "windings": ("the resistances of the transformer winding that feeds it (worked out, not declared: measure the "
+                 "no-load voltage and declare no_load_voltage, or the maker's regulation, to make it exact)"),
     "regulated": "its declared voltage: a regulator holds it whatever the mains does",
 }
 
 
 def worst_case(found) -> str:
     text = f"Rail {found.name} at no load and high line, from {HOW_NO_LOAD[found.how]}"
-    return text + ("." if found.how == "regulated" else ", carried to the top of the mains tolerance.")
+    text += ("." if found.how == "regulated" else ", carried to the top of the mains tolerance.")
+    if found.how == "windings":
+        text += f" Regulation: {found.basis}; no-load {fmt(found.no_load)} against {fmt(found.loaded)} loaded, a rise of {found.rise.magnitude:.1%}."
+    return text
 
 
 def hazard(name: str, worst, limit, accessible: bool) -> str:
@@ -138,13 +146,31 @@ RECTIFIER_WORDS = {
 }
 
 
-def rectifier(stage_name: str, topology: str, output, piv, valve: bool) -> str:
+def rectifier(stage_name: str, topology: str, output, piv, valve: bool, rated: bool = False) -> str:
     text = f"Stage '{stage_name}': {RECTIFIER_WORDS[topology]}. From its rail at the worst case: output {fmt(output)}, peak inverse {fmt(piv)}."
-    if valve:
-        text += (" dossier holds no ratings for valves: compare the peak inverse voltage with the valve maker's peak "
-                 "inverse anode voltage and its largest reservoir capacitance, and allow its warm-up (the rail rises "
-                 "to no load before the other valves draw current).")
+    if valve and rated:
+        text += (" The valve's maker ratings are judged in the RAILS-VALVE findings; allow its warm-up (the rail rises to "
+                 "no load before the other valves draw current).")
+    elif valve:
+        text += (" The record gives no maker ratings for the valve, so they are not compared: add it under devices.valves "
+                 "(ref, peak_inverse_voltage, peak_current, max_reservoir) from its data sheet, and allow its warm-up (the "
+                 "rail rises to no load before the other valves draw current).")
     return text
+
+
+def valve_rating(ref: str, what: str, value, rating) -> str:
+    verdict = "within" if value <= rating else "above"
+    return f"{ref}'s {what} here is {fmt(value)}, {verdict} the maker's maximum of {fmt(rating)}."
+
+
+RESERVOIR_DECLARED = ("The reservoir is the bulk capacitors declared in the rectifier stage or ahead of the first choke of the "
+                      "filter after it (a series string at its series value).")
+RESERVOIR_RAIL = ("No bulk capacitor with its capacitance is declared in the rectifier stage or ahead of the filter's first choke, so the rail's whole capacitance is "
+                  "taken as the reservoir (the harsher reading): declare the reservoir under devices.capacitors to make it exact.")
+NO_RESERVOIR = "the reservoir's capacitance is not known: give rails[].capacitance or the reservoir under devices.capacitors"
+NO_PEAK_CURRENT = ("the valve's peak current needs the winding's source resistance, which is worked out only when the rail names "
+                   "its winding (rails[].winding, with the transformer under magnetics) and gives its current; compare it with "
+                   "the maker's figure by hand until then")
 
 
 def no_rectifier_rail(stage_name: str) -> str:

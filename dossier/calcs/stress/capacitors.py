@@ -16,13 +16,13 @@ from dataclasses import replace
 from dossier.calcs.shared import safety_class
 from dossier.calcs.shared.finding_kit import not_assessed
 from dossier.calcs.shared.margins import margin
-from dossier.calcs.rails.supply import rectifier_of
 from dossier.calcs.shared.rail_voltage import rail_voltage
+from dossier.calcs.shared.stage_graph import rectifier_of
 from dossier.calcs.stress import words
 from dossier.calcs.stress.judging import finding, rating_finding
 from dossier.calcs.stress.voltages import Rail, Voltages, stage_of
 from dossier.findings import Finding, Measure, Verdict, common_practice
-from dossier.citations import IEC_60384_14, MOHAN_POWER_ELECTRONICS
+from dossier.citations import ARRL_FILTERS, IEC_60384_14, MOHAN_POWER_ELECTRONICS
 from dossier.units import Q_
 
 AC_POSITIONS = ("across-line", "line-to-earth", "across-barrier")
@@ -32,6 +32,11 @@ SERIES_PRACTICE = common_practice(
     "series capacitors share by leakage unless each has a balancing resistor; worst share V/n + (n-1)/n R I_leak; "
     "aluminium electrolytic leakage at most 0.01 C V_R or 3 uA at 20 degC (makers' application guides, e.g. "
     "Cornell Dubilier, Aluminum Electrolytic Capacitor Application Guide; from memory)")
+# A doubler capacitor's share of the doubler's no-load output (The ARRL Handbook, power supplies chapter: voltage
+# multipliers); not given: the whole output, the harsher reading.
+DOUBLER_SHARE = {"full-wave": 0.5, "half-wave-input": 0.5, "half-wave-output": 1.0}
+DOUBLER_FORMULA = {"full-wave": "V_out / 2 (full-wave doubler: each at V_pk)", "half-wave-input": "V_out / 2 (half-wave doubler's input capacitor: V_pk)",
+                   "half-wave-output": "V_out (half-wave doubler's output capacitor: 2 V_pk)", None: "V_out (position in the doubler not given: the harsher reading)"}
 RATED_VOLTAGE_SOURCE = replace(IEC_60384_14, edition="edition 4.0, 2013, with amendment 1, 2016", clause=(
     "rated voltage: the r.m.s. voltage of the supply, at its nominal value, the capacitor may be connected to "
     "(definition clause; the clause number and wording from memory)"))
@@ -48,6 +53,9 @@ def capacitor_findings(voltages: Voltages, index: int, capacitor) -> list[Findin
 def _dc_capacitor(voltages: Voltages, index: int, capacitor) -> list[Finding]:
     key = ("devices", "capacitors", index, "voltage_rating")
     title = f"{capacitor.ref} voltage rating"
+    found = stage_of(voltages.record, capacitor.ref)
+    if capacitor.doubler is not None or (found is not None and _doubles(found[1])):
+        return _doubler_capacitor(voltages, index, capacitor, found, key, title)
     string = _string_rail(voltages, index, capacitor)
     if string is None:
         return [_not_assessed(capacitor.ref, title, words.unknown_position(capacitor.position), ("devices", "capacitors", index, "position"))]
@@ -58,6 +66,42 @@ def _dc_capacitor(voltages: Voltages, index: int, capacitor) -> list[Finding]:
     keys = (("devices", "capacitors", index),) if count > 1 else ()
     return [rating_finding("STRESS-CAPACITOR", capacitor.ref, title, capacitor.voltage_rating, share, chosen,
                            "peak voltage at high line, no load", key, sources, doubts=doubts, extra=extra, keys=keys)]
+
+
+# --- voltage doublers ------------------------------------------------------------------------------
+
+def _doubles(stage) -> bool:
+    return stage.kind in ("rectifier", "mains-input") and stage.topology_name == "doubler"
+
+
+def _doubler_capacitor(voltages: Voltages, index: int, capacitor, found, key, title) -> list[Finding]:
+    """A doubler's capacitor holds its share of the output, set by the circuit (each is charged through its own
+    diode), not by leakage: full-wave each V_out / 2; half-wave the input V_out / 2 and the output V_out."""
+    output = _doubler_output(voltages, found)
+    if output is None:
+        return [_not_assessed(capacitor.ref, title, words.NO_DOUBLER_OUTPUT, ("rails",))]
+    share = DOUBLER_SHARE.get(capacitor.doubler, 1.0)
+    rail = replace(output, voltage=output.voltage * share,
+                   formula=f"V_C = {DOUBLER_FORMULA[capacitor.doubler]}; {output.formula}",
+                   basis=f"{output.basis}; {words.doubler_share(capacitor.doubler)}")
+    doubler_key = ("devices", "capacitors", index, "doubler")
+    return [rating_finding("STRESS-CAPACITOR", capacitor.ref, title, capacitor.voltage_rating, rail, margin(voltages.record, "capacitor_voltage"),
+                           "peak voltage at high line, no load", key, (ARRL_FILTERS,), keys=(doubler_key,),
+                           extra=(Measure("doubler output, no load, high line", output.voltage), Measure("doubler position", capacitor.doubler or "not given: the whole output")))]
+
+
+def _doubler_output(voltages: Voltages, found) -> Rail | None:
+    """The doubler's output at no load and high line: its declared rail's worst case, else twice the winding's peak
+    (twice the mains crest for a doubler on the mains)."""
+    if found is None:
+        return None
+    rail = _declared_rail(voltages.record, found[1])
+    if rail is not None:
+        return rail
+    if found[1].side == "mains":
+        peak = voltages.line_peak()
+        return None if peak is None else replace(peak, voltage=2 * peak.voltage, formula=f"V_out = 2 x V_pk (doubler); {peak.formula}")
+    return voltages.rectified("doubler")
 
 
 def _string_rail(voltages: Voltages, index: int, capacitor) -> Rail | None:
@@ -87,7 +131,7 @@ def _declared_rail(record, stage) -> Rail | None:
         return None
     worst = max(delivered, key=lambda found: found.worst)
     return Rail(worst.worst, worst.formula, f"rail '{worst.name}' at no load and high line", worst.keys[0],
-                notes=("no-load-rise",) if worst.how == "assumed" else (), sources=worst.sources)
+                notes=("rail-rise",) if worst.how in ("assumed", "choke-peak", "windings") else (), sources=worst.sources)
 
 
 def _holds(record, rail, stage) -> bool:

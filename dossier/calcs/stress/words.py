@@ -84,6 +84,8 @@ ROLE_ASSUMED = ("The record gives no role for this diode (devices.semiconductors
 
 # --- capacitors ----------------------------------------------------------------------------------
 
+RAIL_RISE = ("The rail's no-load voltage is not declared: it is taken as the rails calc works it out (its RAILS-VOLTAGE "
+             "finding says how). Declare rails[].no_load_voltage, measured, to make it exact.")
 NO_LOAD_RISE = ("The winding's declared excitation is taken as its rated, loaded voltage: raised by the assumed no-load "
                 "rise of a small mains transformer. Declare no_load_voltage on the capacitor, or the excitation across "
                 "the primary (the turns then give the no-load voltage), to make it exact.")
@@ -124,3 +126,18 @@ def safety_class(capacitor, requirement, verdict) -> str:
     if verdict is Verdict.FAIL:
         text += " Fit a capacitor of an accepted class and give its class in the record; an unclassed capacitor here can fail short and make the mains reachable."
     return text
+
+
+NO_DOUBLER_OUTPUT = ("the doubler's output is not known: declare the rail it delivers (rails[] with its stage) or the "
+                     "transformer under magnetics")
+DOUBLER_SHARES = {
+    "full-wave": "a full-wave doubler's capacitor: each of the pair is charged to the winding's peak by its own diode, half the output",
+    "half-wave-input": "a half-wave doubler's input (series) capacitor: charged to the winding's peak, half the output",
+    "half-wave-output": "a half-wave doubler's output capacitor: the whole output, twice the winding's peak",
+    None: ("a capacitor in a doubler stage whose place in it is not given: taken at the doubler's whole output (the harsher "
+           "reading); declare devices.capacitors[].doubler (full-wave, half-wave-input or half-wave-output) to judge it at its share"),
+}
+
+
+def doubler_share(position) -> str:
+    return DOUBLER_SHARES[position]

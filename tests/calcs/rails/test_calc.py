@@ -206,7 +206,7 @@ def test_each_rectifier_gives_its_peak_inverse_voltage(topology, multiple):
     stages = [dict(s, topology=topology) if s["id"] == "ht" else s for s in STAGES]
     finding = by(rails.run(unit(b_plus(), stages=stages)), "RAILS-RECTIFIER", "HT rectifier")
     assert volts(finding.values[1].quantity) == pytest.approx(multiple * 388 * 1.1)
-    assert ("valve maker" in finding.explanation) == topology.startswith("valve")
+    assert ("devices.valves" in finding.explanation) == topology.startswith("valve")
 
 
 @pytest.mark.parametrize("kind, topology", [("filter", "lc"), ("filter", "choke-input"), ("filter", "series-bank"), ("switch", "standby"),
