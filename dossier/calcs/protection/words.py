@@ -233,10 +233,6 @@ TOPOLOGY_WORDS = {
 }
 
 
-def ratio_out_of_range(key: str, value: float) -> str:
-    return f"{key} between 0 and 100 % (found {value * 100:g} %)"
-
-
 # The switch-on surge
 
 NO_CAPACITOR_INRUSH = ("No capacitance charged at switch-on is declared (protection.bulk_capacitance, or secondary_banks behind a"

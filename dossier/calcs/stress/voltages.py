@@ -4,7 +4,7 @@ from __future__ import annotations
 
 from dataclasses import dataclass, field, replace
 
-from dossier.calcs.magnetics.voltages import winding_voltages
+from dossier.calcs.shared.winding_voltages import winding_voltages
 from dossier.calcs.shared.mains_lines import HIGH_PEAK_FORMULA, high_line_peak
 from dossier.calcs.shared.rail_voltage import NO_LOAD_PRACTICE, NO_LOAD_RISE
 from dossier.findings import Source
