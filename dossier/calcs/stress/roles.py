@@ -64,7 +64,7 @@ def inverse(voltages: Voltages, index: int, stage, role: str | None) -> Rail | N
         return _from_input(voltages, index, stage, role)
     if role is None:
         return _harshest(voltages, index, stage)
-    peak = voltages.line_peak() if stage.side == "mains" else voltages.winding_peak(half=False, stage_index=index)
+    peak = voltages.line_peak(index) if stage.side == "mains" else voltages.winding_peak(half=False, stage_index=index)
     if peak is None:
         return None
     times = PEAK_MULTIPLE[role]
@@ -81,7 +81,7 @@ def _from_input(voltages: Voltages, index: int, stage, role: str) -> Rail | None
 
 def _harshest(voltages: Voltages, index: int, stage) -> Rail | None:
     """Twice the peak of the AC it might rectify, or twice the stage's input, whichever is higher and known."""
-    peak = voltages.line_peak() if stage.side == "mains" else voltages.winding_peak(half=False, stage_index=index)
+    peak = voltages.line_peak(index) if stage.side == "mains" else voltages.winding_peak(half=False, stage_index=index)
     # a rectifier's own output is not what feeds it
     supply = None if stage.kind in ("rectifier", "mains-input") else voltages.supply_of(index)
     known = [rail for rail in (peak, supply) if rail is not None]

@@ -4,6 +4,7 @@ from __future__ import annotations
 
 from dataclasses import dataclass, field, replace
 
+from dossier.calcs.shared import variac
 from dossier.calcs.shared.stage_graph import rectifier_of, upstream
 from dossier.calcs.shared.winding_voltages import winding_voltages
 from dossier.record.rails import split_winding
@@ -139,6 +140,17 @@ class Voltages:
         return Feed(((index, magnetic, highest),), "highest", ("magnetics", index, "windings"))
 
     def winding_peak(self, half: bool, stage_index: int | None = None) -> Rail | None:
+        return self.behind_variac(self._winding_peak(half, stage_index), stage_index)
+
+    def behind_variac(self, rail: Rail | None, stage_index: int | None) -> Rail | None:
+        """A voltage in a stage a variac feeds, raised to the variac's top of scale over the mains nominal."""
+        if rail is None or stage_index is None or not variac.feeds(self.record, self.record.stages[stage_index].id):
+            return rail
+        factor = variac.scale(self.record)
+        return replace(rail, voltage=rail.voltage * factor, formula=f"{rail.formula} x V_top / V_nominal (variac)",
+                       key=variac.VARIAC_KEY, notes=rail.notes + ("variac-top",), sources=rail.sources + (variac.VARIAC_PRACTICE,))
+
+    def _winding_peak(self, half: bool, stage_index: int | None = None) -> Rail | None:
         """Peak across the whole secondary, or across one half of a centre-tapped one, at high line; for a rectifier
         stage fed by two windings in series (named by its rails), across both (half: the higher of them)."""
         feed = self.feed(stage_index) if stage_index is not None else None
@@ -192,11 +204,13 @@ class Voltages:
         return Rail(voltage, f"{formula} x (1 + no-load rise)", rail.basis, ("magnetics", index, "excitation"),
                     notes=("no-load-rise",), sources=(NO_LOAD_PRACTICE,))
 
-    def line_peak(self) -> Rail | None:
-        """The mains crest at high line: what a diode rectifying the mains works from."""
+    def line_peak(self, stage_index: int | None = None) -> Rail | None:
+        """The mains crest at high line: what a diode rectifying the mains works from (a variac's top of scale for
+        a stage it feeds)."""
         if self.record.mains is None:
             return None
-        return Rail(high_line_peak(self.record.mains), f"V_pk = {HIGH_PEAK_FORMULA}", "mains peak at high line", ("mains", "nominal"))
+        rail = Rail(high_line_peak(self.record.mains), f"V_pk = {HIGH_PEAK_FORMULA}", "mains peak at high line", ("mains", "nominal"))
+        return self.behind_variac(rail, stage_index)
 
     def rectified(self, topology: str, stage_index: int | None = None) -> Rail | None:
         """The rectified rail behind an output rectifier, at no load (no diode drop): the peak of the winding each
@@ -231,7 +245,7 @@ class Voltages:
         rectifier above it in the stage graph."""
         stage = self.record.stages[index]
         if stage.side == "mains":
-            return self.bus()
+            return self.behind_variac(self.bus(), index)
         found = rectifier_of(self.record, stage.id)
         if found is None or found[1].side != "isolated":
             return None

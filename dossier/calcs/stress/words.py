@@ -87,6 +87,8 @@ SPLIT_UNKNOWN = ("The bridge sits across a centre-tapped winding (or a pair in s
                  "declared from it, so its centre is not known to be the 0 V: each capacitor is taken at the whole "
                  "winding's peak (the harsher reading). Declare both rails (rails[] with their stage and polarity) to "
                  "judge each at the peak of one half.")
+VARIAC_TOP = ("A variac feeds this stage: it is taken at the variac's top of scale (protection.variac.top_voltage) in "
+              "place of the mains nominal, at high line, since its output can exceed its input.")
 ROLE_ASSUMED = ("The record gives no role for this diode (devices.semiconductors[].role, or a role on its stage part), so "
                 "the harshest of the roles its stage allows is taken: twice the peak, as a reset, clamp, half-wave or "
                 "doubler diode would block. Set role to make it exact.")
