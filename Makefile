@@ -34,6 +34,7 @@ bench: $(STAMP)
 	$(BIN)/python bench/bench_check.py
 	$(BIN)/python bench/bench_drawing.py
 	$(BIN)/python bench/bench_site.py
+	$(BIN)/python bench/bench_incremental.py --serve
 
 clean:
 	rm -rf $(VENV) site .cache

@@ -136,6 +136,17 @@ IEC_60740_1 = Source(
     publisher="International Electrotechnical Commission",
     edition="edition 2.0, 2005 (edition from memory)",
 )
+IEC_61010_1 = Source(
+    title=("IEC 61010-1, Safety requirements for electrical equipment for measurement, control, and laboratory use - "
+           "Part 1: General requirements"),
+    publisher="International Electrotechnical Commission",
+    edition="edition 3.0, 2010, with amendment 1 (2016)",
+)
+IEC_61558_1 = Source(
+    title="IEC 61558-1, Safety of transformers, reactors, power supply units and combinations thereof - Part 1: General requirements and tests",
+    publisher="International Electrotechnical Commission",
+    edition="edition 3.0, 2017",
+)
 IEC_60335_1 = Source(
     title="IEC 60335-1, Household and similar electrical appliances - Safety - Part 1: General requirements",
     publisher="International Electrotechnical Commission",
@@ -241,24 +252,6 @@ ARRL_FILTERS = Source(
             "above the critical inductance); bleeder resistors"),
     kind="handbook",
 )
-ESP_PROJECT_39 = Source(
-    title="Project 39, Soft-Start Circuit for Power Amps", publisher="Elliott Sound Products (Rod Elliott)", kind="application-note",
-)
-IEC_60364_4_41 = Source(
-    title="IEC 60364-4-41, Low-voltage electrical installations - Part 4-41: Protection for safety - Protection against electric shock",
-    publisher="International Electrotechnical Commission", edition="edition 5.0, 2005 (edition from memory)",
-)
-IEC_61008_1 = Source(
-    title="IEC 61008-1, Residual current operated circuit-breakers without integral overcurrent protection (RCCBs)",
-    publisher="International Electrotechnical Commission",
-)
-HSE_TEST_BENCHES = Source(
-    title="Electrical safety for test benches: supplies to equipment under test (HSE guidance on safety in electrical testing at work)",
-    publisher="Health and Safety Executive (UK)", kind="handbook",
-)
-LAMPTECH_STARTING = Source(
-    title="Incandescent lamps: starting characteristics", publisher="Lamptech (lamptech.co.uk), reference pages", kind="reference",
-)
 SCHADE_RECTIFIER = Source(
     title='O. H. Schade, "Analysis of rectifier operation"',
     publisher="Proceedings of the IRE, vol. 31, no. 7",
@@ -282,4 +275,22 @@ VALVE_RECTIFIER_RATINGS = Source(
     clause=("rectifier ratings: peak inverse plate voltage, peak plate current and the largest capacitor-input filter "
             "capacitance a rectifier valve takes, each a maximum not to be exceeded (section and wording from memory)"),
     kind="handbook",
+)
+ESP_PROJECT_39 = Source(
+    title="Project 39, Soft-Start Circuit for Power Amps", publisher="Elliott Sound Products (Rod Elliott)", kind="application-note",
+)
+IEC_60364_4_41 = Source(
+    title="IEC 60364-4-41, Low-voltage electrical installations - Part 4-41: Protection for safety - Protection against electric shock",
+    publisher="International Electrotechnical Commission", edition="edition 5.0, 2005 (edition from memory)",
+)
+IEC_61008_1 = Source(
+    title="IEC 61008-1, Residual current operated circuit-breakers without integral overcurrent protection (RCCBs)",
+    publisher="International Electrotechnical Commission",
+)
+HSE_TEST_BENCHES = Source(
+    title="Electrical safety for test benches: supplies to equipment under test (HSE guidance on safety in electrical testing at work)",
+    publisher="Health and Safety Executive (UK)", kind="handbook",
+)
+LAMPTECH_STARTING = Source(
+    title="Incandescent lamps: starting characteristics", publisher="Lamptech (lamptech.co.uk), reference pages", kind="reference",
 )

@@ -176,7 +176,8 @@ def sign_off(record: Path, reviewer: str) -> None:
     """Start a sign-off of RECORD (BUILD/rev-X.yaml): writes signoff-X.yaml beside it, never over another file.
 
     The file lists every finding that needs a decision and binds the review to the record and its
-    attachments as they are now; fill in the decisions and the clearance, then `dossier check` it.
+    attachments as they are now, and to those findings (when newer checks change them, the review is
+    outdated and clears nothing); fill in the decisions and the clearance, then `dossier check` it.
     """
     import datetime
 

@@ -217,6 +217,7 @@ NO_FINDING_CHANGED_TEXT = "No finding changed verdict or value."
 REVIEW_STATE_WORDS = {
     "not-reviewed": "not reviewed",
     "stale": "stale: every sign-off predates the record or an attachment as it is now",
+    "review-outdated": "review outdated: the checks changed since the newest sign-off was made, so a re-review is needed",
     "changes-requested": "reviewed, changes requested",
     "cleared-for-enclosure": "cleared for the enclosure",
     "cleared-for-power-up": "cleared for first power-up",
@@ -224,6 +225,7 @@ REVIEW_STATE_WORDS = {
 REVIEW_STATE_SHORT = {
     "not-reviewed": "not reviewed",
     "stale": "stale",
+    "review-outdated": "review outdated",
     "changes-requested": "changes requested",
     "cleared-for-enclosure": "cleared for enclosure",
     "cleared-for-power-up": "cleared for power-up",
@@ -233,12 +235,41 @@ REVIEW_STATE_SHORT = {
 def signoff_line(state) -> str:
     """'cleared for first power-up by A. Reviewer on 2026-05-10 (signoff-C.yaml)', or the state alone."""
     words = REVIEW_STATE_WORDS[state.state.value]
+    if state.outdated is not None:
+        return outdated_line(state.outdated)
     if state.deciding is None:
         return words
     entry = state.deciding.entry
     return f"{words}, by {entry.reviewer} on {entry.date.isoformat()} ({state.deciding.signoff.path.name})"
 
 CLEARANCE_WORDS = {"not-cleared": "not cleared", "enclosure": "cleared for the enclosure", "first-power-up": "cleared for first power-up"}
+
+
+def outdated_line(judged) -> str:
+    """'review outdated: the checks changed after signoff-C.yaml (A. Reviewer, 2026-05-10: cleared for first
+    power-up), so ...; new since that review, needing a decision: ...'."""
+    entry = judged.entry
+    made = f"{judged.signoff.path.name} ({entry.reviewer}, {entry.date.isoformat()}: {CLEARANCE_WORDS[entry.clearance.value]})"
+    return (f"review outdated: the checks changed after {made}, so it no longer counts and the revision is not cleared "
+            f"until a re-review; {since_review_text(judged.outdated)}")
+
+
+def since_review_text(outdated) -> str:
+    """Which findings are new or changed since the review, as far as the sign-off shows it."""
+    if outdated.without_digest:
+        return (f"it does not name {_finding_list(outdated.unnamed)}, which block power-up now "
+                "(it has no reviewed_findings, so they are taken as new since it was made)")
+    parts = []
+    if outdated.unnamed:
+        parts.append(f"new since that review, needing a decision: {_finding_list(outdated.unnamed)}")
+    if outdated.settled:
+        parts.append("named in it but no longer needing a decision: " + ", ".join(f"{d.code} ({d.subject})" for d in outdated.settled))
+    return "; ".join(parts) or "the verdict or figures of a finding it names changed"
+
+
+def _finding_list(findings) -> str:
+    ordered = sorted(findings, key=lambda f: (f.verdict.rank, f.code, f.subject))
+    return ", ".join(f"{f.code} ({f.subject}, {verdict_word(f.verdict)})" for f in ordered)
 
 
 def decision_text(decision) -> str:
@@ -372,7 +403,7 @@ PROBLEM_TEXT.update({
     "unknown_stage": "no stage has this id",
     "stage_loop": "stages feed each other round a circle",
     "duplicate_rail": "rail name given twice",
-    "unknown_winding": "no magnetic has this winding",
+    "unknown_rail_winding": "no magnetic has this winding",
     "revision_spelt_twice": "one revision in two files",
     "attachment_type": "attachment of a type that is not published",
     "attachment_name": "attachment name would break its link",
@@ -391,7 +422,7 @@ HELP_SECTIONS = {
         "temperature_not_rise", "temperature_difference")),
     "keys": ("docs/writing-records.md#keys", ("missing", "extra_forbidden", "duplicate_key", "literal_error", "string_pattern_mismatch")),
     "stages and rails": ("docs/writing-records.md#stages-and-rails", (
-        "unknown_topology", "duplicate_stage_id", "unknown_stage", "stage_loop", "duplicate_rail", "unknown_winding")),
+        "unknown_topology", "duplicate_stage_id", "unknown_stage", "stage_loop", "duplicate_rail", "unknown_rail_winding")),
     "YAML": ("docs/writing-records.md#yaml-itself", (
         "yaml_syntax", "yaml_value", "yaml_tag", "merge_key", "bad_key", "not_a_mapping", "not_utf8", "control_character",
         "too_many_nodes", "too_deep", "file_too_large")),

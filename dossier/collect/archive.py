@@ -24,7 +24,7 @@ from dossier.collect.caches import Caches
 from dossier.collect.extras import Extras, revision_extras
 from dossier.collect.parallel import collect_in_workers, worker_count
 from dossier.reading.settings import ArchiveSettings, load_settings
-from dossier.calcs import isolation
+from dossier.calcs import isolation, rails, thermal
 
 CHECKLIST_SHEETS = {"a4": "checklist-a4.html", "letter": "checklist-letter.html"}
 
@@ -97,20 +97,28 @@ def open_archive(root: Path, calcs: list[Calc] | None = None) -> tuple[Archive, 
     return Archive(root, settings, configured_calcs(calcs, settings), ledger), problems
 
 
+CONFIGURABLE = ((isolation.CALC, isolation.configured), (thermal.CALC, thermal.configured), (rails.CALC, rails.configured))
+
+
 def configured_calcs(calcs: list[Calc], settings: ArchiveSettings) -> list[Calc]:
-    """The isolation calc reads the archive's table_interpolation setting; the others take none."""
-    return [isolation.configured(settings) if calc is isolation.CALC else calc for calc in calcs]
+    """The isolation calc reads the archive's table_interpolation setting and default standard; the thermal and
+    rails calcs read the default standard (touch limits, energy-source classes); the others take none."""
+    return [next((configure(settings) for built_in, configure in CONFIGURABLE if calc is built_in), calc) for calc in calcs]
 
 
-def each_build(archive: Archive, problems: list[Problem], cache=None, jobs: int | None = None) -> Iterator[Build]:
+def each_build(archive: Archive, problems: list[Problem], cache=None, jobs: int | None = None, collect_one=None) -> Iterator[Build]:
     """Builds in archive order, a few at a time so a large archive is never all in memory; problems are added
-    to the list. Large archives are collected on every core (see dossier.collect.parallel)."""
+    to the list. Large archives are collected on every core (see dossier.collect.parallel).
+
+    collect_one(archive, folder, cache) -> (result or None, problems) may do more with each build in the
+    worker (write its pages); what it returns is yielded in place of the build."""
     folders = build_dirs(archive.root)
     workers = worker_count(len(folders), jobs)
+    collect_one = collect_one or collect_with_problems
     if workers == 1:
-        results = (collect_with_problems(archive, folder, cache) for folder in folders)
+        results = (collect_one(archive, folder, cache) for folder in folders)
     else:
-        results = collect_in_workers(archive, folders, cache, workers, collect_with_problems)
+        results = collect_in_workers(archive, folders, cache, workers, collect_one)
     for build, found in results:
         problems.extend(found)
         if build is not None:

@@ -1,4 +1,4 @@
-"""Work kept between builds: finished drawings and checklist PDFs, by the hash of what they are made from."""
+"""Work kept between builds: finished drawings, checklist PDFs and whole builds' pages, by the hash of what they are made from."""
 
 from __future__ import annotations
 
@@ -7,6 +7,7 @@ from dataclasses import dataclass
 from pathlib import Path
 
 from dossier.checklist.pdf import PdfCache
+from dossier.collect.build_store import BuildStore
 from dossier.drawing.cache import DrawingCache
 
 
@@ -14,10 +15,12 @@ from dossier.drawing.cache import DrawingCache
 class Caches:
     drawings: DrawingCache | None = None
     pdfs: PdfCache | None = None  # None: the build writes no PDFs
+    builds: BuildStore | None = None  # None: every build is reviewed and its pages written afresh
+    renders: Path | None = None  # what each site was rendered from (output.incremental); None: render every page
 
     @classmethod
     def in_folder(cls, folder: Path) -> "Caches":
-        return cls(DrawingCache(Path(folder) / "drawings"), PdfCache(Path(folder) / "pdfs"))
+        return cls(DrawingCache(Path(folder) / "drawings"), PdfCache(Path(folder) / "pdfs"), BuildStore(Path(folder) / "builds"), Path(folder) / "renders")
 
 
 def user_cache_folder() -> Path:
@@ -26,8 +29,8 @@ def user_cache_folder() -> Path:
 
 
 def user_caches(use_cache: bool = True, pdfs: bool = True) -> Caches:
-    """With use_cache false, every drawing and PDF is made again and nothing is kept."""
+    """With use_cache false, every build is reviewed, every drawing and PDF made again, and nothing is kept."""
     if use_cache:
         caches = Caches.in_folder(user_cache_folder())
-        return caches if pdfs else Caches(caches.drawings, None)
+        return caches if pdfs else Caches(caches.drawings, None, caches.builds, caches.renders)
     return Caches(None, PdfCache(None) if pdfs else None)

@@ -21,11 +21,13 @@ from dossier.reading.archive import build_dirs
 from dossier.problems import InputError
 from dossier.output.atomic import check_output, swap_in
 from dossier.collect.caches import user_caches
-from dossier.collect.archive import Archive, Build, each_build, open_archive
-from dossier.output.fingerprint import marker_text, render_inputs, still_current
+from dossier.collect.archive import Archive, open_archive
+from dossier.output.fingerprint import file_hashes, marker_text, render_inputs, shared_context, site_hashes, still_current
+from dossier.output.incremental import Rendered, RenderRecords, render
 from dossier.output.lock import building, real_output
-from dossier.pages.tree import TreeSummary, write_tree
-from dossier.render.mkdocs_run import RenderError, run_mkdocs, source_epoch, write_config
+from dossier.pages.reuse import each_build_pages
+from dossier.pages.tree import BuildPages, TreeSummary, finish_tree
+from dossier.render.mkdocs_run import RenderError, source_epoch, write_config
 
 PROGRESS_FROM = 20  # builds; smaller archives build in a few seconds and need no progress bar
 DOCS, SITE = "pages", "site"
@@ -39,6 +41,7 @@ class Built:
     seconds: float
     warnings: list[str]
     replaced: bool = True  # False: the site in place already was this rendering and was kept
+    rendered: Rendered | None = None  # what was rendered, when it was
 
 
 def default_output(archive: Path) -> Path:
@@ -58,35 +61,49 @@ def build_site(archive: Path, output: Path, *, pages_only: bool = False, calcs=N
     check_output(output, archive)
     opened, problems = open_archive(archive, calcs)
     with building(output) as work:
-        builds = _reported(each_build(opened, problems, cache, jobs), progress)
-        tree = write_tree(opened, work / DOCS, builds)
+        builds = _reported(each_build_pages(opened, problems, work / DOCS, cache, jobs), progress)
+        tree = finish_tree(opened, work / DOCS, builds)
         if problems:
             raise InputError(problems)
+        if cache is not None and cache.builds is not None:
+            cache.builds.trim()
         if pages_only:
             swap_in(work / DOCS, output)
-        replaced = pages_only or _render_and_swap(opened, tree, work, output, announce, reuse)
-    return Built(output, len(tree.rows), tree.pages, time.perf_counter() - started, tree.warnings, replaced)
+        rendered = None if pages_only else _render_and_swap(opened, tree, work, output, announce, reuse, RenderRecords(_records_folder(cache)), jobs)
+    replaced = pages_only or rendered is not None
+    return Built(output, len(tree.rows), tree.pages, time.perf_counter() - started, tree.warnings, replaced, rendered)
 
 
-def _reported(builds: Iterator[Build], progress: Callable | None) -> Iterator[Build]:
+def _records_folder(cache) -> Path | None:
+    return cache.renders if cache is not None else None
+
+
+def _reported(builds: Iterator[BuildPages], progress: Callable | None) -> Iterator[BuildPages]:
     for build in builds:
         if progress is not None:
             progress(build)
         yield build
 
 
-def _render_and_swap(opened: Archive, tree: TreeSummary, work: Path, output: Path, announce, reuse: bool) -> bool:
-    """Render the tree and put the site in place; False when the site in place already is that rendering."""
+def _render_and_swap(opened: Archive, tree: TreeSummary, work: Path, output: Path, announce, reuse: bool, records: RenderRecords, jobs: int | None) -> Rendered | None:
+    """Render the tree and put the site in place: only the changed pages when the site in place allows it.
+    None when the site in place already is that rendering and was kept."""
     config = write_config(opened.settings, tree, work, DOCS, SITE)
     epoch = source_epoch(tree.newest)
-    inputs = render_inputs(work / DOCS, config, epoch)
-    if reuse and still_current(output, inputs):
-        return False
+    sources = file_hashes(work / DOCS)
+    shared = shared_context(config.read_text(encoding="utf-8"), epoch)
+    inputs = render_inputs(sources, shared)
+    existing = site_hashes(output) if reuse else None
+    if existing is not None and still_current(output, inputs, existing):
+        return None
+    previous = records.load(output, existing) if reuse else None
     if announce is not None:
-        announce(f"rendering {tree.pages} pages with MkDocs")
-    run_mkdocs(config, epoch)
-    swap_in(work / SITE, output, marker_text(work / SITE, inputs))
-    return True
+        announce(f"rendering {tree.pages} pages with MkDocs" if previous is None else "rendering the changed pages with MkDocs")
+    rendered = render(config, work / DOCS, work / SITE, epoch, sources, shared, previous, jobs or os.cpu_count() or 1)
+    hashes = file_hashes(work / SITE)
+    swap_in(work / SITE, output, marker_text(hashes, inputs))
+    records.save(shared, sources, hashes)
+    return rendered
 
 
 def run_build(archive: Path, output: Path | None, pages_only: bool, quiet: bool, use_cache: bool, pdfs: bool = True, jobs: int | None = None) -> int:
@@ -112,7 +129,26 @@ def _outcome(built: Built, pages_only: bool) -> str:
     size = f"{counted(built.builds, 'build')} ({counted(built.pages, 'page')})"
     if not built.replaced:
         return f"the site at {built.output} already shows these {size}; kept it as it is, nothing rendered ({built.seconds:.1f} s)"
-    return f"wrote the {what} of {size} to {built.output} in {built.seconds:.1f} s"
+    done = f"wrote the {what} of {size} to {built.output} in {built.seconds:.1f} s"
+    return done if built.rendered is None or built.rendered.how != "changed" else f"{done}; {rendered_text(built)}"
+
+
+def rendered_text(built: Built, shown: int = 4) -> str:
+    """What MkDocs rendered: 'every page', or the pages rendered again after an edit, a few of them by name."""
+    from dossier.wording import counted
+
+    rendered = built.rendered
+    if rendered is None:
+        return "nothing rendered"
+    if rendered.how != "changed":
+        runs = f" in {rendered.parts} MkDocs runs on every core" if rendered.how == "parts" else ""
+        return f"rendered every page{runs}"
+    pages = rendered.rendered
+    names = ", ".join(pages[:shown]) + (f" and {len(pages) - shown} more" if len(pages) > shown else "")
+    said = f"re-rendered {counted(len(pages), 'changed page')}" + (f" ({names})" if pages else "")
+    if rendered.removed:
+        said += f", removed {counted(len(rendered.removed), 'page')}"
+    return f"{said}; kept the other {built.pages - len(pages)}"
 
 
 def _failed(error: Exception, target: Path) -> int:

@@ -1,5 +1,9 @@
 """`dossier serve ARCHIVE`: preview the site on this machine and rebuild it when a record or template changes.
 
+A rebuild takes the path `dossier build` takes: unchanged builds come from the build cache and only the pages
+whose Markdown changed are rendered again; each rebuild says which and how long it took. The preview leaves
+out the checklist PDFs (they take a second or more each; `dossier build` writes them).
+
 The site is built into a temporary folder outside the archive and the templates, and the watcher
 ignores hidden folders and caches, so a rebuild never triggers another one. A failed rebuild keeps
 the last good site on show and prints why.
@@ -22,7 +26,7 @@ import click
 from dossier.templates import templates_dir
 
 IGNORED_PARTS = ("__pycache__",)
-POLL_SECONDS = 0.5
+POLL_SECONDS = 0.25  # a save shows within half a second plus the rebuild
 
 
 class Watcher:
@@ -126,7 +130,7 @@ def run_serve(archive: Path, host: str, port: int) -> int:
     from dossier.commands.exits import Exit
 
     def ready(url: str) -> None:
-        click.echo(f"serving {archive} at {url} (Ctrl-C to stop); saving a record or template rebuilds the site", err=True)
+        click.echo(f"serving {archive} at {url} (Ctrl-C to stop); saving a record or template rebuilds the site (without checklist PDFs)", err=True)
 
     try:
         serve(archive, host, port, build=preview_build, on_ready=ready)
@@ -140,7 +144,7 @@ def run_serve(archive: Path, host: str, port: int) -> int:
 
 def preview_build(source: Path, output: Path) -> bool:
     """One build for the preview; on failure say why and keep the last good site."""
-    from dossier.commands.build import build_site
+    from dossier.commands.build import build_site, rendered_text
     from dossier.collect.caches import user_caches
     from dossier.problems import InputError
     from dossier.output.atomic import OutputRefused
@@ -148,7 +152,7 @@ def preview_build(source: Path, output: Path) -> bool:
     from dossier.wording import problem_line
 
     try:
-        built = build_site(source, output, cache=user_caches())
+        built = build_site(source, output, cache=user_caches(pdfs=False))
     except InputError as error:
         click.echo("\n".join(problem_line(problem) for problem in error.problems), err=True)
         click.echo("not rebuilt: put the problems right and save again", err=True)
@@ -160,7 +164,7 @@ def preview_build(source: Path, output: Path) -> bool:
         click.echo(f"cannot write {error.filename or output}: {error.strerror or error}; the preview stays as it was", err=True)
         return False
     if built.replaced:
-        click.echo(f"built {built.pages} pages in {built.seconds:.1f} s", err=True)
+        click.echo(f"built {built.pages} pages in {built.seconds:.1f} s: {rendered_text(built)}", err=True)
     else:
         click.echo(f"no page changed; the preview stays as it was ({built.seconds:.1f} s)", err=True)
     return True

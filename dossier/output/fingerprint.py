@@ -4,15 +4,18 @@ MkDocs' output depends only on the page tree, the configuration, SOURCE_DATE_EPO
 code. When all of these match the fingerprint stamped into the output folder by the last build, and the
 output folder itself is still exactly what that build left, rendering again would give the same bytes, so
 the site is kept as it is. dossier's own code needs no place in the fingerprint: everything it decides
-is already in the page tree and the configuration.
+is already in the page tree and the configuration. Everything else installed is in it (harsher than
+needed: a new version of anything renders every page again).
 """
 
 from __future__ import annotations
 
 import hashlib
+import sys
 from importlib import metadata
 from pathlib import Path
 
+from dossier.collect.code_version import installed_distributions
 from dossier.output.atomic import MARKER, MARKER_TEXT
 
 # Distributions whose code turns the tree into HTML; a new version of any of them means rendering again.
@@ -20,21 +23,40 @@ RENDERERS = ("mkdocs", "mkdocs-material", "markdown", "pymdown-extensions", "pyg
 _FIELDS = ("pages", "site")
 
 
+def file_hashes(root: Path, leave_out: frozenset[str] = frozenset()) -> dict[str, str]:
+    """sha256 (hex) of every file under root by its relative path; top-level names in leave_out skipped."""
+    hashes = {}
+    for path in sorted(p for p in root.rglob("*") if p.is_file() and p.relative_to(root).parts[0] not in leave_out):
+        hashes[path.relative_to(root).as_posix()] = hashlib.sha256(path.read_bytes()).hexdigest()
+    return hashes
+
+
+def digest_of(hashes: dict[str, str]) -> str:
+    """sha256 over every file's relative path and hash, in a fixed order (as folder_digest)."""
+    digest = hashlib.sha256()
+    for path in sorted(hashes):
+        digest.update(path.encode("utf-8") + b"\0")
+        digest.update(bytes.fromhex(hashes[path]))
+    return digest.hexdigest()
+
+
 def folder_digest(root: Path, leave_out: frozenset[str] = frozenset()) -> str:
     """sha256 over every file's relative path and bytes, in a fixed order; top-level names in leave_out skipped."""
-    digest = hashlib.sha256()
-    for path in sorted(p for p in root.rglob("*") if p.is_file() and p.relative_to(root).parts[0] not in leave_out):
-        digest.update(path.relative_to(root).as_posix().encode("utf-8") + b"\0")
-        digest.update(hashlib.sha256(path.read_bytes()).digest())
-    return digest.hexdigest()
+    return digest_of(file_hashes(root, leave_out))
 
 
-def render_inputs(pages: Path, config: Path, epoch: int) -> str:
-    """The fingerprint of one render: the tree, the configuration, the epoch and the renderers' versions."""
+def shared_context(config: str, epoch: int) -> str:
+    """What every page's HTML depends on besides its own Markdown: the configuration (the sidebar is in it), the
+    epoch, the renderers' versions and everything else installed (a template engine, an extension)."""
     digest = hashlib.sha256()
-    for part in (folder_digest(pages), config.read_text(encoding="utf-8"), str(epoch), *map(_version, RENDERERS)):
+    for part in (config, str(epoch), sys.version, *map(_version, RENDERERS), *installed_distributions()):
         digest.update(part.encode("utf-8") + b"\0")
     return digest.hexdigest()
+
+
+def render_inputs(sources: dict[str, str], shared: str) -> str:
+    """The fingerprint of one render: the page tree (by its files' hashes) and the shared context."""
+    return hashlib.sha256(f"{digest_of(sources)}\0{shared}".encode("utf-8")).hexdigest()
 
 
 def _version(distribution: str) -> str:
@@ -44,19 +66,25 @@ def _version(distribution: str) -> str:
         return f"{distribution} absent"
 
 
-def marker_text(site: Path, inputs: str) -> str:
+def marker_text(site_hashes: dict[str, str], inputs: str) -> str:
     """The marker for a freshly rendered site: who wrote it, what it was rendered from, what it holds."""
-    return f"{MARKER_TEXT}pages: {inputs}\nsite: {_site_digest(site)}\n"
+    return f"{MARKER_TEXT}pages: {inputs}\nsite: {digest_of(site_hashes)}\n"
 
 
-def still_current(output: Path, inputs: str) -> bool:
+def site_hashes(output: Path) -> dict[str, str] | None:
+    """The hashes of a site dossier wrote (its marker left out), or None when output is no such site."""
+    if not (output / MARKER).is_file():
+        return None
+    return file_hashes(output, frozenset({MARKER}))
+
+
+def still_current(output: Path, inputs: str, hashes: dict[str, str] | None = None) -> bool:
     """True when output was rendered from these very inputs and nothing in it has changed since."""
     stamped = read_stamp(output / MARKER)
-    return stamped.get("pages") == inputs and stamped.get("site") == _site_digest(output)
-
-
-def _site_digest(site: Path) -> str:
-    return folder_digest(site, frozenset({MARKER}))
+    if stamped.get("pages") != inputs:
+        return False
+    hashes = hashes if hashes is not None else site_hashes(output)
+    return hashes is not None and stamped.get("site") == digest_of(hashes)
 
 
 def read_stamp(marker: Path) -> dict[str, str]:

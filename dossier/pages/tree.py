@@ -99,22 +99,45 @@ class TreeSummary:
     warnings: list[str]  # parts of pages that could not be made (a drawing or checklist failed)
 
 
+@dataclass
+class BuildPages:
+    """What the front pages need of one build whose pages are written: kept with them in the build cache."""
+
+    row: IndexRow
+    pages: int
+    dates: list[datetime.date]
+    warnings: list[str]
+
+
 def write_tree(archive: Archive, root: Path, builds: Iterable[Build] | None = None) -> TreeSummary:
     """Write the page tree under root: each build's pages as it comes, then the archive's front pages.
 
     builds defaults to archive.builds; pass collect.each_build(...) to hold one build in memory at a time.
     """
+    return finish_tree(archive, root, (write_build_pages(root, archive, build) for build in (archive.builds if builds is None else builds)))
+
+
+def write_build_pages(root: Path, archive: Archive, build: Build) -> BuildPages:
+    """One build's pages under root/builds/<id>/ (nothing elsewhere), and what the front pages need of it."""
     writer = TreeWriter(root, archive)
-    rows, dates, warnings = [], [], []
-    for build in archive.builds if builds is None else builds:
-        write_build(writer, archive, build)
-        rows.append(index_row(build))
-        dates.extend(revision.record.date for revision in build.revisions)
-        warnings.extend(_failures(build))
+    write_build(writer, archive, build)
+    dates = [revision.record.date for revision in build.revisions]
+    return BuildPages(index_row(build), writer.pages, dates, _failures(build))
+
+
+def finish_tree(archive: Archive, root: Path, built: Iterable[BuildPages]) -> TreeSummary:
+    """The archive's front pages and assets, once every build's pages are written (as each one comes)."""
+    writer = TreeWriter(root, archive)
+    rows, dates, warnings, pages = [], [], [], 0
+    for build in built:
+        rows.append(build.row)
+        dates.extend(build.dates)
+        warnings.extend(build.warnings)
+        pages += build.pages
     statuses = status_links(rows) + signoff_links(rows)
     _write_front(writer, archive, newest_first(rows), statuses)
     _write_assets(writer)
-    return TreeSummary(writer.pages, rows, statuses, max(dates, default=None), warnings)
+    return TreeSummary(pages + writer.pages, rows, statuses, max(dates, default=None), warnings)
 
 
 def _failures(build: Build) -> list[str]:

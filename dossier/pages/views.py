@@ -60,6 +60,7 @@ class SignoffRow:
     stale: bool
     decisions: list[str]
     notes: str
+    outdated: bool = False  # the record is as it reviewed, but the checks changed the findings since
 
 
 @dataclass(frozen=True)
@@ -71,7 +72,8 @@ class SignoffView:
 
 def signoff_view(state) -> SignoffView:
     rows = [SignoffRow(j.entry.reviewer, j.entry.qualification, j.entry.date.isoformat(), CLEARANCE_WORDS[j.entry.clearance.value],
-                       j.signoff.path.name, j.stale, [decision_text(d) for d in j.entry.decisions if d.decision], j.entry.notes)
+                       j.signoff.path.name, j.stale, [decision_text(d) for d in j.entry.decisions if d.decision], j.entry.notes,
+                       j.outdated is not None)
             for j in sorted(state.signoffs, key=lambda j: (j.entry.date, j.signoff.path.name), reverse=True)]
     return SignoffView(state.state.value, signoff_line(state), rows)
 

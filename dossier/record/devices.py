@@ -107,6 +107,9 @@ class Heatsink(Section):
     rth_sa: ThermalResistance = Field(description="Sink-to-air thermal resistance.")
     touchable: bool = Field(True, description="It can be touched from outside the enclosure.")
     earthed: bool = Field(False, description="It is bonded to protective earth.")
+    contact: Literal["brief", "held"] | None = Field(None, description="How it is touched, for a product standard's touch limit: brief "
+                                                                     "(touched now and then, let go at once) or held (held or touched for longer); "
+                                                                     "left out, held is assumed (the lower limit).")
     outside: bool = Field(False, description="It stands outside the enclosure in the room's air (e.g. fins on the back panel); "
                                              "when false it is taken inside, in the enclosure's warmer air (protection.internal_ambient).")
 

@@ -64,4 +64,4 @@ def winding_problems(rails: list[Rail], magnetics: list):
     for index, rail in enumerate(rails):
         if rail.winding is not None and split_winding(rail.winding) not in known:
             listed = ", ".join(f"{ref} {name}" for ref, name in sorted(known)) or "none: the record lists no magnetics"
-            yield ("rails", index, "winding"), problem("unknown_winding", f"a magnetic's designator and one of its windings ({listed})", repr(rail.winding))
+            yield ("rails", index, "winding"), problem("unknown_rail_winding", f"a magnetic's designator and one of its windings ({listed})", repr(rail.winding))

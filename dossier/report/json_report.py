@@ -99,8 +99,13 @@ def commissioning_json(state: CommissioningState) -> dict:
 
 
 def signoff_json(state) -> dict:
-    """The revision's sign-off state and each sign-off file with whether it is stale."""
+    """The revision's sign-off state and each sign-off file with whether it is stale or its review outdated."""
     files = [{"file": str(j.signoff.path), "reviewer": j.entry.reviewer, "date": j.entry.date.isoformat(),
-              "clearance": j.entry.clearance.value, "stale": j.stale} for j in state.signoffs]
-    return {"state": state.state.value, "signoffs": files}
+              "clearance": j.entry.clearance.value, "stale": j.stale, "outdated": j.outdated is not None} for j in state.signoffs]
+    body = {"state": state.state.value, "signoffs": files}
+    if state.outdated is not None:
+        changed = state.outdated.outdated
+        body["since_review"] = {"new": [{"code": f.code, "subject": f.subject, "verdict": f.verdict.value} for f in changed.unnamed],
+                                "settled": [{"code": d.code, "subject": d.subject} for d in changed.settled]}
+    return body
 

@@ -43,6 +43,10 @@ class SignoffFile(Section):
     qualification: str = Field("", description="The reviewer's standing for this review, e.g. 'qualified electrician'.")
     date: datetime.date = Field(description="Date of the review, YYYY-MM-DD.")
     reviewed_content: str = Field(pattern=DIGEST_PATTERN, description="Digest of the record and its attachments as reviewed; written by `dossier sign-off`.")
+    reviewed_findings: str | None = Field(
+        None, pattern=DIGEST_PATTERN,
+        description="Digest of the findings that needed a decision when the review began (code, subject, verdict and the figures that set it); "
+                    "written by `dossier sign-off`. When a newer dossier's checks change them, the sign-off no longer decides and the revision needs a re-review.")
     decisions: list[Decision] = Field(default_factory=list, description="A decision for each finding that needs one.")
     clearance: Clearance = Field(description="not-cleared, enclosure (cleared to go into its enclosure) or first-power-up (cleared for first power-up).")
     notes: str = Field("", description="Free notes in Markdown.")

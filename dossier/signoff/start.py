@@ -6,9 +6,8 @@ import datetime
 from pathlib import Path
 
 from dossier.markup import yaml_string
-from dossier.signoff.binding import content_digest
 from dossier.reading.archive import signoff_paths
-from dossier.signoff.state import NEEDS_DECISION
+from dossier.signoff.binding import content_digest, findings_digest, needing_decision
 
 HEADER = """\
 # Sign-off of {build} rev {revision}: the human review of this revision's findings.
@@ -19,6 +18,8 @@ HEADER = """\
 #   first-power-up   cleared for first power-up (nothing may block power-up unaccepted)
 # reviewed_content binds this file to the record and attachments as they are now: after any edit the
 # sign-off is stale and its clearance no longer counts. Write a new sign-off for the new content.
+# reviewed_findings binds it to the findings listed below: when newer checks change them, the review is
+# outdated and nothing is cleared until a new sign-off reviews them. Do not edit either digest.
 # CAUTION: mains voltages can kill. This review supports, and does not replace, local codes, the
 # standards and inspection by a licensed, qualified person.
 """
@@ -38,8 +39,9 @@ def signoff_text(loaded, findings, reviewer: str, today: datetime.date) -> str:
     record = loaded.record
     lines = [HEADER.format(build=record.id, revision=record.revision).rstrip("\n"), ""]
     lines += [f"build: {record.id}", f"revision: {record.revision}", f"reviewer: {yaml_string(reviewer)}", 'qualification: ""',
-              f"date: {today.isoformat()}", f"reviewed_content: {content_digest(loaded.path, record.attachments)}"]
-    needing = sorted((f for f in findings if f.verdict in NEEDS_DECISION), key=lambda f: (f.verdict.rank, f.code, f.subject))
+              f"date: {today.isoformat()}", f"reviewed_content: {content_digest(loaded.path, record.attachments)}",
+              f"reviewed_findings: {findings_digest(findings)}"]
+    needing = needing_decision(findings)
     lines.append("decisions:" if needing else "decisions: []")
     for finding in needing:
         lines += [f"  # {finding.verdict.value}: {finding.title}" + ("; blocks power-up" if finding.blocks_power_up else ""),

@@ -11,6 +11,8 @@ bbs.angui.org). The rated impulse voltages (Table 15) are those of IEC 60664-1 T
 - Table 17 (creepage, basic insulation): IEC 60664-1 Table F.5's general columns; reinforced insulation twice.
 - Table 7 (electric strength, clause 16.3): by rated voltage, basic 1 000 / 1 250 V, supplementary 1 750 V,
   reinforced 3 000 V r.m.s.; above 250 V by working voltage U: 1.2 U + 700, 1.2 U + 1 450, 2.4 U + 2 400 V; 1 min.
+- Table 3 (clause 11.8, temperature rises of handles, knobs and grips, metal): 35 K for parts held for short periods
+  only, 30 K for parts held continuously; rises over the room, not temperatures.
 - Clause 27.5: at most 0.1 ohm, the supply cord excluded, at 1.5 times the rated current or 25 A, whichever is
   higher, from a source of no more than 12 V.
 
@@ -21,7 +23,7 @@ from __future__ import annotations
 
 from dossier.standards import iec60664
 from dossier.standards.iec60664 import OutsideTable, up_to_and_including
-from dossier.standards.product import EarthRule, ProductStandard, Requirement, TestVoltage
+from dossier.standards.product import EarthRule, ProductStandard, Requirement, TestVoltage, TouchLimit, TouchLimits
 
 KEY = "iec-60335-1"
 EDITION = 5
@@ -56,7 +58,7 @@ EARTH = EarthRule(
 )
 
 
-def clearance(impulse_v: float, pollution_degree: int, grade: str) -> Requirement:
+def clearance(impulse_v: float, pollution_degree: int, grade: str, **_conditions) -> Requirement:
     """Table 16; reinforced insulation at the next higher step of rated impulse voltage; PD3 at least 0.8 mm."""
     if pollution_degree not in (1, 2, 3):
         raise OutsideTable("IEC 60335-1 Table 16 is read here for pollution degrees 1 to 3 only")
@@ -96,7 +98,7 @@ def creepage(working_v: float, pollution_degree: int, group: str, printed_board:
     return Requirement(basic * factor, table, False, tuple(notes))
 
 
-def test_voltage(grade: str, mains_v: float | None, working_v: float, impulse_v: float) -> TestVoltage:
+def test_voltage(grade: str, mains_v: float | None, working_v: float, impulse_v: float, **_conditions) -> TestVoltage:
     """Table 7 by rated voltage (the mains nominal, or the working voltage without mains); above 250 V by working voltage."""
     kind = "reinforced" if grade in DOUBLED_GRADES else grade if grade == "supplementary" else "basic"
     rated = mains_v if mains_v is not None else working_v
@@ -113,4 +115,9 @@ def _between_rows(value: float, row: float) -> str:
     return f"{value:g} V lies between rows: the next row up, {row:g} V, is used (the harsher reading)"
 
 
-STANDARD = ProductStandard(KEY, EDITION, TITLE, EDITION_TEXT, clearance, creepage, test_voltage, EARTH)
+TOUCH = TouchLimits(
+    brief=TouchLimit(35, True, "Table 3 (clause 11.8), metal handles held for short periods only (from memory)", False),
+    held=TouchLimit(30, True, "Table 3 (clause 11.8), metal handles held continuously (from memory)", False),
+)
+
+STANDARD = ProductStandard(KEY, EDITION, TITLE, EDITION_TEXT, clearance, creepage, test_voltage, EARTH, TOUCH)

@@ -12,6 +12,13 @@ Where each figure was confirmed:
 - Electric strength, clause 5.4.9.1 (from memory): the highest of Table 25 (transients) and Table 27 (temporary
   overvoltages). Reinforced insulation on a 240 V mains at 4 000 V d.c. is confirmed in the same public test report;
   the other figures, the 60 s duration and Table 26 (peak working voltage, not held) are from memory.
+- Touch temperatures of accessible metal parts, Table 38 (TS1; from memory): 60 degC touched briefly (up to about
+  10 s), 48 degC held or touched for longer (up to 8 h: 43 degC is not used, a heatsink is no handle). Public
+  discussion of the table (emc-pstc, 2020) confirms that its limits are absolute, at 25 degC ambient, and one TS1
+  figure (77 degC, plastic), not the metal ones.
+- Electrical energy source classes, clause 5.2.2.2 and Table 4 (steady-state voltage; from memory): ES1 up to 60 V
+  d.c. or 30 V r.m.s., ES2 up to 120 V d.c. or 50 V r.m.s., ES3 above. Between and at the limits the higher class
+  is not taken: a rail exactly at 60 V d.c. is ES1, 60.1 V is ES2.
 - Protective-earth continuity, clause 5.6.6.2 (from memory): at most 0.1 ohm at 200 % of the protective current
   rating for 120 s -- the same rule as IEC 60950-1 clause 2.6.3.4, confirmed in a public transcription of that clause.
 
@@ -22,7 +29,7 @@ from __future__ import annotations
 
 from dossier.standards import iec60664
 from dossier.standards.iec60664 import OutsideTable, up_to_and_including
-from dossier.standards.product import EarthRule, ProductStandard, Requirement, TestVoltage
+from dossier.standards.product import EarthRule, ProductStandard, Requirement, TestVoltage, TouchLimit, TouchLimits
 
 KEY = "iec-62368-1"
 EDITION = 3
@@ -72,7 +79,7 @@ EARTH = EarthRule(
 )
 
 
-def clearance(impulse_v: float, pollution_degree: int, grade: str) -> Requirement:
+def clearance(impulse_v: float, pollution_degree: int, grade: str, **_conditions) -> Requirement:
     """Table 14, entered with the rated impulse voltage (the mains transient voltage) as the required withstand voltage."""
     if pollution_degree not in (1, 2, 3):
         raise OutsideTable("IEC 62368-1 Table 14 gives clearances for pollution degrees 1 to 3 only")
@@ -100,7 +107,7 @@ def creepage(working_v: float, pollution_degree: int, group: str, printed_board:
     return Requirement(basic * factor, table, (row, column) in CONFIRMED_T17, tuple(notes))
 
 
-def test_voltage(grade: str, mains_v: float | None, working_v: float, impulse_v: float) -> TestVoltage:
+def test_voltage(grade: str, mains_v: float | None, working_v: float, impulse_v: float, **_conditions) -> TestVoltage:
     """Clause 5.4.9.1: the highest of Table 25 (transients) and, on a mains barrier, Table 27 (temporary overvoltages)."""
     doubled = grade in DOUBLED_GRADES
     t25_row = _row(TEST_T25, impulse_v, "IEC 62368-1 Table 25 (V peak)")
@@ -135,4 +142,19 @@ def _column_words(column: str) -> str:
     return f"pollution degree {pd[-1]}" + (f", material group {family}" if family else "")
 
 
-STANDARD = ProductStandard(KEY, EDITION, TITLE, EDITION_TEXT, clearance, creepage, test_voltage, EARTH)
+# Table 4 (from memory): class -> highest steady-state voltage, d.c. and a.c. r.m.s.
+ENERGY_CLASSES = (("ES1", {"dc": 60, "ac": 30}), ("ES2", {"dc": 120, "ac": 50}))
+ENERGY_CLASS_ABOVE = "ES3"
+
+
+def energy_class(volts: float, kind: str) -> str:
+    """ES1, ES2 or ES3 for a steady-state voltage (kind 'dc' or 'ac' r.m.s.), by Table 4 (from memory)."""
+    return next((name for name, limits in ENERGY_CLASSES if volts <= limits[kind]), ENERGY_CLASS_ABOVE)
+
+
+TOUCH = TouchLimits(
+    brief=TouchLimit(60, False, "Table 38, TS1, metal touched briefly (from memory)", False),
+    held=TouchLimit(48, False, "Table 38, TS1, metal held or touched for longer (from memory)", False),
+)
+
+STANDARD = ProductStandard(KEY, EDITION, TITLE, EDITION_TEXT, clearance, creepage, test_voltage, EARTH, TOUCH)

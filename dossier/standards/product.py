@@ -10,9 +10,15 @@ from __future__ import annotations
 from dataclasses import dataclass
 from typing import Callable
 
+from dossier.standards.iec60664 import OutsideTable
+
 BASIC_STANDARD = "iec-60664-1"
 BASIC_EDITION = 3
 BASIC_TITLE = "IEC 60664-1 edition 3 (2020)"
+
+
+class TableNotHeld(OutsideTable):
+    """The standard's table for this check could not be confirmed in public material, so dossier holds none."""
 
 
 @dataclass(frozen=True)
@@ -52,12 +58,35 @@ class EarthRule:
 
 
 @dataclass(frozen=True)
+class TouchLimit:
+    """The hottest a touchable metal part may get: an absolute temperature, or a rise over the room."""
+
+    degrees: float
+    rise: bool  # True: kelvin above the room's air; False: degC
+    table: str
+    confirmed: bool
+
+
+@dataclass(frozen=True)
+class TouchLimits:
+    """By contact: 'brief' (touched now and then, let go at once) and 'held' (held or touched for longer)."""
+
+    brief: TouchLimit
+    held: TouchLimit
+
+    def for_contact(self, contact: str) -> TouchLimit:
+        return self.held if contact == "held" else self.brief
+
+
+@dataclass(frozen=True)
 class ProductStandard:
     """A product standard's rules, as the isolation calc uses them.
 
-    clearance(rated impulse V, pollution degree, grade) -> Requirement in mm
+    clearance(rated impulse V, pollution degree, grade, *, working_v, category) -> Requirement in mm
     creepage(working V r.m.s. or d.c., pollution degree, material group, printed board, grade) -> Requirement in mm
-    test_voltage(grade, mains nominal V or None, working V, rated impulse V) -> TestVoltage
+    test_voltage(grade, mains nominal V or None, working V, rated impulse V, *, category) -> TestVoltage
+    Each raises OutsideTable beyond its rows, TableNotHeld where the table could not be confirmed at all.
+    touch: the accessible-part temperature limits for a metal part, by contact, or None where none is held.
     """
 
     key: str
@@ -68,6 +97,7 @@ class ProductStandard:
     creepage: Callable[..., Requirement]
     test_voltage: Callable[..., TestVoltage]
     earth: EarthRule
+    touch: "TouchLimits | None" = None
 
     @property
     def name(self) -> str:

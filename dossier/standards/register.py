@@ -2,10 +2,12 @@
 
 from __future__ import annotations
 
-from dossier.standards import iec60335, iec62368
+from dossier.standards import iec60335, iec61010, iec61558, iec62368
 from dossier.standards.product import BASIC_EDITION, BASIC_STANDARD, ProductStandard
 
-HELD: dict[tuple[str, int], ProductStandard] = {(s.key, s.edition): s for s in (iec62368.STANDARD, iec60335.STANDARD)}
+HELD: dict[tuple[str, int], ProductStandard] = {
+    (s.key, s.edition): s for s in (iec62368.STANDARD, iec60335.STANDARD, iec61010.STANDARD, iec61558.STANDARD)
+}
 
 
 def held_names() -> tuple[str, ...]:

@@ -86,7 +86,7 @@ def test_a_failed_render_leaves_the_previous_site_untouched(site, tmp_path, monk
     def broken(config, epoch):
         raise RenderError("MkDocs failed on purpose")
 
-    monkeypatch.setattr("dossier.commands.build.run_mkdocs", broken)
+    monkeypatch.setattr("dossier.output.incremental.run_mkdocs", broken)
     with pytest.raises(RenderError):
         build_site(DEMO, output, cache=drawing_cache, reuse=False)
     assert tree_digest(output) == before
@@ -202,7 +202,7 @@ def test_a_failed_write_is_a_message_naming_the_path(tmp_path, monkeypatch):
     def disk_full(*args, **kwargs):
         raise OSError(28, "No space left on device", str(tmp_path / "site"))
 
-    monkeypatch.setattr("dossier.commands.build.write_tree", disk_full)
+    monkeypatch.setattr("dossier.commands.build.finish_tree", disk_full)
     result = CliRunner().invoke(main, ["build", str(DEMO), "-o", str(tmp_path / "site"), "--pages-only", "--no-cache"])
     assert result.exit_code == 2
     assert f"cannot write {tmp_path / 'site'}: No space left on device; nothing was replaced" in result.stderr

@@ -4,6 +4,7 @@ from __future__ import annotations
 
 import threading
 from contextlib import contextmanager
+import re
 import time
 import urllib.request
 
@@ -111,3 +112,25 @@ def test_a_port_in_use_is_a_message_not_a_traceback(tmp_path):
         result = CliRunner().invoke(main, ["serve", str(tmp_path / "archive"), "--port", str(port)])
     assert result.exit_code == 2 and "choose another --port" in result.stderr
     assert "Traceback" not in result.output
+
+
+def test_the_preview_renders_only_the_edited_pages_and_says_which(tmp_path, monkeypatch, capsys):
+    from dossier.collect.caches import Caches
+    from dossier.commands.serve import preview_build
+
+    def caches(use_cache=True, pdfs=True):
+        kept = Caches.in_folder(tmp_path / "caches")
+        return kept if pdfs else Caches(kept.drawings, None, kept.builds, kept.renders)
+
+    monkeypatch.setattr("dossier.collect.caches.user_caches", caches)
+    archive = tmp_path / "archive"
+    write_record(archive, "amp")
+    write_record(archive, "psu")
+    assert preview_build(archive, tmp_path / "preview")
+    write_record(archive, "psu", notes="Rewound the transformer.")
+    assert preview_build(archive, tmp_path / "preview")
+    first, second = capsys.readouterr().err.splitlines()[-2:]
+    assert first.startswith("built ") and "rendered every page" in first
+    assert re.fullmatch(r"built \d+ pages in \d+\.\d s: re-rendered \d+ changed pages? \(builds/psu/[^)]*\); kept the other \d+", second), second
+    assert "builds/amp" not in second
+    assert not list((tmp_path / "preview").rglob("*.pdf"))  # the preview leaves the PDFs to `dossier build`

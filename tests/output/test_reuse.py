@@ -31,7 +31,7 @@ class CountingRenderer:
 @pytest.fixture
 def renderer(monkeypatch):
     counting = CountingRenderer()
-    monkeypatch.setattr("dossier.commands.build.run_mkdocs", counting)
+    monkeypatch.setattr("dossier.output.incremental.run_mkdocs", counting)
     return counting
 
 

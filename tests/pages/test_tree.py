@@ -282,3 +282,15 @@ def test_a_hazardous_rail_is_named_on_the_overview_and_in_its_caution(tree):
     assert "Hazardous voltage beyond the mains: rail B+ (up to 427 V DC)" in hazards
     caution = overview.split('!!! dossier-caution "Caution"')[1].split("\n\n\n")[0]
     assert "hazardous voltages beyond the mains: B+ (up to 427 V DC)" in caution
+
+
+def test_rev_c_s_overview_and_checklist_ask_for_a_re_review_after_the_new_checks(tree):
+    # demo: solar-bank-charger rev C was cleared on 2026-06-20; checks added since find its battery cut-off,
+    # absorption timer and C4's capacitance undeclared, so that review is outdated and rev C is not cleared
+    checklist = page(tree, "builds/solar-bank-charger/rev-C/checklist.md")
+    assert "Not cleared for first power-up" in checklist and "Signed off" not in checklist
+    assert "review outdated: the checks changed after signoff-C.yaml" in checklist
+    assert "CHG-HOT-CUTOFF (battery, fail), PROT-TOUCH-CURRENT (touch current, not assessed), RAILS-X-DISCHARGE (X capacitors, not assessed), CHG-TIMER (battery, marginal)" in checklist
+    overview = page(tree, "builds/solar-bank-charger/rev-C/index.md")
+    assert '<span class="dossier-signoff dossier-signoff-review-outdated">' in overview
+    assert "| cleared for first power-up (**outdated**: the checks changed the findings after it) | `signoff-C.yaml` |" in overview

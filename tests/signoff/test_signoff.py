@@ -6,58 +6,22 @@ import datetime
 import json
 
 import pytest
-import yaml
-from click.testing import CliRunner
 
-from dossier.cli import main
 from dossier.plugins import load_calcs
-from dossier.problems import InputError
 from dossier.reading.archive import RevisionFile, load_revision
 from dossier.review import review
-from dossier.signoff.revision import revision_signoffs
 from dossier.signoff.state import ReviewState
 from dossier.wording import problem_line
 from tests.fixtures.bad_input import tried
 from tests.fixtures.demo import ROOT
+from tests.fixtures.signoffs import accept_all, problems_of, run, save, started, state_of
 from tests.fixtures.site_kit import write_record
-
-
-def run(*args):
-    return CliRunner().invoke(main, [str(a) for a in args])
 
 
 @pytest.fixture
 def record(tmp_path):
     # 2.5 mm of reinforced clearance at 230 V, OVC II fails: IEC 60664-1:2020 Table F.2 asks 3.0 mm (4 kV row)
     return write_record(tmp_path / "archive", "amp", "A")
-
-
-def started(record) -> tuple:
-    result = run("sign-off", record, "--reviewer", "Second Member")
-    assert result.exit_code == 0, result.output
-    path = record.parent / "signoff-A.yaml"
-    return path, yaml.safe_load(path.read_text(encoding="utf-8"))
-
-
-def state_of(record):
-    loaded = load_revision(RevisionFile("amp", "A", record))
-    return revision_signoffs(loaded, review(loaded.record, load_calcs()))
-
-
-def problems_of(record) -> list[str]:
-    with pytest.raises(InputError) as raised:
-        state_of(record)
-    return [problem_line(p) for p in raised.value.problems]
-
-
-def save(path, data) -> None:
-    path.write_text(yaml.safe_dump(data, sort_keys=False), encoding="utf-8")
-
-
-def accept_all(data) -> dict:
-    for decision in data["decisions"]:
-        decision.update(decision="accept", reason="measured on the bench", responsible="Second Member")
-    return data
 
 
 def test_a_started_sign_off_lists_every_finding_that_blocks_and_clears_nothing(record):

@@ -174,8 +174,8 @@ def test_ipc2221_uncoated_above_3050_m_is_not_held():
 # --- the register -------------------------------------------------------------------------------------
 
 
-def test_the_register_holds_two_product_standards_and_the_basic_one():
-    assert set(HELD) == {("iec-62368-1", 3), ("iec-60335-1", 5)}
+def test_the_register_holds_four_product_standards_and_the_basic_one():
+    assert set(HELD) == {("iec-62368-1", 3), ("iec-60335-1", 5), ("iec-61010-1", 3), ("iec-61558-1", 3)}
     assert product_standard("iec-60664-1", 3) is None and is_held("iec-60664-1", 3)
     assert not is_held("iec-62368-1", 2)
     assert held_names()[0] == "iec-60664-1 edition 3"

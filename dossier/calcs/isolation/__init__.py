@@ -185,10 +185,10 @@ def creepage_finding(site: Site, inputs: Inputs, clearance_mm: float | None, cho
         group, _ = material_group_of(site.barrier)
     except std.OutsideTable as problem:
         return unsuitable_material(site, str(problem), keys)
-    if clearance_mm is None:
-        return not_assessed(site, "ISO-CREEPAGE", "Creepage", words.NO_CLEARANCE_FLOOR, (*keys, site.key("clearance")), CREEPAGE_SOURCE)
     if chosen.standard is not None:
         return product_creepage_finding(site, inputs, chosen, group, clearance_mm, keys)
+    if clearance_mm is None:
+        return not_assessed(site, "ISO-CREEPAGE", "Creepage", words.NO_CLEARANCE_FLOOR, (*keys, site.key("clearance")), CREEPAGE_SOURCE)
     try:
         need = creepage_need(inputs, site, group, clearance_mm)
     except std.OutsideTable as problem:

@@ -15,7 +15,7 @@ from dossier.citations import IEC_60664_1, IPC_2221
 from dossier.findings import Finding, Measure, Verdict, judge
 from dossier.standards import ipc2221
 from dossier.standards.iec60664 import OutsideTable
-from dossier.standards.product import TestVoltage
+from dossier.standards.product import TableNotHeld, TestVoltage
 from dossier.units import Q_
 
 BASIC_HIPOT_SOURCE = replace(IEC_60664_1, clause=words.BASIC_HIPOT_TABLE + " (from memory)")
@@ -32,20 +32,37 @@ def standard_finding(record, chosen: Chosen) -> Finding:
     basic = replace(IEC_60664_1, clause="the basic standard: Tables F.1, F.2, F.3, F.5, F.8 and A.2")
     sources = (basic,) if chosen.standard is None else (standard_source(chosen.standard, "the tables named in the finding"), basic)
     return finding(code="ISO-STANDARD", subject="product standard", title=words.STANDARD_TITLE, verdict=Verdict.INFO,
-                   values=(standard_measure(chosen),), explanation=words.standard_text(chosen, from_memory, confirmed),
+                   values=(standard_measure(chosen),),
+                   explanation=words.standard_text(chosen, from_memory, confirmed, MISSING.get(_key(chosen), [])),
                    keys=chosen.keys or ((("mains",),) if record.mains is not None else (("barriers",),)), sources=sources)
 
 
+def _key(chosen: Chosen) -> str:
+    return chosen.standard.key if chosen.standard is not None else ""
+
+
+PROVENANCE = {  # standard key -> (confirmed in public material, from memory)
+    "iec-62368-1": (["Table 14 at 2 500 V peak, pollution degree 2 (1.5 mm basic, 3.0 mm reinforced)",
+                     "Table 17 at 250 V, pollution degree 2", "reinforced insulation tested at 4 000 V d.c. on a 240 V mains"],
+                    ["the other rows of Tables 14 and 17", "Tables 25 and 27 (test voltages)", "the 60 s test duration",
+                     "clause 5.6.6.2 (earth)", "Table 38 (touch temperatures of metal parts)"]),
+    "iec-60335-1": ([], ["Tables 16 and 17 (clearance, creepage)", "clause 29.1.4 (reinforced: next impulse step)",
+                         "Table 7 (test voltages)", "clause 27.5 (earth)", "Table 3 (temperature rises of handles)"]),
+    "iec-61558-1": (["Tables 20 and 21 (clearance, creepage) and Table 14 (test voltages), in one public transcription "
+                     "that agrees with IEC 60664-1 where checked"],
+                    ["the 60 s test duration", "the protective-earth rule"]),
+    "iec-61010-1": ([], ["Table 5 (test voltages, category II up to 300 V)", "clause 6.5.2.4 (protective bonding)",
+                         "Table 19 (surface temperatures)"]),
+}
+MISSING = {"iec-61010-1": ["Table 4 and Annex K (clearance and creepage of mains circuits): not found in public material, "
+                           "so clearance and creepage are not assessed under this standard"]}
+
+
 def _provenance_lists(chosen: Chosen) -> tuple[list[str], list[str]]:
-    standard = chosen.standard
-    if standard is None:
+    if chosen.standard is None:
         return (["Tables F.1, F.2, F.3, F.5, F.8 and A.2"], [words.BASIC_HIPOT_TABLE])
-    if standard.key == "iec-62368-1":
-        return (["Table 14 at 2 500 V peak, pollution degree 2 (1.5 mm basic, 3.0 mm reinforced)",
-                 "Table 17 at 250 V, pollution degree 2", "reinforced insulation tested at 4 000 V d.c. on a 240 V mains"],
-                ["the other rows of Tables 14 and 17", "Tables 25 and 27 (test voltages)", "the 60 s test duration", "clause 5.6.6.2 (earth)"])
-    return ([], ["Tables 16 and 17 (clearance, creepage)", "clause 29.1.4 (reinforced: next impulse step)", "Table 7 (test voltages)",
-                 "clause 27.5 (earth)"])
+    confirmed, from_memory = PROVENANCE[chosen.standard.key]
+    return confirmed, from_memory
 
 
 # --- clearance and creepage by the product standard ------------------------------------------------
@@ -57,6 +74,8 @@ def product_clearance_finding(site: Site, inputs: Inputs, chosen: Chosen) -> Fin
     try:
         need = clearance_need(inputs, site.grade)
         clearance = product_clearance(standard, inputs, site, need)
+    except TableNotHeld as problem:
+        return _table_not_held(site, "ISO-CLEARANCE", "Clearance", problem, keys, chosen, Q_(need.required_mm, "mm"))
     except OutsideTable as problem:
         return not_assessed(site, "ISO-CLEARANCE", "Clearance", str(problem), keys, standard_source(standard, "clearance table"))
     declared, required = site.barrier.clearance, Q_(clearance.required_mm, "mm")
@@ -75,17 +94,24 @@ def _clearance_extra(chosen: Chosen, need: ClearanceNeed, clearance) -> tuple[Me
             Measure("altitude factor", Q_(clearance.factor)), Measure("IEC 60664-1 alone", Q_(clearance.basic_standard_mm, "mm")))
 
 
-def product_creepage_finding(site: Site, inputs: Inputs, chosen: Chosen, group: str, clearance_mm: float, keys: tuple) -> Finding:
+def product_creepage_finding(site: Site, inputs: Inputs, chosen: Chosen, group: str, clearance_mm: float | None, keys: tuple) -> Finding:
+    """The product standard's creepage, never less than the required clearance (None: the clearance is not known)."""
     standard = chosen.standard
     keys = (*keys, *chosen.keys)
     try:
-        basic_mm = creepage_need(inputs, site, group, clearance_mm).required_mm
+        basic_mm = creepage_need(inputs, site, group, clearance_mm if clearance_mm is not None else 0.0).required_mm
     except OutsideTable:
         basic_mm = None
     try:
         creepage = product_creepage(standard, inputs, site, group, clearance_mm, basic_mm)
+    except TableNotHeld as problem:
+        basic = Q_(basic_mm, "mm") if basic_mm is not None else None
+        return _table_not_held(site, "ISO-CREEPAGE", "Creepage", problem, keys, chosen, basic)
     except OutsideTable as problem:
         return not_assessed(site, "ISO-CREEPAGE", "Creepage", str(problem), keys, standard_source(standard, "creepage table"))
+    if clearance_mm is None:
+        return not_assessed(site, "ISO-CREEPAGE", "Creepage", words.NO_CLEARANCE_FLOOR, (*keys, site.key("clearance")),
+                            standard_source(standard, "creepage table"))
     declared, required = site.barrier.creepage, Q_(creepage.required_mm, "mm")
     bridged = bridged_slots(site, inputs)
     outcome = verdict(site, declared, required)
@@ -100,6 +126,15 @@ def product_creepage_finding(site: Site, inputs: Inputs, chosen: Chosen, group: 
                    verdict=outcome, values=(Measure("declared creepage", declared),), limit=Measure("required creepage", required),
                    method=words.PRODUCT_CREEPAGE_METHOD, explanation=words.product_creepage_text(site, inputs, standard, creepage)
                    + words.bridged_text(site, bridged), keys=keys, sources=(source,), extra=extra)
+
+
+def _table_not_held(site: Site, code: str, what: str, problem: TableNotHeld, keys: tuple, chosen: Chosen, basic_figure) -> Finding:
+    """The standard's table is not held: not assessed (blocking on a safety barrier), with IEC 60664-1's figure as guidance."""
+    made = not_assessed(site, code, what, str(problem), keys, standard_source(chosen.standard, f"{what.lower()} table (not held)"))
+    extra = (standard_measure(chosen), Measure("table not held", str(problem)))
+    if basic_figure is not None:
+        extra += (Measure("IEC 60664-1 alone (guidance, not this standard's figure)", basic_figure),)
+    return replace(made, explanation=words.table_not_held_text(str(problem), site, chosen.name, basic_figure), extra=extra)
 
 
 # --- electric strength ---------------------------------------------------------------------------
@@ -129,7 +164,7 @@ def _test_voltage(record, site: Site, inputs: Inputs, chosen: Chosen):
     if chosen.standard is None:
         return _basic_test_voltage(site, mains if mains is not None else working), BASIC_HIPOT_SOURCE, "from memory"
     basic_impulse, _ = impulse_voltages(inputs, "basic")
-    test = chosen.standard.test_voltage(site.grade, mains, working, basic_impulse)
+    test = chosen.standard.test_voltage(site.grade, mains, working, basic_impulse, category=inputs.category)
     provenance = "confirmed in public material" if test.confirmed else "from memory"
     return test, standard_source(chosen.standard, f"{test.table} ({provenance})"), provenance
 

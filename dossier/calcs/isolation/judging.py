@@ -7,13 +7,15 @@ from dataclasses import replace
 from dossier.calcs.isolation import words
 from dossier.calcs.isolation.inputs import Site
 from dossier.calcs.shared.finding_kit import maker
-from dossier.citations import IEC_60335_1, IEC_62368_1
+from dossier.citations import IEC_60335_1, IEC_61010_1, IEC_61558_1, IEC_62368_1
 from dossier.findings import Finding, Verdict, judge
 
 NAME = "isolation"
 finding = maker(NAME)
 MARGINAL_WITHIN = 0.10  # dossier's own band: within 10 % of the requirement is marginal
-STANDARD_SOURCES = {"iec-62368-1": IEC_62368_1, "iec-60335-1": IEC_60335_1}
+STANDARD_SOURCES = {
+    "iec-62368-1": IEC_62368_1, "iec-60335-1": IEC_60335_1, "iec-61010-1": IEC_61010_1, "iec-61558-1": IEC_61558_1,
+}
 
 
 def standard_source(standard, clause: str):

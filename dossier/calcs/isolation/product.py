@@ -44,12 +44,13 @@ class ProductCreepage:
 
 def product_clearance(standard: ProductStandard, inputs: Inputs, site: Site, need: ClearanceNeed) -> ProductClearance:
     """The standard's table entered with the rated impulse voltage; Table F.8's steady-state clearance stays a floor."""
-    table = standard.clearance(need.basic_impulse, inputs.pollution_degree, site.grade)
+    table = standard.clearance(need.basic_impulse, inputs.pollution_degree, site.grade,
+                               working_v=inputs.creepage_voltage.to("V").magnitude, category=inputs.category)
     return ProductClearance(table, need.steady_mm, need.factor, need.required_mm)
 
 
-def product_creepage(standard: ProductStandard, inputs: Inputs, site: Site, group: str, clearance_mm: float,
+def product_creepage(standard: ProductStandard, inputs: Inputs, site: Site, group: str, clearance_mm: float | None,
                      basic_standard_mm: float | None) -> ProductCreepage:
     volts = inputs.creepage_voltage.to("V").magnitude
     table = standard.creepage(volts, inputs.pollution_degree, group, site.barrier.printed_board, site.grade)
-    return ProductCreepage(table, clearance_mm, basic_standard_mm)
+    return ProductCreepage(table, clearance_mm or 0.0, basic_standard_mm)

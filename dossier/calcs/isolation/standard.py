@@ -4,8 +4,8 @@ from __future__ import annotations
 
 from dataclasses import dataclass
 
+from dossier.calcs.shared.standard_choice import chosen_product_standard
 from dossier.standards.product import BASIC_TITLE, ProductStandard
-from dossier.standards.register import product_standard
 
 STANDARD_LABEL = "product standard"  # the Measure every standard-dependent finding carries, read by the changes
 
@@ -28,8 +28,4 @@ class Chosen:
 
 def chosen_standard(record, default=None) -> Chosen:
     """The record's own choice, else the archive's default (archive.yaml standard), else IEC 60664-1."""
-    if record.standard is not None:
-        return Chosen(product_standard(record.standard.name, record.standard.edition), "record")
-    if default is not None:
-        return Chosen(product_standard(default.name, default.edition), "archive")
-    return Chosen(None, "default")
+    return Chosen(*chosen_product_standard(record, default))

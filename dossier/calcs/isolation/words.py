@@ -279,6 +279,15 @@ def not_assessed_text(reason: str, site) -> str:
     return why if site.guidance_only else f"{why} {BLOCKS}."
 
 
+def table_not_held_text(reason: str, site, standard_name: str, basic_figure) -> str:
+    guidance = (f" IEC 60664-1 alone would ask {fmt(basic_figure)}, shown for guidance only: the product standard can ask more."
+                if basic_figure is not None else "")
+    fix = (f" Check this barrier against {standard_name} itself and record the result, or name a standard dossier holds the "
+           f"tables of in {STANDARD_KEY}.")
+    text = f"Not assessed: {reason}.{guidance}{fix}"
+    return text if site.guidance_only else f"{text} {BLOCKS}."
+
+
 def no_voltage_text(site, has_mains: bool) -> str:
     sides = " and ".join(site.barrier.between)
     if site.touches_mains and not has_mains:
@@ -317,15 +326,20 @@ HIPOT_CAUTION = ("An electric-strength (hi-pot) test is for trained people with 
                  "its leads checked, the unit unplugged and the area kept clear; follow local codes and licensed practice")
 
 
-def standard_text(chosen, from_memory: list[str], confirmed: list[str]) -> str:
+def standard_text(chosen, from_memory: list[str], confirmed: list[str], missing: list[str] = ()) -> str:
     parts = [f"{chosen.name}: {ORIGIN_WORDS[chosen.origin]}"]
-    if chosen.standard is not None:
+    if chosen.standard is not None and not missing:
         parts.append("clearance, creepage and the electric-strength test voltage of each barrier come from its tables, "
                      "and where they differ from IEC 60664-1 the product standard's figure is taken")
+    elif chosen.standard is not None:
+        parts.append("the electric-strength test voltage and the earth limit come from it; what it holds no table for is "
+                     "not assessed, with IEC 60664-1's figure shown as guidance only")
     if confirmed:
         parts.append("confirmed in public material: " + "; ".join(confirmed))
     if from_memory:
         parts.append("from memory, not confirmed: " + "; ".join(from_memory))
+    if missing:
+        parts.append("not held: " + "; ".join(missing))
     parts.append(f"Name the standard in {STANDARD_KEY}")
     return sentences(parts)
 

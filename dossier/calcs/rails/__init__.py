@@ -4,8 +4,12 @@ current, regulator dissipation, each rectifier's output and peak inverse voltage
 
 from __future__ import annotations
 
+from dataclasses import replace
+from functools import partial
+
 from dossier.calcs.rails import discharge, supply
-from dossier.calcs.rails.hazards import NAME, hazard_finding, hazardous, rail_hazard, voltage_finding
+from dossier.calcs.rails.hazards import NAME, energy_classes, hazard_finding, hazardous, rail_hazard, voltage_finding
+from dossier.calcs.shared.standard_choice import chosen_product_standard
 from dossier.calcs.shared.rail_voltage import rail_voltages
 from dossier.plugins import Calc, CalcResult
 
@@ -15,13 +19,14 @@ DISCHARGE = "RAILS-DISCHARGE"
 HAZARD = "RAILS-HAZARD"
 
 
-def run(record):
+def run(record, default_standard=None):
     voltages = {found.name: found for found in rail_voltages(record)}
+    classes = energy_classes(*chosen_product_standard(record, default_standard))
     findings = []
     for found in voltages.values():
-        findings.append(voltage_finding(found))
+        findings.append(voltage_finding(found, classes))
         if hazardous(found):
-            findings.append(hazard_finding(record, found))
+            findings.append(hazard_finding(record, found, classes))
         findings += discharge.rail_findings(record, found)
         findings += supply.ripple_findings(record, found)
     findings += discharge.x_capacitor_findings(record)
@@ -29,6 +34,11 @@ def run(record):
     findings += supply.stage_findings(record, voltages)
     hazards = tuple(rail_hazard(record, found) for found in voltages.values() if hazardous(found))
     return CalcResult(findings, {HAZARDS: hazards, VOLTAGES: tuple(voltages.values())})
+
+
+def configured(settings):
+    """This calc with the archive's default product standard, which names the energy-source class under IEC 62368-1."""
+    return CALC if settings.standard is None else replace(CALC, run=partial(run, default_standard=settings.standard))
 
 
 CALC = Calc(

@@ -14,6 +14,7 @@ from dossier.calcs.shared.finding_kit import maker
 from dossier.calcs.shared.rail_voltage import RailVoltage
 from dossier.citations import IEC_61140_ELV, IEC_62368_1_ES1
 from dossier.findings import Finding, Measure, Verdict
+from dossier.standards import iec62368
 from dossier.units import Q_
 
 NAME = "rails"
@@ -38,16 +39,35 @@ def hazardous(found: RailVoltage) -> bool:
     return found.worst > SAFE_LIMITS[found.kind]
 
 
-def voltage_finding(found: RailVoltage) -> Finding:
+def energy_classes(standard, origin: str):
+    """Under IEC 62368-1, a function naming a rail's energy-source class; otherwise None (no class is named)."""
+    if standard is None or standard.key != iec62368.KEY:
+        return None
+    return lambda found: iec62368.energy_class(found.worst.to("V").magnitude, found.kind)
+
+
+def _class_parts(found: RailVoltage, classes) -> tuple[tuple, str]:
+    if classes is None:
+        return (), ""
+    named = classes(found)
+    return (Measure(ES_LABEL, named),), " " + words.energy_class(found.name, named)
+
+
+ES_LABEL = "IEC 62368-1 energy source class"
+
+
+def voltage_finding(found: RailVoltage, classes=None) -> Finding:
+    measures, text = _class_parts(found, classes)
     return finding(
         code="RAILS-VOLTAGE", subject=found.name, title=f"Rail {found.name} at its worst case", verdict=Verdict.INFO,
         values=(Measure("worst case (no load, high line)", found.worst),),
-        extra=(Measure("declared (loaded, nominal line)", found.loaded), Measure("no load, nominal line", found.no_load)) + found.measures,
-        method=found.formula, explanation=words.worst_case(found), keys=found.keys, sources=found.sources,
+        extra=(Measure("declared (loaded, nominal line)", found.loaded), Measure("no load, nominal line", found.no_load)) + found.measures + measures,
+        method=found.formula, explanation=words.worst_case(found) + text, keys=found.keys,
+        sources=found.sources + ((IEC_62368_1_ES1,) if classes else ()),
     )
 
 
-def hazard_finding(record, found: RailVoltage) -> Finding:
+def hazard_finding(record, found: RailVoltage, classes=None) -> Finding:
     rail = record.rails[found.index]
     limit = SAFE_LIMITS[found.kind]
     verdict = Verdict.FAIL if rail.accessible else Verdict.INFO
@@ -57,9 +77,9 @@ def hazard_finding(record, found: RailVoltage) -> Finding:
         values=(Measure("worst case (no load, high line)", found.worst),),
         limit=Measure(f"ES1 limit ({found.kind.upper()})", limit), relation="<=",
         method="hazardous when V_worst > 60 V DC or 30 V RMS AC",
-        explanation=words.hazard(found.name, found.worst, limit, rail.accessible),
+        explanation=words.hazard(found.name, found.worst, limit, rail.accessible) + _class_parts(found, classes)[1],
         keys=keys, sources=(IEC_62368_1_ES1, IEC_61140_ELV) + found.sources,
-        extra=(Measure("accessible", "yes" if rail.accessible else "no"),),
+        extra=(Measure("accessible", "yes" if rail.accessible else "no"),) + _class_parts(found, classes)[0],
         guards_hazard=True,
     )
 

@@ -38,6 +38,19 @@ def hazard(name: str, worst, limit, accessible: bool) -> str:
     return text
 
 
+ENERGY_CLASS_WORDS = {
+    "ES1": "ES1, within its limits: no safeguard against shock is needed",
+    "ES2": ("ES2: the hazard limit here stays at ES1 (the harsher reading), since the safeguards an ES2 source allows "
+            "(one basic safeguard towards ordinary persons) are not checked"),
+    "ES3": "ES3: it needs safeguards that keep it from ordinary and instructed persons alike",
+}
+
+
+def energy_class(name: str, named: str) -> str:
+    return (f"Under IEC 62368-1 (clause 5.2.2.2, Table 4; class limits from memory: ES1 to 60 V d.c. or 30 V r.m.s., "
+            f"ES2 to 120 V d.c. or 50 V r.m.s.) rail {name} is {ENERGY_CLASS_WORDS[named]}.")
+
+
 # --- stored energy and discharge ----------------------------------------------------------------------
 
 def energy(name: str, joules) -> str:

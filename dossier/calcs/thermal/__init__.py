@@ -3,12 +3,15 @@
 from __future__ import annotations
 
 from dataclasses import replace
+from functools import partial
 
 from dossier.calcs.thermal import path, tab, words
 from dossier.calcs.thermal.air import air_of
 from dossier.calcs.shared.finding_kit import banded, maker, not_assessed
 from dossier.calcs.shared.margins import margin
 from dossier.calcs.thermal.soak import soak_findings
+from dossier.calcs.thermal.touch import touch_limit
+from dossier.calcs.shared.standard_choice import chosen_product_standard
 from dossier.citations import IEC_61140, IEC_62368_1, MOHAN_POWER_ELECTRONICS
 from dossier.findings import Finding, Measure, Verdict, common_practice
 from dossier.plugins import Calc
@@ -29,14 +32,20 @@ TAB_SOURCES = (
 finding = maker(NAME)
 
 
-def run(record):
+def run(record, default_standard=None):
     findings = []
     for index, device in enumerate(record.devices.semiconductors):
         findings += _junction(record, index, device)
         findings += _pad(record, index, device)
+    standard = chosen_product_standard(record, default_standard)
     for index, heatsink in enumerate(record.devices.heatsinks):
-        findings += _heatsink(record, index, heatsink)
+        findings += _heatsink(record, index, heatsink, standard)
     return findings + soak_findings(record)
+
+
+def configured(settings):
+    """This calc with the archive's default product standard (archive.yaml standard), for its touch limits."""
+    return CALC if settings.standard is None else replace(CALC, run=partial(run, default_standard=settings.standard))
 
 
 # --- junctions ----------------------------------------------------------------------------------
@@ -94,7 +103,7 @@ def _loss_measures(junction) -> tuple[Measure, ...]:
 
 # --- heatsinks ----------------------------------------------------------------------------------
 
-def _heatsink(record, index: int, heatsink) -> list[Finding]:
+def _heatsink(record, index: int, heatsink, standard=(None, "default")) -> list[Finding]:
     losses = path.sink_losses(record, heatsink)
     air = air_of(record, heatsink, index)
     ambient = air.temperature
@@ -111,10 +120,11 @@ def _heatsink(record, index: int, heatsink) -> list[Finding]:
     if not heatsink.touchable:
         return [finding(**common, verdict=Verdict.INFO, explanation=f"{text}{words.UNTOUCHABLE} {words.air(air)}",
                         sources=(MOHAN_POWER_ELECTRONICS,) + air.sources)]
-    touch = margin(record, "touch_temperature")
-    verdict = Verdict.FAIL if temperature.to("K") > touch.value.to("K") else Verdict.PASS
-    return [finding(**common, verdict=verdict, limit=Measure("touch limit", touch.value), relation="<=",
-                    explanation=f"{text}{words.touch(verdict, touch.from_record)} {words.air(air)}",
+    touch = touch_limit(record, heatsink, index, *standard)
+    verdict = Verdict.FAIL if temperature.to("K") > touch.limit.to("K") else Verdict.PASS
+    common["keys"] = common["keys"] + touch.keys
+    return [finding(**common, verdict=verdict, limit=Measure("touch limit", touch.limit), relation="<=",
+                    explanation=f"{text}{words.touch(verdict, touch.from_record, touch.standard_words)} {words.air(air)}",
                     sources=(MOHAN_POWER_ELECTRONICS, touch.source) + air.sources)]
 
 

@@ -67,9 +67,11 @@ def sink(heatsink, losses) -> str:
 UNTOUCHABLE = " It cannot be touched from outside, so no touch limit applies."
 
 
-def touch(verdict, from_record: bool) -> str:
+def touch(verdict, from_record: bool, standard_words: str = "") -> str:
     text = " It can be touched and runs hotter than the touch limit: guard it, or use a larger sink." if verdict is Verdict.FAIL \
         else " It can be touched and stays under the touch limit."
+    if standard_words:
+        return text + f" {standard_words[:1].upper()}{standard_words[1:]}; the estimate is at the highest ambient, the harsher reading."
     if not from_record:
         text += (" The limit is that of IEC 62368-1 Table 38 for bare metal touched briefly (the figure from memory:"
                  " check the standard and your product standard); the standard measures at 25 degC, this estimate is"

@@ -17,6 +17,8 @@ from dossier.review import Review
 
 IEC_62368 = {"name": "iec-62368-1", "edition": 3}
 IEC_60335 = {"name": "iec-60335-1", "edition": 5}
+IEC_61558 = {"name": "iec-61558-1", "edition": 3}
+IEC_61010 = {"name": "iec-61010-1", "edition": 3}
 BOARD_BARRIER = {"name": "mains to relay coil", "between": ["mains", "output"], "grade": "basic", "material_group": "IIIa",
                  "printed_board": True, "creepage": "1.8 mm", "clearance": "2.0 mm"}
 
@@ -135,4 +137,73 @@ def test_a_standard_or_edition_not_held_is_refused():
     with pytest.raises(ValidationError, match="one of the standards held"):
         record(standard={"name": "iec-62368-1", "edition": 2})
     with pytest.raises(ValidationError):
-        record(standard={"name": "iec-61010-1", "edition": 3})
+        record(standard={"name": "iec-61010-1", "edition": 2})
+
+
+# --- IEC 61558-1 edition 3 (transformers) and IEC 61010-1 edition 3 (test gear) ---------------------------------
+
+
+def test_iec61558_asks_more_creepage_than_iec60664_on_a_board():
+    # 230 V mains -> 250 V (IEC 60664-1 Table F.3). IEC 60664-1:2020 Table F.5 board PD2 column 1.0 mm, raised to the
+    # 1.5 mm clearance: 1.8 mm passes. IEC 61558-1:2017 Table 21 (one public transcription), 300 V row, group IIIa,
+    # PD2: 3.0 mm, no printed-board column: 1.8 mm fails. Table 20, 300 V, category II, PD2: 1.5 mm; 2.0 mm passes.
+    product = by_code(run(record(standard=IEC_61558)))
+    assert by_code(run(record()))["ISO-CREEPAGE"].verdict is Verdict.PASS
+    assert product["ISO-CREEPAGE"].verdict is Verdict.FAIL
+    assert product["ISO-CREEPAGE"].limit.quantity.to("mm").magnitude == pytest.approx(3.0)
+    assert "Table 21, 300 V row, material group IIIa" in product["ISO-CREEPAGE"].explanation
+    assert "250 V lies between rows" in product["ISO-CREEPAGE"].explanation
+    assert product["ISO-CLEARANCE"].verdict is Verdict.PASS
+    assert product["ISO-CLEARANCE"].limit.quantity.to("mm").magnitude == pytest.approx(1.5)
+    assert extra(product["ISO-CLEARANCE"], "table figure provenance") == "confirmed in public material"
+
+
+def test_iec61558_clearance_steps_at_301_v():
+    # A barrier off the mains at 300 V r.m.s. / 301 V r.m.s., category II, PD2, basic: IEC 61558-1:2017 Table 20 gives
+    # 1.5 mm (300 V row) / 3.0 mm (600 V row); 2.0 mm declared passes the first and fails the second
+    def barrier(volts):
+        return {"name": "winding to core", "between": ["primary", "core"], "grade": "basic", "material_group": "I",
+                "working_voltage": volts, "creepage": "8 mm", "clearance": "2.0 mm"}
+    at_300 = by_code(run(record(barrier("300 V"), standard=IEC_61558)))["ISO-CLEARANCE"]
+    at_301 = by_code(run(record(barrier("301 V"), standard=IEC_61558)))["ISO-CLEARANCE"]
+    assert (at_300.verdict, at_301.verdict) == (Verdict.PASS, Verdict.FAIL)
+    assert at_301.limit.quantity.to("mm").magnitude == pytest.approx(3.0)
+
+
+@pytest.mark.parametrize("grade, volts", [("basic", 1500), ("reinforced", 3000)])
+def test_iec61558_hipot_from_table14(grade, volts):
+    # IEC 61558-1:2017 Table 14, 300 V row, category II: 1500 V basic, 3000 V reinforced, a.c. r.m.s.; 60 s from memory
+    hipot = by_code(run(record({**BOARD_BARRIER, "grade": grade, "creepage": "8 mm", "clearance": "6 mm"}, standard=IEC_61558)))["ISO-HIPOT"]
+    assert hipot.value.quantity.to("V").magnitude == pytest.approx(volts)
+    assert "Table 14, 300 V row, overvoltage category II" in hipot.explanation and "60 s duration is from memory" in hipot.explanation
+
+
+def test_iec61010_clearance_and_creepage_are_not_assessed_and_block_power_up():
+    # IEC 61010-1:2010 Table 4 / Annex K not found in public material: not assessed, blocking on a safety barrier,
+    # with what IEC 60664-1:2020 alone asks (Table F.2 PD2 at 2500 V: 1.5 mm) shown as guidance
+    findings = by_code(run(record(standard=IEC_61010)))
+    for code in ("ISO-CLEARANCE", "ISO-CREEPAGE"):
+        assert findings[code].verdict is Verdict.NOT_ASSESSED and findings[code].guards_hazard
+        assert "Table 4" in findings[code].explanation and "blocks power-up" in findings[code].explanation
+    assert "IEC 60664-1 alone would ask 1.5 mm" in findings["ISO-CLEARANCE"].explanation
+    assert "Not held: Table 4 and Annex K" in findings["ISO-STANDARD"].explanation
+    functional = by_code(run(record({**BOARD_BARRIER, "grade": "functional"}, standard=IEC_61010)))
+    assert functional["ISO-CLEARANCE"].verdict is Verdict.INFO
+
+
+def test_iec61010_hipot_and_earth_are_given_from_memory():
+    # IEC 61010-1:2010 Table 5 (from memory): 230 V mains, reinforced: 3000 V a.c. r.m.s. for 5 s; clause 6.5.2.4: 0.1 ohm
+    findings = by_code(run(record({**BOARD_BARRIER, "grade": "reinforced"}, standard=IEC_61010)))
+    hipot = findings["ISO-HIPOT"]
+    assert hipot.value.quantity.to("V").magnitude == pytest.approx(3000) and "for 5 s" in hipot.explanation
+    assert "(from memory)" in hipot.explanation
+    assert findings["ISO-PE-LIMIT"].value.quantity.to("ohm").magnitude == pytest.approx(0.1)
+    assert "6.5.2.4" in findings["ISO-PE-LIMIT"].explanation
+
+
+def test_the_verdict_changes_with_the_standard_across_all_held():
+    # The same board barrier (1.8 mm creepage, group IIIa, PD2, 230 V): passes IEC 60664-1 (printed-board column),
+    # fails IEC 62368-1 (2.5 mm) and IEC 61558-1 (3.0 mm), and is not assessed under IEC 61010-1
+    verdicts = {str(standard): by_code(run(record(standard=standard)))["ISO-CREEPAGE"].verdict
+                for standard in (None, IEC_62368, IEC_61558, IEC_61010)}
+    assert list(verdicts.values()) == [Verdict.PASS, Verdict.FAIL, Verdict.FAIL, Verdict.NOT_ASSESSED]

@@ -216,3 +216,24 @@ def test_every_other_stage_topology_says_what_dossier_checks(kind, topology):
     stages = [{"id": "x", "kind": kind, "name": "Under test", "side": "isolated", "topology": topology}]
     finding = by(rails.run(unit(stages=stages)), "RAILS-STAGE", "Under test")
     assert finding.verdict is Verdict.INFO and finding.explanation
+
+
+# --- IEC 62368-1 energy-source classes -----------------------------------------------------------------------------
+
+@pytest.mark.parametrize("volts, kind, named", [
+    (60, "dc", "ES1"), (60.1, "dc", "ES2"), (120, "dc", "ES2"), (120.1, "dc", "ES3"),  # IEC 62368-1:2018 Table 4 (from memory)
+    (30, "ac", "ES1"), (30.1, "ac", "ES2"), (50, "ac", "ES2"), (50.1, "ac", "ES3"),
+])
+def test_iec62368_energy_class_boundaries(volts, kind, named):
+    from dossier.standards.iec62368 import energy_class
+    assert energy_class(volts, kind) == named
+
+
+def test_each_rail_names_its_class_only_under_iec62368():
+    # B+ worst case 388 V x 1.1 high line: ES3; the hazard limit stays at ES1 (60 V d.c.)
+    plain = rails.run(unit(b_plus()))
+    assert "IEC 62368-1 energy source class" not in {m.label for m in by(plain, "RAILS-VOLTAGE", "B+").extra}
+    classed = rails.run(unit(b_plus(), standard={"name": "iec-62368-1", "edition": 3}))
+    voltage, hazard = by(classed, "RAILS-VOLTAGE", "B+"), by(classed, "RAILS-HAZARD", "B+")
+    assert {m.label: m.quantity for m in voltage.extra}["IEC 62368-1 energy source class"] == "ES3"
+    assert "ES3" in hazard.explanation and hazard.limit.quantity.to("V").magnitude == 60

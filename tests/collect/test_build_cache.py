@@ -1,0 +1,231 @@
+"""The build cache: an unchanged build's pages come from it; anything that can change a finding or a page misses it."""
+
+from __future__ import annotations
+
+import importlib
+import sys
+import zipfile
+
+import pytest
+from click.testing import CliRunner
+
+from dossier.cli import main
+from dossier.collect import code_version
+from dossier.collect.build_store import BuildStore, Entry
+from dossier.collect.caches import Caches
+from dossier.commands.build import build_site
+from tests.fixtures.site_kit import TEST_CALC, copy_demo
+
+PLUGIN = "fakecalc_for_cache_tests"
+PLUGIN_SOURCE = '''
+from dossier.findings import Finding, Measure, Verdict, common_practice
+from dossier.plugins import Calc
+from dossier.units import Q_
+
+LIMIT_MM = {limit}
+
+
+def run(record):
+    yield Finding(code="FAKE-GAP", calc="fakecalc", subject="the unit", title="Fake gap", verdict=Verdict.INFO,
+                  values=(Measure("fake limit", Q_(LIMIT_MM, "mm")),), method="a figure for the tests",
+                  sources=(common_practice("a figure for the tests"),))
+
+
+CALC = Calc(name="fakecalc", title="Fake calc", run=run, summary="A calc for the cache tests.", codes={{"FAKE-GAP": "a fixed figure"}})
+'''
+
+
+@pytest.fixture
+def plugin(tmp_path, monkeypatch):
+    """A calc plugin installed in tmp_path: a package with a distribution's metadata, whose source and version a test may change."""
+    site = tmp_path / "plugins"
+    package = site / PLUGIN
+    package.mkdir(parents=True)
+    (package / "__init__.py").write_text(PLUGIN_SOURCE.format(limit=7), encoding="utf-8")
+    _write_distribution(site, "1.0")
+    monkeypatch.syspath_prepend(str(site))
+    module = importlib.import_module(PLUGIN)
+    code_version.forget()
+    yield module
+    sys.modules.pop(PLUGIN, None)
+    code_version.forget()
+
+
+def _write_distribution(site, version: str) -> None:
+    for old in site.glob("fakecalc_for_cache_tests-*.dist-info"):
+        for path in old.iterdir():
+            path.unlink()
+        old.rmdir()
+    info = site / f"{PLUGIN}-{version}.dist-info"
+    info.mkdir()
+    (info / "METADATA").write_text(f"Metadata-Version: 2.1\nName: {PLUGIN}\nVersion: {version}\n", encoding="utf-8")
+    (info / "top_level.txt").write_text(f"{PLUGIN}\n", encoding="utf-8")
+
+
+@pytest.fixture
+def archive(tmp_path):
+    """The demo archive's three builds, without its ledger."""
+    return copy_demo(tmp_path / "archive")
+
+
+def _pages(archive, tmp_path, calcs, caches: Caches, name: str = "pages"):
+    output = tmp_path / name
+    build_site(archive, output, pages_only=True, calcs=calcs, cache=caches)
+    return output
+
+
+def _caches(tmp_path) -> Caches:
+    caches = Caches.in_folder(tmp_path / "caches")
+    return Caches(caches.drawings, None, caches.builds)
+
+
+def test_an_unchanged_build_comes_from_the_cache_byte_for_byte(archive, tmp_path, plugin, calcs):
+    first = _pages(archive, tmp_path, [*calcs, plugin.CALC], _caches(tmp_path), "first")
+    caches = _caches(tmp_path)
+    second = _pages(archive, tmp_path, [*calcs, plugin.CALC], caches, "second")
+    assert (caches.builds.hits, caches.builds.misses) == (3, 0)
+    assert _files(first) == _files(second)
+
+
+def test_a_changed_calc_source_misses_and_the_new_finding_shows(archive, tmp_path, plugin, calcs):
+    _pages(archive, tmp_path, [*calcs, plugin.CALC], _caches(tmp_path))
+    (tmp_path / "plugins" / PLUGIN / "__init__.py").write_text(PLUGIN_SOURCE.format(limit=9), encoding="utf-8")
+    code_version.forget()  # a new process: the fingerprint is taken once per process
+    changed = importlib.reload(plugin)
+    caches = _caches(tmp_path)
+    output = _pages(archive, tmp_path, [*calcs, changed.CALC], caches, "after")
+    assert (caches.builds.hits, caches.builds.misses) == (0, 3)
+    assert "9 mm" in (output / "builds/rotator-control/calcs.md").read_text(encoding="utf-8")
+
+
+def test_a_new_plugin_version_misses(archive, tmp_path, plugin, calcs):
+    _pages(archive, tmp_path, [*calcs, plugin.CALC], _caches(tmp_path))
+    _write_distribution(tmp_path / "plugins", "1.1")
+    code_version.forget()
+    caches = _caches(tmp_path)
+    _pages(archive, tmp_path, [*calcs, plugin.CALC], caches, "after")
+    assert (caches.builds.hits, caches.builds.misses) == (0, 3)
+
+
+def test_another_set_of_calcs_misses(archive, tmp_path, plugin, calcs):
+    _pages(archive, tmp_path, [*calcs, plugin.CALC], _caches(tmp_path))
+    caches = _caches(tmp_path)
+    _pages(archive, tmp_path, [*calcs, plugin.CALC, TEST_CALC], caches, "after")
+    assert (caches.builds.hits, caches.builds.misses) == (0, 3)
+
+
+def test_a_changed_setting_misses_every_build(archive, tmp_path, plugin, calcs):
+    _pages(archive, tmp_path, [*calcs, plugin.CALC], _caches(tmp_path))
+    (archive / "archive.yaml").write_text("club: Ferncombe Valley Radio and Makers Club\ntitle: Other title\n", encoding="utf-8")
+    caches = _caches(tmp_path)
+    _pages(archive, tmp_path, [*calcs, plugin.CALC], caches, "after")
+    assert (caches.builds.hits, caches.builds.misses) == (0, 3)
+
+
+CHANGES = {
+    "attachment": "solar-bank-charger/photos",
+    "sign-off": "bench-psu-13v8/signoff-B.yaml",
+    "commissioning": "bench-psu-13v8/commissioning-A.yaml",
+    "record": "rotator-control/rev-A.yaml",
+}
+
+
+@pytest.mark.parametrize("change", sorted(CHANGES))
+def test_a_changed_file_in_a_build_misses_that_build_only(archive, tmp_path, plugin, calcs, change):
+    _pages(archive, tmp_path, [*calcs, plugin.CALC], _caches(tmp_path))
+    path = archive / CHANGES[change]
+    if path.is_dir():
+        path = sorted(path.iterdir())[0]
+        path.write_bytes(path.read_bytes() + b"\0")
+    else:
+        path.write_text(path.read_text(encoding="utf-8") + "# saved again\n", encoding="utf-8")
+    caches = _caches(tmp_path)
+    _pages(archive, tmp_path, [*calcs, plugin.CALC], caches, "after")
+    assert (caches.builds.hits, caches.builds.misses) == (2, 1)
+
+
+def test_the_key_follows_every_byte_of_the_build_folder(archive, tmp_path):
+    store = BuildStore(tmp_path / "store")
+    store.prepare(archive, "code", "options")
+    folder = archive / "solar-bank-charger"
+    before = store.key(folder)
+    (folder / "unrelated.txt").write_text("a note left in the folder\n", encoding="utf-8")
+    assert store.key(folder) != before
+    other = BuildStore(tmp_path / "store")
+    other.prepare(archive, "other code", "options")
+    assert other.key(folder) != store.key(folder)
+
+
+def test_a_build_folder_with_a_linked_folder_is_never_cached(archive, tmp_path):
+    (tmp_path / "elsewhere").mkdir()
+    (archive / "rotator-control" / "linked").symlink_to(tmp_path / "elsewhere")
+    store = BuildStore(tmp_path / "store")
+    store.prepare(archive, "code", "options")
+    assert store.key(archive / "rotator-control") is None and store.key(archive / "bench-psu-13v8") is not None
+
+
+def test_no_cache_bypasses_the_store(archive, tmp_path, monkeypatch):
+    monkeypatch.setenv("XDG_CACHE_HOME", str(tmp_path / "user-cache"))
+    output = tmp_path / "pages"
+    command = ["build", str(archive), "-o", str(output), "--pages-only", "--no-pdf"]
+    assert CliRunner().invoke(main, command).exit_code == 0
+    entries = list((tmp_path / "user-cache" / "dossier" / "builds").glob("*/*.zip"))
+    assert len(entries) == 3
+    for entry in entries:
+        _tamper(entry)
+    assert CliRunner().invoke(main, command).exit_code == 0
+    assert "TAMPERED" in (output / "builds/rotator-control/index.md").read_text(encoding="utf-8")  # the cache was used
+    assert CliRunner().invoke(main, [*command, "--no-cache"]).exit_code == 0
+    assert "TAMPERED" not in (output / "builds/rotator-control/index.md").read_text(encoding="utf-8")
+
+
+def test_a_damaged_entry_is_a_miss(archive, tmp_path, plugin, calcs):
+    _pages(archive, tmp_path, [*calcs, plugin.CALC], _caches(tmp_path), "first")
+    for entry in (tmp_path / "caches" / "builds").glob("*/*.zip"):
+        entry.write_bytes(entry.read_bytes()[:100])
+    caches = _caches(tmp_path)
+    _pages(archive, tmp_path, [*calcs, plugin.CALC], caches, "second")
+    assert (caches.builds.hits, caches.builds.misses) == (0, 3)
+
+
+def test_the_store_keeps_to_its_size_by_dropping_the_least_recently_used(tmp_path):
+    import os
+
+    store = BuildStore(tmp_path / "store", limit_bytes=2500)
+    for number in range(4):
+        key = f"{number:02d}" + "0" * 62
+        store.save(key, Entry({"index.md": b"x" * 1000}, {"n": number}))
+        os.utime(store.path(key), ns=(number * 10**9, number * 10**9))
+    store.load("00" + "0" * 62)  # used now: the newest
+    assert store.trim() == 2
+    kept = sorted(path.name[:2] for path in (tmp_path / "store").glob("*/*.zip"))
+    assert kept == ["00", "03"]
+
+
+def test_a_foreign_object_in_an_entry_is_refused(tmp_path):
+    store = BuildStore(tmp_path / "store")
+    key = "ab" + "0" * 62
+    store.save(key, Entry({"index.md": b"x"}, zipfile.ZipFile))  # a class from outside dossier
+    assert store.load(key) is None
+
+
+def _tamper(entry) -> None:
+    with zipfile.ZipFile(entry) as stored:
+        files = {name: stored.read(name) for name in stored.namelist()}
+    if "index.md" in files:
+        files["index.md"] += b"\nTAMPERED\n"
+    with zipfile.ZipFile(entry, "w") as stored:
+        for name, content in files.items():
+            stored.writestr(name, content)
+
+
+def _files(root):
+    return {path.relative_to(root).as_posix(): path.read_bytes() for path in sorted(root.rglob("*")) if path.is_file() and path.name != ".dossier-output"}
+
+
+def test_the_fingerprint_covers_dossier_and_the_plugin_source(plugin, tmp_path):
+    before = code_version.code_fingerprint([plugin.CALC])
+    assert code_version.code_fingerprint([plugin.CALC]) == before  # once per process
+    (tmp_path / "plugins" / PLUGIN / "__init__.py").write_text(PLUGIN_SOURCE.format(limit=7) + "\n# changed\n", encoding="utf-8")
+    code_version.forget()
+    assert code_version.code_fingerprint([plugin.CALC]) != before
