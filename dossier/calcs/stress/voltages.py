@@ -95,17 +95,31 @@ class Voltages:
 
     def feed(self, stage_index: int) -> Feed | None:
         """The windings that feed rectifier stage stage_index: those the rails it delivers name (rails[].winding),
-        else the secondary of the transformer above it in the stage graph (the highest when it has several and no
-        rail names one: the harsher reading). None when no transformer is found above the stage."""
+        else the secondary of the transformer above it in the stage graph (the highest when it has several, or when
+        the stage above lists several transformers, and no rail names one: the harsher reading). None when no
+        transformer is found above the stage."""
         stage = self.record.stages[stage_index]
         named = self._named_windings(stage)
         if named:
             return Feed(tuple(named), "named", tuple(("rails", i, "winding") for i in self._rail_indices(stage)))
         for _, above in upstream(self.record, stage.id):
-            for index, magnetic in enumerate(self.record.magnetics):
-                if magnetic.role in MAIN_TRANSFORMER_ROLES and any(part.ref == magnetic.ref for part in above.parts):
-                    return self._highest_secondary(index, magnetic)
+            listed = [(index, magnetic) for index, magnetic in enumerate(self.record.magnetics)
+                      if magnetic.role in MAIN_TRANSFORMER_ROLES and any(part.ref == magnetic.ref for part in above.parts)]
+            feeds = [feed for feed in (self._highest_secondary(index, magnetic) for index, magnetic in listed) if feed is not None]
+            if len(feeds) == 1:
+                return feeds[0]
+            if feeds:
+                return replace(max(feeds, key=self._feed_peak), how="highest")
         return None
+
+    def _feed_peak(self, feed: Feed):
+        """The no-load peak across a feed's windings in series at high line (0 V when it cannot be worked out)."""
+        rail = self._series_peak(feed, half=False) if len(feed.windings) > 1 else None
+        if rail is None:
+            index, magnetic, winding = feed.windings[0]
+            peaks = self.windings(self.record, magnetic)
+            return peaks[winding.name]["high"].to("V").magnitude if winding.name in peaks else 0.0
+        return rail.voltage.to("V").magnitude
 
     def _rail_indices(self, stage) -> list[int]:
         """The declared rails whose nearest rectifier is this stage."""
@@ -156,7 +170,8 @@ class Voltages:
         feed = self.feed(stage_index) if stage_index is not None else None
         if feed is not None and len(feed.windings) > 1:
             rail = self._series_peak(feed, half)
-            return replace(rail, notes=rail.notes + ("series-assumed",)) if rail is not None and feed.how == "series-assumed" else rail
+            notes = {"series-assumed": ("series-assumed",), "highest": ("highest-winding", "series-assumed")}.get(feed.how, ())
+            return replace(rail, notes=rail.notes + notes) if rail is not None else None
         found = self.secondary(stage_index)
         if found is None:
             return None

@@ -78,7 +78,7 @@ def role_basis(role: str, how: str) -> str:
     return f"role '{role}' ({how}): {ROLE_WORDS[role]}"
 
 
-HIGHEST_WINDING = ("The transformer above this stage has several secondaries and no rail names the one it rectifies, so the "
+HIGHEST_WINDING = ("The stage above this one holds several transformers or secondaries and no rail names the one it rectifies, so the "
                    "highest of them is taken (the harsher reading). Name it in rails[].winding (e.g. 'T1 HT') to make it exact.")
 SERIES_ASSUMED = ("The transformer above this stage has secondaries of equal turns and no rail names the ones it rectifies, "
                   "so they are taken in series across the rectifier, as a split-rail pair is wired (the harsher reading). "

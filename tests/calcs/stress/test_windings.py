@@ -50,12 +50,20 @@ def without_rails(names):
 
 
 def test_a_capacitor_on_the_second_transformers_rail_is_judged_at_that_winding():
-    # C3 sits behind T2's bridge; with no rail declared for it, its worst case is T2's own secondary at high line,
-    # sqrt 2 x 132 V x 83 / 1000 = 15.49 V (turns ratio; bridge output V_pk: ARRL Handbook, power supplies chapter),
-    # not T1's 43 V that fails a 25 V part.
+    # The +12 V relay rail names T2's secondary: the relay supply's rectified rail is that winding's peak at high line,
+    # sqrt 2 x 132 V x 83 / 1000 = 15.49 V (turns ratio; a bridge's output is V_pk: ARRL Handbook, power supplies
+    # chapter), not T1's 43 V that fails a 25 V part.
+    rail = Voltages(record()).rectified("bridge", 5)
+    assert rail.voltage.to("V").magnitude == pytest.approx(math.sqrt(2) * HIGH * 83 / 1000, rel=1e-9)
+    assert one(STRESS, record(), "STRESS-CAPACITOR", "C3").verdict is Verdict.PASS
+
+
+def test_without_a_rail_naming_the_winding_the_highest_transformer_above_is_taken():
+    # Both transformers sit in one stage: with no rail to name T2's winding, the relay supply's reservoir is read at
+    # the highest winding above it (T1's pair, 86 V), the harsher reading, and the finding says which key settles it.
     found = one(STRESS, record(without_rails({"+12 V relay"})), "STRESS-CAPACITOR", "C3")
-    assert stress(found) == pytest.approx(math.sqrt(2) * HIGH * 83 / 1000, rel=1e-9)
-    assert found.verdict is Verdict.PASS
+    assert stress(found) == pytest.approx(2 * math.sqrt(2) * HIGH * 53 / 230, rel=1e-9)
+    assert found.verdict is Verdict.FAIL and "rails[].winding" in found.explanation
 
 
 def test_the_second_transformers_bridge_blocks_its_own_windings_peak():
