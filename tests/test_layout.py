@@ -141,3 +141,46 @@ def circles(graph: dict[str, set[str]]) -> list[list[str]]:
                 if len(group) > 1:
                     found.append(sorted(group))
     return found
+
+
+CALCS = "dossier.calcs."
+SHARED = "shared"
+
+
+def calc_of(module: str) -> str | None:
+    """The calc package a module belongs to ('shared' for what several calcs use), or None outside dossier/calcs."""
+    if not module.startswith(CALCS):
+        return None
+    return module.removeprefix(CALCS).split(".")[0]
+
+
+def calc_crossings(graph: dict[str, set[str]]) -> list[str]:
+    """Imports from one calc's package into another's: a calc may import its own modules and shared/, and shared/
+    imports no calc."""
+    against = []
+    for importer, imported in sorted(graph.items()):
+        own = calc_of(importer)
+        if own is None or importer == "dossier.calcs":
+            continue
+        for target in sorted(imported):
+            theirs = calc_of(target)
+            if theirs is not None and theirs != own and theirs != SHARED and target != "dossier.calcs":
+                against.append(f"{importer} imports {target}")
+    return against
+
+
+def test_no_calc_imports_another_calc(graph):
+    assert calc_crossings(graph) == []
+
+
+def test_a_calc_crossing_is_found():
+    graph = {
+        "dossier.calcs.stress.voltages": {"dossier.calcs.magnetics.voltages", "dossier.calcs.shared.margins", "dossier.units"},
+        "dossier.calcs.shared.rail_rise": {"dossier.calcs.magnetics.figures"},
+        "dossier.calcs.rails.supply": {"dossier.calcs.rails.words"},
+        "dossier.review": {"dossier.calcs.stress"},
+    }
+    assert calc_crossings(graph) == [
+        "dossier.calcs.shared.rail_rise imports dossier.calcs.magnetics.figures",
+        "dossier.calcs.stress.voltages imports dossier.calcs.magnetics.voltages",
+    ]

@@ -2,7 +2,8 @@
 
 from __future__ import annotations
 
-from dossier.calcs.protection.bench import HSE_TEST_BENCH, LAMP_COLD, RCD_TRIP_TIMES, SEPARATION, fed_voltage
+from dossier.calcs.protection.bench import HSE_TEST_BENCH, LAMP_COLD, RCD_TRIP_TIMES, SEPARATION
+from dossier.calcs.shared.variac import fed_voltage
 from dossier.calcs.protection.surge import ESP_SOFT_START
 from dossier.checklist.general import INSULATION_MINIMUM, INSULATION_TEST_VOLTAGE
 from dossier.checklist.items import Item, Origin, Phase, at_least, at_most

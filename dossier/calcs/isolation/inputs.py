@@ -6,6 +6,7 @@ import math
 from dataclasses import dataclass
 
 from dossier.calcs.isolation import words
+from dossier.calcs.shared import variac
 from dossier.standards import iec60664 as std
 from dossier.units import Q_
 
@@ -126,12 +127,17 @@ def _declared(site: Site) -> Working:
 
 
 def _from_mains(record, site: Site) -> Working:
-    nominal = record.mains.nominal
+    """The mains nominal; a variac whose top of scale is above it puts that on its side of any mains barrier (the
+    harsher reading: the record does not say which side of the barrier it feeds)."""
+    raised = variac.raises_mains(record)
+    nominal = record.protection.variac.top_voltage if raised else record.mains.nominal
     volts = nominal.to("V").magnitude
     row, listed = std.rationalised_voltage(volts)
     peak, peak_note = _with_recurring_peak(site, nominal * math.sqrt(2), words.MAINS_PEAK_NOTE)
-    notes = (words.mains_working_note(nominal), words.rationalised_note(volts, row, listed), peak_note)
-    return Working(Q_(row, "V"), peak, notes, (("mains", "nominal"), site.key("working_voltage")) + _peak_key(site), True)
+    first = words.variac_working_note(record.protection.variac.ref, nominal, record.mains.nominal) if raised else words.mains_working_note(nominal)
+    notes = (first, words.rationalised_note(volts, row, listed), peak_note)
+    keys = (("mains", "nominal"), site.key("working_voltage")) + ((variac.VARIAC_KEY,) if raised else ()) + _peak_key(site)
+    return Working(Q_(row, "V"), peak, notes, keys, True)
 
 
 def _peak_only(site: Site) -> Working:

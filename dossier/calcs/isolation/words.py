@@ -48,6 +48,12 @@ def peak_note(peak, how: str, smaller_declared) -> str:
     return note
 
 
+def variac_working_note(ref: str, top, nominal) -> str:
+    return (f"no working voltage declared: the barrier is between mains and another circuit, and variac {ref}'s top of "
+            f"scale {fmt(top)} is above the mains nominal {fmt(nominal)}, so {fmt(top)} r.m.s. is taken (the harsher "
+            f"reading; declare working_voltage to make it exact)")
+
+
 def mains_working_note(nominal) -> str:
     return (f"no working voltage declared: the barrier is between mains and another circuit, so the mains nominal "
             f"{fmt(nominal)} r.m.s. is taken (declare working_voltage, working_dc or working_peak where the barrier "

@@ -4,7 +4,7 @@ from __future__ import annotations
 
 from dossier.calcs.magnetics.barrier import barrier_findings
 from dossier.calcs.magnetics.context import context_of
-from dossier.calcs.magnetics.figures import winding_figures
+from dossier.calcs.shared.winding_figures import winding_figures
 from dossier.calcs.magnetics.flux import choke_findings, core_finding, core_loss_findings, flux_findings, ratio_findings
 from dossier.calcs.magnetics.inputs import input_findings
 from dossier.calcs.magnetics.windings import (

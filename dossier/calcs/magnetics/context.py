@@ -5,16 +5,13 @@ from __future__ import annotations
 from dataclasses import dataclass, replace
 
 from dossier.calcs.shared.finding_kit import maker
-from dossier.calcs.magnetics.bobbin import lay_bobbin
-from dossier.calcs.magnetics.core import CoreGeometry, geometry
+from dossier.calcs.shared.core_geometry import CoreGeometry, geometry
 from dossier.calcs.magnetics.currents import winding_current
-from dossier.calcs.magnetics.fill import Fill, lay
-from dossier.calcs.magnetics.voltages import Drive, drive_of
+from dossier.calcs.shared.winding_fill import Fill
+from dossier.calcs.shared.winding_resistance import hot_temperature, laid
+from dossier.calcs.shared.winding_voltages import Drive, drive_of
 from dossier.citations import MCLYMAN, MOHAN_POWER_ELECTRONICS
-from dossier.record.magnetics import LAMINATED
 from dossier.units import Q_
-
-DEFAULT_HOT = Q_(100, "degC")
 
 MCLYMAN_3 = replace(MCLYMAN, edition="3rd edition, 2004")
 FARADAY = replace(MCLYMAN_3, clause="Faraday's law with waveform factor 4.0 (square) and 4.44 (sine); from memory")
@@ -62,28 +59,18 @@ class Context:
 
 def context_of(record, index: int, magnetic) -> Context:
     drive = drive_of(record, magnetic)
-    hot, hot_basis = _hot(magnetic.core.material)
+    hot, hot_basis = hot_temperature(magnetic.core.material)
     return Context(
         record=record,
         index=index,
         magnetic=magnetic,
         core=geometry(magnetic.core),
         drive=drive,
-        fill=_laid(magnetic.core, magnetic.windings),
+        fill=laid(magnetic.core, magnetic.windings),
         currents=tuple(winding_current(record, magnetic, w, drive) for w in magnetic.windings),
         hot=hot,
         hot_basis=hot_basis,
     )
-
-
-def _laid(core, windings):
-    return lay_bobbin(core, windings) if core.shape in LAMINATED else lay(core, windings)
-
-
-def _hot(material):
-    if material.max_temperature is not None:
-        return material.max_temperature.to("degC"), "the material's maximum temperature"
-    return DEFAULT_HOT, "100 degC taken: the material declares no maximum temperature"
 
 
 _finding = maker("magnetics")

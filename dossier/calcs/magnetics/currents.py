@@ -5,7 +5,7 @@ from __future__ import annotations
 import math
 from dataclasses import dataclass
 
-from dossier.calcs.protection.input import input_current
+from dossier.calcs.shared.input_current import input_current
 
 POWER_ROLES = ("transformer", "mains-transformer")
 

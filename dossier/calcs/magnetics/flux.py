@@ -8,8 +8,8 @@ from dossier.calcs.magnetics.losses import choke_figures, core_loss, flux_swing,
 from dossier.calcs.magnetics.saturation import family_of, rule_for
 from dossier.calcs.magnetics.steel import steel_loss_finding
 
-from dossier.calcs.magnetics.voltages import LINES, winding_voltages
-from dossier.calcs.magnetics.lamination import LAMINATION_SOURCES
+from dossier.calcs.shared.winding_voltages import LINES, winding_voltages
+from dossier.calcs.shared.lamination import LAMINATION_SOURCES
 from dossier.citations import IEC_60205, IGSE
 from dossier.record.magnetics import LAMINATED
 from dossier.findings import Measure, Verdict, common_practice, judge

@@ -4,7 +4,6 @@ from __future__ import annotations
 
 import math
 
-from dossier.standards.copper import MU_0
 from dossier.units import Q_
 
 SINE_FORM = math.pi * math.sqrt(2)  # the '4.44' of the transformer equation
@@ -76,11 +75,6 @@ def temperature_rise(power, surface):
 def inductance(al, turns):
     """L = A_L N^2."""
     return (al * turns**2).to("uH")
-
-
-def al_from_permeability(permeability: float, area, path):
-    """A_L = mu_0 mu_e A_e / l_e (an ungapped core: mu_e = mu_i)."""
-    return (MU_0 * permeability * area / path).to("nH")
 
 
 def stored_energy(inductance_value, current):

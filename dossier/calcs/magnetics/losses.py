@@ -7,6 +7,7 @@ from dataclasses import dataclass
 from dossier.calcs.magnetics import formulas as m
 from dossier.calcs.magnetics.saturation import family_of
 from dossier.calcs.magnetics.steel import steel_loss, uses_specific_loss
+from dossier.calcs.shared.winding_resistance import layout_resistance
 from dossier.standards.copper import REFERENCE_TEMPERATURE, resistance, skin_depth
 from dossier.units import Q_
 
@@ -154,10 +155,7 @@ def _swing_and_shape(ctx):
 
 def winding_resistance(ctx, position: int, temperature=REFERENCE_TEMPERATURE):
     """DC resistance of a whole winding; None when its mean turn length is not known."""
-    winding, layout = ctx.magnetic.windings[position], _layout(ctx, position)
-    if layout is None or layout.mean_turn_length is None:
-        return None
-    return resistance(winding.turns * layout.mean_turn_length, layout.copper_area, temperature)
+    return layout_resistance(ctx.magnetic.windings[position], _layout(ctx, position), temperature)
 
 
 def winding_loss(ctx, position: int):

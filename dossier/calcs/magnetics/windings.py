@@ -10,7 +10,7 @@ from dossier.calcs.magnetics.context import CURRENT_DENSITY, SKIN, TEMPERATURE_R
 from dossier.calcs.magnetics.density import (
     FORCED_AIR_LIMIT, HARSHEST_CLASS, UNSIZED_LIMIT, class_temperature, core_size_limit,
 )
-from dossier.calcs.magnetics.fill import HAND_FILL_LIMIT, wound_surface
+from dossier.calcs.shared.winding_fill import HAND_FILL_LIMIT, wound_surface
 from dossier.calcs.magnetics.losses import copper_losses, core_loss, proximity, winding_loss, winding_resistance
 from dossier.calcs.magnetics.formulas import current_density, temperature_rise
 from dossier.calcs.magnetics.saturation import family_of

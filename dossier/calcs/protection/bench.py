@@ -13,6 +13,7 @@ import math
 
 from dossier.calcs.protection import words
 from dossier.calcs.protection.common import CALC_NAME, finding, measure
+from dossier.calcs.shared.variac import VARIAC_PRACTICE, fed_voltage
 from dossier.calcs.shared.finding_kit import not_assessed
 from dossier.citations import HSE_TEST_BENCHES, IEC_60364_4_41, IEC_61008_1, LAMPTECH_STARTING
 from dossier.findings import Verdict, common_practice
@@ -34,7 +35,6 @@ LAMP_COLD = dataclasses.replace(
     LAMPTECH_STARTING, clause="hot resistance V^2 / P; at switch-on the cold filament draws typically about 14 times the normal current (confirmed)",
 )
 OVERRUN_LAMP = common_practice("a series lamp runs at no more than its rated voltage; overrun it fails open sooner")
-DOWNSTREAM = common_practice("a variac's top of scale sets the voltage of everything it feeds; their ratings are compared with it")
 PERSONAL_LIMIT = Q_(30, "mA")
 DEFAULT_COLD_RATIO = 15.0
 
@@ -53,13 +53,6 @@ def bench_findings(record) -> list:
     if protection.isolating_output is not None:
         found += _isolated(record, protection.isolating_output)
     return found
-
-
-def fed_voltage(record):
-    """(nominal, high line) of what a variac feeds: its top of scale; else the mains."""
-    variac = record.protection.variac
-    nominal = variac.top_voltage if variac is not None else record.mains.nominal
-    return nominal.to("V"), (nominal * (1 + record.mains.tolerance.to("").magnitude)).to("V")
 
 
 def _rcd(rcd):
@@ -111,7 +104,7 @@ def _variac(record, variac):
                    + tuple(measure(f"{name} rating", rating) for name, rating in lower),
                    method="V_top,high = V_top (1 + tolerance); each rating downstream >= V_top",
                    explanation=words.variac_text(variac.ref, nominal, record.mains.nominal, [name for name, _ in lower]),
-                   keys=(("protection", "variac", "top_voltage"),), sources=(DOWNSTREAM,))
+                   keys=(("protection", "variac", "top_voltage"),), sources=(VARIAC_PRACTICE,))
 
 
 def _downstream_ratings(record, nominal) -> list:

@@ -4,7 +4,8 @@ secondary short; and whether the rectifier survives the capacitor-charging surge
     primary        I_fuse <= 2 x I_primary,rated            I_primary,rated = VA / V_nominal (or the primary's declared current)
     secondary short I_sc = V_low / (R_source + R_primary + R_secondary (N_p / N_s)^2), windings hot;
                    I_sc >= 10 I_fuse clears within about 0.3 s, >= 4 I_fuse within about 3 s, below that a thermal fuse must
-    rectifier      pulse I^2 t (N_p / N_s)^2 <= I^2 t rating (or I_FSM^2 t_FSM / 2); peak <= I_FSM
+    rectifier      pulse I^2 t k^2 <= I^2 t rating (or I_FSM^2 t_FSM / 2); peak <= I_FSM, k the share of the primary
+                   pulse its own banks draw, referred to their winding (bridge_scale)
 """
 
 from __future__ import annotations
@@ -14,9 +15,10 @@ import math
 
 from dossier.calcs.protection import words
 from dossier.calcs.protection.common import CALC_NAME, finding, measure
-from dossier.calcs.protection.inrush import cold_pulse
+from dossier.calcs.protection.inrush import cold_pulse, referred_capacitance
 from dossier.calcs.protection.transformer import HOT, mains_transformers, referred, rated_primary_current
 from dossier.calcs.shared.finding_kit import not_assessed
+from dossier.calcs.shared.stage_graph import rectifier_of
 from dossier.citations import IEC_60127_1
 from dossier.findings import Verdict, common_practice, judge
 from dossier.standards.fuses import half_sine_i2t
@@ -124,30 +126,63 @@ def _bridges(record) -> list:
     pulse = cold_pulse(record) if bridges else None
     if pulse is None:
         return []
-    scale = secondary_scale(record)
-    peak, i2t = (pulse.peak * scale).to("A"), (pulse.i2t * scale**2).to("A**2*s")
-    return [_bridge(index, device, peak, i2t, scale) for index, device in bridges]
+    out = []
+    for index, device in bridges:
+        scale, banks = bridge_scale(record, device.ref)
+        out.append(_bridge(index, device, (pulse.peak * scale).to("A"), (pulse.i2t * scale**2).to("A**2*s"), scale, banks))
+    return out
 
 
-def _bridge(index: int, device, peak, i2t, scale: float):
+def bridge_scale(record, ref: str) -> tuple[float, tuple]:
+    """(how much of the primary pulse, referred to the secondary, one diode of bridge ref carries; the banks it charges).
+
+    Every bank charges in the same time constant, so bank k draws the share C_k,ref / C_ref of the primary pulse,
+    and on its winding that share times V_pri,pk / V_k (C_k,ref = C_k (V_k / V_pri,pk)^2). A bridge feeding a + and
+    a - bank from its centre charges each through its own diodes: the worst diode carries the larger polarity's sum.
+    Banks are tied to the bridge through their rail (secondary_banks[].name = rails[].name, the rail's stage and the
+    rectifier above it); when none is, the whole pulse at the lowest bank's ratio (the harsher reading)."""
+    banks = [(bank, polarity) for bank, polarity, bridge in _bank_bridges(record) if ref in bridge]
+    total = referred_capacitance(record)
+    if not banks or total is None or total.magnitude <= 0:
+        return secondary_scale(record), ()
+    crest = record.mains.nominal * math.sqrt(2)
+    by_polarity: dict[str, float] = {}
+    for bank, polarity in banks:
+        share = float((bank.capacitance * (bank.voltage / crest) ** 2 / total).to("").magnitude)
+        by_polarity[polarity] = by_polarity.get(polarity, 0.0) + share * float((crest / bank.voltage).to("").magnitude)
+    return max(by_polarity.values()), tuple(bank.name for bank, _ in banks)
+
+
+def _bank_bridges(record):
+    """(bank, its rail's polarity, refs of the bridges in the rectifier above its rail) for each bank tied to a rail."""
+    rails = {rail.name: rail for rail in record.rails}
+    for bank in record.protection.secondary_banks:
+        rail = rails.get(bank.name)
+        found = rectifier_of(record, rail.stage) if rail is not None else None
+        if found is not None:
+            yield bank, rail.polarity, {part.ref for part in found[1].parts}
+
+
+def _bridge(index: int, device, peak, i2t, scale: float, banks: tuple):
     title = "Rectifier surge rating against the charging pulse"
     key = ("devices", "semiconductors", index)
     values = (measure("charging-pulse I^2 t through it", i2t), measure("charging-pulse peak through it", peak), measure("turns-ratio scale", Q_(round(scale, 3))))
+    banks_measure = (measure("banks it charges", ", ".join(banks) if banks else "not tied to a rail: the whole pulse"),)
     if device.surge_current is None and device.surge_i2t is None:
         return finding(code="PROT-BRIDGE-SURGE", subject=device.ref, title=title, verdict=Verdict.INFO, values=values,
                        explanation=words.BRIDGE_UNKNOWN + words.add_text([f"devices.semiconductors[{index}].surge_current (I_FSM) and surge_i2t"]),
-                       keys=(key,), sources=(JEDEC_SURGE,))
+                       keys=(key,), sources=(JEDEC_SURGE,), extra=banks_measure)
     rated, basis = _rated_i2t(device)
     verdict = judge(i2t, rated, "<=")
     over_peak = device.surge_current is not None and peak > device.surge_current
     if verdict is Verdict.PASS and over_peak:
         verdict = Verdict.MARGINAL
-    extra = (measure("I_FSM", device.surge_current),) if device.surge_current is not None else ()
+    extra = ((measure("I_FSM", device.surge_current),) if device.surge_current is not None else ()) + banks_measure
     return finding(code="PROT-BRIDGE-SURGE", subject=device.ref, title=title, verdict=verdict, values=values, extra=extra,
                    limit=measure(f"{device.ref} I^2 t ({basis})", rated), relation="<=",
-                   method="pulse I^2 t x (V_primary,pk / V_bank)^2 <= I^2 t rating (or I_FSM^2 t_FSM / 2); peak <= I_FSM",
-                   explanation=words.bridge_text(device.ref, verdict, over_peak, basis != "declared"),
-                   keys=(key + ("surge_current",), key + ("surge_i2t",), ("protection", "secondary_banks")), sources=(JEDEC_SURGE,))
+                   method="pulse I^2 t x k^2 <= I^2 t rating (or I_FSM^2 t_FSM / 2), k = sum over its banks of one polarity (C_k,ref / C_ref) (V_primary,pk / V_k); peak <= I_FSM",
+                   explanation=words.bridge_text(device.ref, verdict, over_peak, basis != "declared") + words.bridge_banks(banks),
+                   keys=(key + ("surge_current",), key + ("surge_i2t",), ("protection", "secondary_banks"), ("rails",)), sources=(JEDEC_SURGE,))
 
 
 def _rated_i2t(device):

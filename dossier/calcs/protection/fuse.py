@@ -11,7 +11,7 @@ from dossier.calcs.protection.common import (
     PLAUSIBLE_EFFICIENCY, POWER_FACTOR, RUNNING_SOURCES, finding, measure, percent,
 )
 from dossier.calcs.protection.inrush import minimum_melting_i2t, pulse_fits
-from dossier.calcs.protection.input import LEAST, LOAD_MODELS, has_inrush, input_current
+from dossier.calcs.shared.input_current import LEAST, LOAD_MODELS, has_inrush, input_current
 from dossier.calcs.protection.surge import needed_melting_i2t, surge_fits
 from dossier.findings import Verdict, common_practice, judge
 from dossier.standards.fuses import (

@@ -13,7 +13,7 @@ from dossier.calcs.protection.common import (
     FUSEOLOGY_PULSE_CYCLES, FUSEOLOGY_WAVESHAPES, RC_CHARGE, finding, lowered, measure,
     percent,
 )
-from dossier.calcs.protection.input import CAPACITOR_INPUT, input_topology
+from dossier.calcs.shared.input_current import CAPACITOR_INPUT, input_topology
 from dossier.calcs.protection.transformer import mains_transformers, referred
 from dossier.findings import Verdict, common_practice, judge
 from dossier.standards.fuses import (

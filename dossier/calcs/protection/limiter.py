@@ -7,7 +7,7 @@ from dossier.calcs.protection.common import NTC_GUIDES, RC_CHARGE, finding, meas
 from dossier.calcs.shared.mains_lines import high_line_peak
 from dossier.calcs.protection.inrush import MELTING_CURVE, charging_pulse, fuse_melting, referred_capacitance
 from dossier.findings import Source
-from dossier.calcs.protection.input import input_current
+from dossier.calcs.shared.input_current import input_current
 from dossier.findings import Verdict, common_practice, judge
 from dossier.units import Q_
 

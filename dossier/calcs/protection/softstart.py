@@ -12,7 +12,7 @@ from __future__ import annotations
 from dossier.calcs.protection import words
 from dossier.calcs.protection.common import CALC_NAME, RC_CHARGE, finding, measure
 from dossier.calcs.protection.inrush import charging_pulse, referred_capacitance
-from dossier.calcs.protection.input import input_current
+from dossier.calcs.shared.input_current import input_current
 from dossier.calcs.protection.surge import ESP_SOFT_START, magnetising_surge
 from dossier.calcs.protection.transformer import COLD, mains_transformers
 from dossier.calcs.shared.finding_kit import not_assessed

@@ -11,8 +11,8 @@ from __future__ import annotations
 import math
 from dataclasses import dataclass
 
-from dossier.calcs.magnetics.core import geometry
-from dossier.calcs.magnetics.fill import lay
+from dossier.calcs.shared.core_geometry import geometry
+from dossier.calcs.shared.winding_fill import lay
 from dossier.standards.copper import MU_0, resistance
 from dossier.units import Q_
 

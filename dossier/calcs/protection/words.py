@@ -233,10 +233,6 @@ TOPOLOGY_WORDS = {
 }
 
 
-def ratio_out_of_range(key: str, value: float) -> str:
-    return f"{key} between 0 and 100 % (found {value * 100:g} %)"
-
-
 # The switch-on surge
 
 NO_CAPACITOR_INRUSH = ("No capacitance charged at switch-on is declared (protection.bulk_capacitance, or secondary_banks behind a"
@@ -461,6 +457,13 @@ def short_text(ref: str, transformer: str, winding: str, multiple: float, therma
 
 
 BRIDGE_UNKNOWN = "The rectifier's surge rating is not declared, so the charging pulse is not compared with it."
+
+
+def bridge_banks(banks: tuple) -> str:
+    if banks:
+        return f" It carries the pulse of the banks it charges ({', '.join(banks)}), each bank's share of the primary pulse referred to its winding."
+    return (" No secondary bank is tied to it through a rail (secondary_banks[].name the name of a rail this bridge "
+            "feeds), so the whole primary pulse is taken through it at the lowest bank's voltage (the harsher reading).")
 
 
 def bridge_text(ref: str, verdict, over_peak: bool, derived: bool) -> str:

@@ -6,7 +6,8 @@ each rectifier's output and peak inverse voltage, and a word for every stage kin
   d = arccos(1 - V_r / V_pk) / pi        the conduction angle over the ripple period
   P = (V_in,max - V_out) I               a series-pass regulator's pass device at high line
 Rectifiers (output V_o from the winding's peak V_pk; PIV per diode or anode): bridge V_o = V_pk, PIV = V_o;
-centre-tapped V_o = V_pk of one half, PIV = 2 V_o; half-wave V_o = V_pk, PIV = 2 V_o; doubler V_o = 2 V_pk, PIV = V_o.
+centre-tapped V_o = V_pk of one half, PIV = 2 V_o; half-wave V_o = V_pk, PIV = 2 V_o; doubler V_o = 2 V_pk, PIV = V_o;
+a bridge across a centre-tapped winding feeding a + and a - rail V_o = V_pk of one half, PIV = 2 V_o.
 """
 
 from __future__ import annotations
@@ -31,6 +32,7 @@ RIPPLE_PRACTICE = common_practice(
     "capacitor ripple current of a capacitor-input rectifier from rectangular charging pulses over the conduction "
     "angle arccos(1 - V_r / V_pk); real pulses are peakier, so the estimate is low by some tens of per cent (from memory)")
 DIODE_KINDS = ("diode", "schottky", "bridge")
+SPLIT_WORDS = " feeding + and - rails from its centre"
 
 
 # --- ripple -----------------------------------------------------------------------------------------------
@@ -151,6 +153,13 @@ def _stage_info(index, stage, text) -> Finding:
                    verdict=Verdict.INFO, explanation=text, keys=(("stages", index, "topology"),), sources=(ARRL_FILTERS,))
 
 
+def _piv_times(record, topology: str, fed) -> int:
+    """PIV over one rail's output: a bridge whose rails go both ways from its centre (a + and a - rail across a
+    centre-tapped winding or a series pair) blocks the whole winding, twice each rail (ARRL Handbook)."""
+    polarities = {record.rails[v.index].polarity for v in fed}
+    return 2 if topology == "bridge" and polarities == {"positive", "negative"} else PIV_PER_OUTPUT[topology]
+
+
 def _rectifier(record, index, stage, voltages) -> list[Finding]:
     fed = [v for v in voltages.values() if v.kind == "dc" and v.how != "regulated" and (rectifier_of(record, record.rails[v.index].stage) or (None,))[0] == index]
     title = f"Stage '{stage.name}': rectifier output and peak inverse voltage"
@@ -158,12 +167,13 @@ def _rectifier(record, index, stage, voltages) -> list[Finding]:
         return [_stage_info(index, stage, words.no_rectifier_rail(stage.name))]
     rail = max(fed, key=lambda v: v.worst)
     topology = stage.topology_name
-    piv = rail.worst * PIV_PER_OUTPUT[topology]
+    times = _piv_times(record, topology, fed)
+    piv = rail.worst * times
     valve = topology in VALVES
     rated = valve_findings(record, index, stage, rail, piv) if valve else []
     return [finding(code="RAILS-RECTIFIER", subject=stage.name, title=title, verdict=Verdict.INFO,
                     values=(Measure("output, no load, high line", rail.worst), Measure("peak inverse voltage", piv)),
-                    method=f"PIV = {PIV_PER_OUTPUT[topology]} x V_out ({topology}); V_out from rail {rail.name} at its worst case",
+                    method=f"PIV = {times} x V_out ({topology}{SPLIT_WORDS if times != PIV_PER_OUTPUT[topology] else ''}); V_out from rail {rail.name} at its worst case",
                     explanation=words.rectifier(stage.name, topology, rail.worst, piv, valve, bool(valves_in(record, stage))),
                     keys=(("stages", index, "topology"),) + rail.keys + ((("devices", "valves"),) if valve else ()),
                     sources=(ARRL_FILTERS,) + rail.sources)] + rated

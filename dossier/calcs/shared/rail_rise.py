@@ -10,8 +10,8 @@ from __future__ import annotations
 import math
 from dataclasses import dataclass, field
 
-from dossier.calcs.magnetics.figures import winding_figures
-from dossier.calcs.magnetics.voltages import reference_winding
+from dossier.calcs.shared.winding_figures import winding_figures
+from dossier.calcs.shared.winding_voltages import reference_winding
 from dossier.calcs.shared import regulation as r
 from dossier.calcs.shared.stage_graph import between, rectifier_of, upstream
 from dossier.citations import ARRL_FILTERS, SCHADE_RECTIFIER, TRANSFORMER_REGULATION

@@ -13,7 +13,7 @@ from dataclasses import dataclass, field
 
 import math
 
-from dossier.calcs.magnetics.figures import winding_figures
+from dossier.calcs.shared.winding_figures import winding_figures
 from dossier.calcs.shared.rail_rise import winding_rise
 from dossier.calcs.shared.stage_graph import between, rectifier_of
 from dossier.citations import ARRL_FILTERS

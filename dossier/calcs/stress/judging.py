@@ -12,7 +12,10 @@ NAME = "stress"
 MARGINS_KEY = ("devices", "margins")
 finding = maker(NAME)
 # Sentences for the notes a rail carries (voltages.Rail.notes).
-RAIL_NOTES = {"no-load-rise": words.NO_LOAD_RISE, "rail-rise": words.RAIL_RISE, "role-assumed": words.ROLE_ASSUMED}
+RAIL_NOTES = {"no-load-rise": words.NO_LOAD_RISE, "rail-rise": words.RAIL_RISE, "role-assumed": words.ROLE_ASSUMED,
+              "highest-winding": words.HIGHEST_WINDING, "series-assumed": words.SERIES_ASSUMED,
+              "split-unknown": words.SPLIT_UNKNOWN,
+              "variac-top": words.VARIAC_TOP}
 
 
 def rating_finding(code, subject, title, rating, rail: Rail, chosen, stressed: str, key, sources, *,

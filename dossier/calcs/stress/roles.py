@@ -1,9 +1,10 @@
 """What a diode blocks, from its role in its stage's topology.
 
 PIV with the peak V_pk of the AC it rectifies (the mains crest on the mains side, the winding's no-load crest on
-the isolated side) and the input V_in of its stage (The ARRL Handbook, power supplies chapter; Mohan et al.,
+the isolated side: the winding that feeds the diode's stage, found from the stage graph and the rails) and the input V_in of its stage (The ARRL Handbook, power supplies chapter; Mohan et al.,
 switch-mode dc power supplies):
   mains-bridge, bridge  V_pk                        centre-tapped  2 x V_pk of one half = V_pk of the whole
+  (a bridge across a centre-tapped winding feeding + and - rails blocks the whole winding's peak, 2 x V_pk of a half)
   half-wave, doubler    2 x V_pk (capacitor input)  reset          2 x V_in (forward converter, 1:1 reset winding)
   clamp                 what its stage's switch blocks (k x V_in), 2 x V_in for an unknown topology
   freewheel             V_in
@@ -63,7 +64,7 @@ def inverse(voltages: Voltages, index: int, stage, role: str | None) -> Rail | N
         return _from_input(voltages, index, stage, role)
     if role is None:
         return _harshest(voltages, index, stage)
-    peak = voltages.line_peak() if stage.side == "mains" else voltages.winding_peak(half=False)
+    peak = voltages.line_peak(index) if stage.side == "mains" else voltages.winding_peak(half=False, stage_index=index)
     if peak is None:
         return None
     times = PEAK_MULTIPLE[role]
@@ -80,7 +81,7 @@ def _from_input(voltages: Voltages, index: int, stage, role: str) -> Rail | None
 
 def _harshest(voltages: Voltages, index: int, stage) -> Rail | None:
     """Twice the peak of the AC it might rectify, or twice the stage's input, whichever is higher and known."""
-    peak = voltages.line_peak() if stage.side == "mains" else voltages.winding_peak(half=False)
+    peak = voltages.line_peak(index) if stage.side == "mains" else voltages.winding_peak(half=False, stage_index=index)
     # a rectifier's own output is not what feeds it
     supply = None if stage.kind in ("rectifier", "mains-input") else voltages.supply_of(index)
     known = [rail for rail in (peak, supply) if rail is not None]

@@ -78,6 +78,17 @@ def role_basis(role: str, how: str) -> str:
     return f"role '{role}' ({how}): {ROLE_WORDS[role]}"
 
 
+HIGHEST_WINDING = ("The stage above this one holds several transformers or secondaries and no rail names the one it rectifies, so the "
+                   "highest of them is taken (the harsher reading). Name it in rails[].winding (e.g. 'T1 HT') to make it exact.")
+SERIES_ASSUMED = ("The transformer above this stage has secondaries of equal turns and no rail names the ones it rectifies, "
+                  "so they are taken in series across the rectifier, as a split-rail pair is wired (the harsher reading). "
+                  "Name them in rails[].winding to make it exact.")
+SPLIT_UNKNOWN = ("The bridge sits across a centre-tapped winding (or a pair in series), but no plus and minus rails are "
+                 "declared from it, so its centre is not known to be the 0 V: each capacitor is taken at the whole "
+                 "winding's peak (the harsher reading). Declare both rails (rails[] with their stage and polarity) to "
+                 "judge each at the peak of one half.")
+VARIAC_TOP = ("A variac feeds this stage: it is taken at the variac's top of scale (protection.variac.top_voltage) in "
+              "place of the mains nominal, at high line, since its output can exceed its input.")
 ROLE_ASSUMED = ("The record gives no role for this diode (devices.semiconductors[].role, or a role on its stage part), so "
                 "the harshest of the roles its stage allows is taken: twice the peak, as a reset, clamp, half-wave or "
                 "doubler diode would block. Set role to make it exact.")

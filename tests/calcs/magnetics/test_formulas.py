@@ -7,7 +7,7 @@ import math
 import pytest
 
 from dossier.calcs.magnetics import formulas as m
-from dossier.calcs.magnetics.core import effective_from_constants, section_perimeter, toroid_constants
+from dossier.calcs.shared.core_geometry import al_from_permeability, effective_from_constants, section_perimeter, toroid_constants
 from dossier.units import Q_
 
 
@@ -95,7 +95,7 @@ def test_inductance_from_al():
 
 def test_al_from_permeability():
     # A_L = mu_0 mu_i A_e / l_e: mu_i 2000, A_e 100 mm^2, l_e 100 mm -> 4 pi e-7 * 2000 * 1e-3 = 2513 nH.
-    found = m.al_from_permeability(2000, Q_(100, "mm**2"), Q_(100, "mm"))
+    found = al_from_permeability(2000, Q_(100, "mm**2"), Q_(100, "mm"))
     assert found.to("nH").magnitude == pytest.approx(4 * math.pi * 1e-7 * 2000 * 1e-3 * 1e9)
 
 

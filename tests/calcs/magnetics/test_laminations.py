@@ -6,8 +6,8 @@ import pytest
 from tests.calcs.magnetics.test_calc import extra, findings_of, one, variant
 from tests.fixtures.demo import RECORDS, load_test_record
 
-from dossier.calcs.magnetics.core import geometry
-from dossier.calcs.magnetics.lamination import lamination_of, layers_of
+from dossier.calcs.shared.core_geometry import geometry
+from dossier.calcs.shared.lamination import lamination_of, layers_of
 from dossier.findings import Verdict
 from dossier.record.magnetics import Core
 from dossier.units import Q_

@@ -9,7 +9,7 @@ import pytest
 from tests.fixtures.magnetics_records import FERRITE, load, magnetic, measure, one
 
 from dossier.calcs.magnetics import run
-from dossier.calcs.protection.input import input_current
+from dossier.calcs.shared.input_current import input_current
 from dossier.findings import Verdict
 
 STEEL = {"name": "test steel", "family": "silicon-steel", "saturation_flux": "1.6 T", "max_temperature": "120 degC"}

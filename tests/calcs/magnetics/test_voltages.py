@@ -7,7 +7,7 @@ import math
 import pytest
 from tests.fixtures.demo import load_demo, load_test_record
 
-from dossier.calcs.magnetics.voltages import drive_of, winding_voltages
+from dossier.calcs.shared.winding_voltages import drive_of, winding_voltages
 from dossier.calcs.shared.mains_lines import line_peaks
 
 

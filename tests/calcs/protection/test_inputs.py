@@ -10,7 +10,7 @@ from pydantic import ValidationError
 import yaml
 
 from dossier.calcs.protection import CALC, recommended_fuse
-from dossier.calcs.protection.input import crest_factor, pulse_power_factor
+from dossier.calcs.shared.input_current import crest_factor, pulse_power_factor
 from dossier.findings import Verdict
 from dossier.problems import InputError
 from dossier.reading.record import load_record

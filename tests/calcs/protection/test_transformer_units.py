@@ -13,11 +13,11 @@ import math
 import pytest
 import yaml
 
-from dossier.calcs.magnetics.core import effective_from_constants, toroid_constants
+from dossier.calcs.shared.core_geometry import effective_from_constants, toroid_constants
 from dossier.calcs.protection import CALC, recommended_fuse
 from dossier.calcs.protection.bounds import _rated_i2t
 from dossier.calcs.protection.inrush import referred_capacitance
-from dossier.calcs.protection.input import TRANSFORMER_CAPACITOR_INPUT, input_current, input_topology
+from dossier.calcs.shared.input_current import TRANSFORMER_CAPACITOR_INPUT, input_current, input_topology
 from dossier.changes import finding_changes
 from dossier.checklist.sheet import build_checklist
 from dossier.findings import Verdict

@@ -8,8 +8,8 @@ and tape over the bobbin's winding area, the window less the bobbin's wall and f
 
 from __future__ import annotations
 
-from dossier.calcs.magnetics.fill import TAPE_LAYER, Fill, Layout, overall_of, passes, window_share
-from dossier.calcs.magnetics.lamination import lamination_of, layers_of
+from dossier.calcs.shared.winding_fill import TAPE_LAYER, Fill, Layout, overall_of, passes, window_share
+from dossier.calcs.shared.lamination import lamination_of, layers_of
 from dossier.standards.wire import copper_area
 from dossier.units import Q_
 

@@ -15,7 +15,6 @@ import math
 import re
 from dataclasses import dataclass
 
-from dossier.calcs.protection import words
 
 CAPACITOR_INPUT = "capacitor-input"
 TRANSFORMER_CAPACITOR_INPUT = "transformer-capacitor-input"
@@ -144,7 +143,7 @@ def _ratio(quantity, key: str, typical: float, assumed: list[str]) -> float:
         return typical
     value = float(quantity.to("").magnitude)
     if not 0 < value <= 1:
-        assumed.append(words.ratio_out_of_range(key, value))
+        assumed.append(ratio_out_of_range(key, value))
         return typical
     return value
 
@@ -176,3 +175,8 @@ def conduction_angle(power_factor: float) -> float:
 def crest_factor(power_factor: float) -> float:
     """Peak over RMS current of the half-sine pulse train: sqrt(2 pi / angle); sqrt 2 for a sine."""
     return math.sqrt(2 * math.pi / conduction_angle(power_factor))
+
+
+def ratio_out_of_range(key: str, value: float) -> str:
+    """What an assumed-ratio note says when the declared ratio is not between 0 and 1."""
+    return f"{key} between 0 and 100 % (found {value * 100:g} %)"

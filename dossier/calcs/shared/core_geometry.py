@@ -5,8 +5,8 @@ from __future__ import annotations
 import math
 from dataclasses import dataclass
 
-from dossier.calcs.magnetics.formulas import al_from_permeability
-from dossier.calcs.magnetics.lamination import SHAPE_WORDS, lamination_of
+from dossier.standards.copper import MU_0
+from dossier.calcs.shared.lamination import SHAPE_WORDS, lamination_of
 from dossier.units import Q_
 
 
@@ -135,3 +135,8 @@ def _al(core, area, path):
 
 def _readable(al):
     return al.to("uH") if al >= Q_(1, "uH") else al
+
+
+def al_from_permeability(permeability: float, area, path):
+    """A_L = mu_0 mu_e A_e / l_e (an ungapped core: mu_e = mu_i)."""
+    return (MU_0 * permeability * area / path).to("nH")

@@ -3,10 +3,9 @@ regulation and the checklist: one function of the record, so every caller gets t
 
 from __future__ import annotations
 
-from dossier.calcs.magnetics.context import context_of
-from dossier.calcs.magnetics.losses import winding_resistance
-from dossier.calcs.magnetics.voltages import winding_voltages
 from dossier.calcs.shared.regulation import WindingFigures
+from dossier.calcs.shared.winding_resistance import hot_temperature, laid, layout_resistance
+from dossier.calcs.shared.winding_voltages import winding_voltages
 
 
 def winding_figures(record) -> tuple[WindingFigures, ...]:
@@ -15,12 +14,14 @@ def winding_figures(record) -> tuple[WindingFigures, ...]:
 
 
 def _of_magnetic(record, index: int, magnetic):
-    ctx = context_of(record, index, magnetic)
+    fill = laid(magnetic.core, magnetic.windings)
+    hot, _ = hot_temperature(magnetic.core.material)
     peaks = winding_voltages(record, magnetic)
     for position, winding in enumerate(magnetic.windings):
+        layout = fill.layouts[position] if fill else None
         peak = peaks.get(winding.name, {}).get("nominal")
         yield WindingFigures(
             ref=magnetic.ref, magnetic=index, position=position, name=winding.name, role=winding.role, turns=winding.turns,
-            centre_tap=winding.centre_tap, resistance=winding_resistance(ctx, position, ctx.hot), cold=winding_resistance(ctx, position),
-            temperature=ctx.hot, peak=peak, key=ctx.winding_key(position),
+            centre_tap=winding.centre_tap, resistance=layout_resistance(winding, layout, hot), cold=layout_resistance(winding, layout),
+            temperature=hot, peak=peak, key=("magnetics", index, "windings", position),
         )

@@ -10,8 +10,8 @@ from __future__ import annotations
 import math
 from dataclasses import dataclass
 
-from dossier.calcs.magnetics.core import hole_area, section_perimeter, toroid_surface
-from dossier.calcs.magnetics.lamination import lamination_of
+from dossier.calcs.shared.core_geometry import hole_area, section_perimeter, toroid_surface
+from dossier.calcs.shared.lamination import lamination_of
 from dossier.standards.wire import copper_area, overall_diameter
 from dossier.units import Q_
 
