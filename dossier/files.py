@@ -1,9 +1,12 @@
-"""Writing a file whole or not at all: the one way dossier replaces a file it keeps (ledger, caches)."""
+"""Files as dossier keeps them: written whole or not at all (the one way it replaces a file it keeps: ledger,
+caches), and known by their size and hash."""
 
 from __future__ import annotations
 
+import hashlib
 import os
 import tempfile
+from dataclasses import dataclass
 from pathlib import Path
 
 
@@ -27,3 +30,15 @@ def write_whole(path: Path, content: str | bytes) -> Path:
         Path(temporary).unlink(missing_ok=True)
         raise
     return path
+
+
+@dataclass(frozen=True)
+class FileFacts:
+    """A file's size and sha256 (hex): what a tree's list of files keeps, so nobody reads the file again to know it."""
+
+    size: int
+    sha256: str
+
+    @classmethod
+    def of(cls, content: bytes) -> "FileFacts":
+        return cls(len(content), hashlib.sha256(content).hexdigest())

@@ -6,29 +6,33 @@ publication ledger as bytes, the options that change what is written (PDFs or no
 every file in it by name and bytes (records, attachments, sign-offs, commissioning records, anything else).
 A build whose folder holds a link to a folder is never cached: what lies behind it could change unseen.
 
-An entry is one zip file holding the build's files of the page tree and the summary the front pages need,
-written whole (files.write_whole). On a hit the files are unpacked into the tree: an unchanged build costs a
-file copy instead of a review. The store is bounded: past its size, the least recently used entries go.
-A stale finding in a safety review is worse than a slow one, so anything unexpected (a damaged entry, an
-unreadable file) counts as a miss.
+An entry is a folder named by its key: the build's files of the page tree under `pages/`, the list of them
+with their sizes and sha256 (`files.json`), and the summary the front pages need (`summary.pickle`). It is
+made in a scratch folder and renamed into place whole. On a hit the files are placed into the tree as hard
+links where the tree is thrown away after rendering (a site build), else copied: an unchanged build costs a
+link per file instead of a review, and nothing written by the user can reach into the store. The store is
+bounded: past its size, the least recently used entries go. A stale finding in a safety review is worse
+than a slow one, so anything unexpected (a missing or resized file, an unreadable list) counts as a miss.
 """
 
 from __future__ import annotations
 
 import hashlib
 import io
+import json
 import os
 import pickle
-import zipfile
+import shutil
+import tempfile
 from dataclasses import dataclass
 from pathlib import Path
 
-from dossier.files import write_whole
+from dossier.files import FileFacts
 from dossier.ledger import LOCK_FILE
 from dossier.reading.settings import SETTINGS_FILE
 
-STORE_VERSION = "build-pages-1"  # raise when the entry's layout changes
-SUMMARY = ".summary.pickle"
+STORE_VERSION = "build-pages-2"  # raise when the entry's layout changes
+PAGES, FILES, SUMMARY = "pages", "files.json", "summary.pickle"
 DEFAULT_LIMIT_MB = 1024
 LIMIT_VARIABLE = "DOSSIER_CACHE_MB"
 ARCHIVE_FILES = (SETTINGS_FILE, LOCK_FILE)
@@ -37,19 +41,26 @@ _SAFE_MODULES = ("dossier.", "datetime", "builtins", "collections", "copyreg", "
 
 @dataclass
 class Entry:
-    files: dict[str, bytes]  # path inside the build's folder of the page tree -> bytes
+    folder: Path  # the build's files, by their path inside the build's folder of the page tree
+    files: dict[str, FileFacts]
     summary: object  # what the front pages need from the build (pages.tree.BuildPages)
 
 
-class BuildStore:
-    """Finished builds by key, one zip per build, in a folder the caller chooses."""
+class EntryDamaged(Exception):
+    """An entry's files are not what its list says: a miss."""
 
-    def __init__(self, folder: Path, limit_bytes: int | None = None):
+
+class BuildStore:
+    """Finished builds by key, one folder per build, in a folder the caller chooses."""
+
+    def __init__(self, folder: Path, limit_bytes: int | None = None, link: bool = False):
         self.folder = Path(folder)
         self.limit = limit_bytes if limit_bytes is not None else _limit_from_environment()
+        self.link = link  # hard links between the store and the tree: only for a tree that is thrown away
         self.archive_key = ""  # set by prepare() before any build is keyed
         self.hits = 0
         self.misses = 0
+        self.saved = 0
 
     def prepare(self, archive_root: Path, code: str, options: str) -> None:
         """The part of every key shared by the whole archive: the code, the settings, the ledger, the options."""
@@ -74,53 +85,81 @@ class BuildStore:
         return digest.hexdigest()
 
     def path(self, key: str) -> Path:
-        return self.folder / key[:2] / f"{key}.zip"
+        return self.folder / key[:2] / key
 
     def load(self, key: str) -> Entry | None:
-        """The entry, or None (a miss) when there is none or it cannot be read whole."""
-        path = self.path(key)
+        """The entry, or None (a miss) when there is none or its list and summary cannot be read."""
+        folder = self.path(key)
         try:
-            with zipfile.ZipFile(path) as stored:
-                names = [name for name in stored.namelist() if name != SUMMARY]
-                if not all(_inside(name) for name in names):
-                    raise ValueError("an entry names a file outside its build's folder")
-                files = {name: stored.read(name) for name in names}
-                summary = _SafeUnpickler(io.BytesIO(stored.read(SUMMARY))).load()
-            os.utime(path)  # most recently used
+            files = _read_list(folder / FILES)
+            summary = _SafeUnpickler(io.BytesIO((folder / SUMMARY).read_bytes())).load()
+            os.utime(folder / FILES)  # most recently used
         except Exception:  # a damaged, truncated or foreign entry is only a miss
             self.misses += 1
             return None
-        self.hits += 1
-        return Entry(files, summary)
+        return Entry(folder / PAGES, files, summary)
 
-    def save(self, key: str, entry: Entry) -> None:
-        buffer = io.BytesIO()
-        with zipfile.ZipFile(buffer, "w", zipfile.ZIP_STORED) as stored:
-            for name in sorted(entry.files):
-                stored.writestr(name, entry.files[name])
-            stored.writestr(SUMMARY, pickle.dumps(entry.summary, protocol=pickle.HIGHEST_PROTOCOL))
+    def place(self, entry: Entry, target: Path) -> bool:
+        """Put the entry's files under target; False (a miss, target removed) when a file is missing or resized."""
+        try:
+            for name, facts in entry.files.items():
+                destination = target / name
+                destination.parent.mkdir(parents=True, exist_ok=True)
+                self._bring(entry.folder / name, destination)
+                if destination.stat().st_size != facts.size:
+                    raise EntryDamaged(name)
+        except (OSError, EntryDamaged):
+            shutil.rmtree(target, ignore_errors=True)
+            self.misses += 1
+            return False
+        self.hits += 1
+        return True
+
+    def save(self, key: str, source: Path, files: dict[str, FileFacts], summary: object) -> None:
+        """Keep the files listed (found under source) and the summary as the entry for key; a store that cannot be
+        written only costs time, and an entry another build saved first is kept."""
         target = self.path(key)
         try:
             target.parent.mkdir(parents=True, exist_ok=True)
-            write_whole(target, buffer.getvalue())
-        except OSError:  # a cache that cannot be written (read-only, full) only costs time
+            scratch = Path(tempfile.mkdtemp(prefix=".new-", dir=target.parent))
+        except OSError:
+            return
+        try:
+            for name in files:
+                (scratch / PAGES / name).parent.mkdir(parents=True, exist_ok=True)
+                self._bring(source / name, scratch / PAGES / name)
+            (scratch / SUMMARY).write_bytes(pickle.dumps(summary, protocol=pickle.HIGHEST_PROTOCOL))
+            (scratch / FILES).write_text(json.dumps({name: [f.size, f.sha256] for name, f in sorted(files.items())}), encoding="utf-8")
+            os.rename(scratch, target)
+            self.saved += 1
+        except OSError:
             pass
+        finally:
+            shutil.rmtree(scratch, ignore_errors=True)
+
+    def _bring(self, source: Path, destination: Path) -> None:
+        if self.link:
+            try:
+                os.link(source, destination)
+                return
+            except OSError:  # another file system, or links not allowed: copy
+                pass
+        shutil.copyfile(source, destination)
 
     def trim(self) -> int:
         """Remove the least recently used entries until the store fits its limit; how many were removed."""
         entries = []
-        for path in self.folder.glob("*/*.zip"):
+        for listing in self.folder.glob(f"*/*/{FILES}"):
             try:
-                status = path.stat()
-            except OSError:
+                entries.append((listing.stat().st_mtime_ns, _entry_size(listing), listing.parent))
+            except (OSError, ValueError):
                 continue
-            entries.append((status.st_mtime_ns, status.st_size, path))
         total = sum(size for _, size, _ in entries)
         removed = 0
-        for _, size, path in sorted(entries):
+        for _, size, folder in sorted(entries):
             if total <= self.limit:
                 break
-            path.unlink(missing_ok=True)
+            shutil.rmtree(folder, ignore_errors=True)
             total -= size
             removed += 1
         return removed
@@ -139,6 +178,17 @@ def _every_file(folder: Path) -> list[Path]:
                 raise _Uncachable(name)
         found.extend(Path(parent) / name for name in sorted(names))
     return found
+
+
+def _read_list(path: Path) -> dict[str, FileFacts]:
+    listed = json.loads(path.read_text(encoding="utf-8"))
+    if not all(_inside(name) for name in listed):
+        raise ValueError("an entry names a file outside its build's folder")
+    return {name: FileFacts(int(size), str(sha)) for name, (size, sha) in listed.items()}
+
+
+def _entry_size(listing: Path) -> int:
+    return sum(size for size, _ in json.loads(listing.read_text(encoding="utf-8")).values())
 
 
 def _inside(name: str) -> bool:

@@ -22,10 +22,11 @@ from dossier.problems import InputError
 from dossier.output.atomic import check_output, swap_in
 from dossier.collect.caches import user_caches
 from dossier.collect.archive import Archive, open_archive
-from dossier.output.fingerprint import file_hashes, marker_text, render_inputs, shared_context, site_hashes, still_current
-from dossier.output.incremental import Rendered, RenderRecords, render
+from dossier.output.atomic import MARKER
+from dossier.output.fingerprint import archive_inputs, file_hashes, marker_text, read_stamp, render_inputs, shared_context, still_current
+from dossier.output.incremental import Previous, Rendered, RenderRecords, render
 from dossier.output.lock import building, real_output
-from dossier.pages.reuse import each_build_pages
+from dossier.pages.reuse import build_keys, each_build_pages
 from dossier.pages.tree import BuildPages, TreeSummary, finish_tree
 from dossier.render.mkdocs_run import RenderError, source_epoch, write_config
 
@@ -54,24 +55,39 @@ def build_site(archive: Path, output: Path, *, pages_only: bool = False, calcs=N
 
     Builds are reviewed and written one at a time into a work folder beside the output; every problem in
     every file is gathered, and if there is any, the work folder is dropped and nothing is replaced. With
-    reuse, a site already rendered from the same page tree, and untouched since, is kept without rendering.
+    reuse, a site already rendered from the same page tree, and untouched since, is kept without rendering;
+    with the build cache as well, a site built from the very same files, code and settings is kept without
+    writing the tree.
     """
     started = time.perf_counter()
     output = real_output(output)
     check_output(output, archive)
     opened, problems = open_archive(archive, calcs)
+    if cache is not None and cache.builds is not None:
+        cache.builds.link = not pages_only  # the tree of a site is thrown away once rendered
     with building(output) as work:
-        builds = _reported(each_build_pages(opened, problems, work / DOCS, cache, jobs), progress)
+        keys = build_keys(opened, problems, cache)
+        records = RenderRecords(_records_folder(cache))
+        hashes, previous = records.site_in_place(output) if reuse and not pages_only else (None, None)
+        made_from = archive_inputs(cache.builds.archive_key, [(folder.name, key) for folder, key in keys.items()]) if keys.whole() and keys else ""
+        if previous is not None and made_from and previous.archive == made_from and still_current(output, read_stamp(output / MARKER).get("pages", ""), hashes):
+            return _kept(output, previous.outcome, started)
+        builds = _reported(each_build_pages(opened, problems, work / DOCS, cache, jobs, keys), progress)
         tree = finish_tree(opened, work / DOCS, builds)
         if problems:
             raise InputError(problems)
-        if cache is not None and cache.builds is not None:
+        if cache is not None and cache.builds is not None and cache.builds.misses:
             cache.builds.trim()
         if pages_only:
             swap_in(work / DOCS, output)
-        rendered = None if pages_only else _render_and_swap(opened, tree, work, output, announce, reuse, RenderRecords(_records_folder(cache)), jobs)
+        site = _SiteInPlace(output, hashes, previous, records, made_from)
+        rendered = None if pages_only else _render_and_swap(opened, tree, work, site, announce, jobs)
     replaced = pages_only or rendered is not None
     return Built(output, len(tree.rows), tree.pages, time.perf_counter() - started, tree.warnings, replaced, rendered)
+
+
+def _kept(output: Path, outcome: dict, started: float) -> Built:
+    return Built(output, outcome.get("builds", 0), outcome.get("pages", 0), time.perf_counter() - started, list(outcome.get("warnings", [])), replaced=False)
 
 
 def _records_folder(cache) -> Path | None:
@@ -85,24 +101,36 @@ def _reported(builds: Iterator[BuildPages], progress: Callable | None) -> Iterat
         yield build
 
 
-def _render_and_swap(opened: Archive, tree: TreeSummary, work: Path, output: Path, announce, reuse: bool, records: RenderRecords, jobs: int | None) -> Rendered | None:
+@dataclass
+class _SiteInPlace:
+    """The site at output now: its files' hashes (None: no site dossier wrote), the record of its last build, where
+    records are kept, and the fingerprint of the archive this build is made from ("" when it has none)."""
+
+    output: Path
+    hashes: dict[str, str] | None
+    previous: Previous | None
+    records: RenderRecords
+    made_from: str
+
+
+def _render_and_swap(opened: Archive, tree: TreeSummary, work: Path, site: _SiteInPlace, announce, jobs: int | None) -> Rendered | None:
     """Render the tree and put the site in place: only the changed pages when the site in place allows it.
     None when the site in place already is that rendering and was kept."""
     config = write_config(opened.settings, tree, work, DOCS, SITE)
     epoch = source_epoch(tree.newest)
-    sources = file_hashes(work / DOCS)
+    sources = {path: facts.sha256 for path, facts in tree.files.items()}
     shared = shared_context(config.read_text(encoding="utf-8"), epoch)
     inputs = render_inputs(sources, shared)
-    existing = site_hashes(output) if reuse else None
-    if existing is not None and still_current(output, inputs, existing):
+    outcome = {"builds": len(tree.rows), "pages": tree.pages, "warnings": tree.warnings}
+    if site.hashes is not None and still_current(site.output, inputs, site.hashes):
+        site.records.save(site.output, Previous(site.output, shared, sources, site.hashes, site.made_from, outcome))
         return None
-    previous = records.load(output, existing) if reuse else None
     if announce is not None:
-        announce(f"rendering {tree.pages} pages with MkDocs" if previous is None else "rendering the changed pages with MkDocs")
-    rendered = render(config, work / DOCS, work / SITE, epoch, sources, shared, previous, jobs or os.cpu_count() or 1)
-    hashes = file_hashes(work / SITE)
-    swap_in(work / SITE, output, marker_text(hashes, inputs))
-    records.save(shared, sources, hashes)
+        announce(f"rendering {tree.pages} pages with MkDocs" if site.previous is None else "rendering the changed pages with MkDocs")
+    rendered = render(config, work / DOCS, work / SITE, epoch, sources, shared, site.previous, jobs or os.cpu_count() or 1)
+    hashes = rendered.hashes if rendered.hashes is not None else file_hashes(work / SITE)
+    swap_in(work / SITE, site.output, marker_text(hashes, inputs))
+    site.records.save(site.output, Previous(site.output, shared, sources, hashes, site.made_from, outcome))
     return rendered
 
 

@@ -11,6 +11,7 @@ needed: a new version of anything renders every page again).
 from __future__ import annotations
 
 import hashlib
+import os
 import sys
 from importlib import metadata
 from pathlib import Path
@@ -31,6 +32,19 @@ def file_hashes(root: Path, leave_out: frozenset[str] = frozenset()) -> dict[str
     return hashes
 
 
+def file_stats(root: Path, leave_out: frozenset[str] = frozenset()) -> dict[str, tuple[int, int]]:
+    """(size, modification time in ns) of every file under root by its relative path, as file_hashes names them."""
+    stats = {}
+    for folder, _, names in os.walk(root):
+        relative = Path(folder).relative_to(root).as_posix()
+        for name in names:
+            path = name if relative == "." else f"{relative}/{name}"
+            if path.split("/", 1)[0] not in leave_out:
+                status = os.stat(os.path.join(folder, name))
+                stats[path] = (status.st_size, status.st_mtime_ns)
+    return stats
+
+
 def digest_of(hashes: dict[str, str]) -> str:
     """sha256 over every file's relative path and hash, in a fixed order (as folder_digest)."""
     digest = hashlib.sha256()
@@ -48,9 +62,20 @@ def folder_digest(root: Path, leave_out: frozenset[str] = frozenset()) -> str:
 def shared_context(config: str, epoch: int) -> str:
     """What every page's HTML depends on besides its own Markdown: the configuration (the sidebar is in it), the
     epoch, the renderers' versions and everything else installed (a template engine, an extension)."""
-    digest = hashlib.sha256()
-    for part in (config, str(epoch), sys.version, *map(_version, RENDERERS), *installed_distributions()):
-        digest.update(part.encode("utf-8") + b"\0")
+    return hashlib.sha256(f"{config}\0{epoch}\0{renderer_versions()}\0".encode("utf-8")).hexdigest()
+
+
+def renderer_versions() -> str:
+    """Python's and the renderers' versions and everything installed: what shapes the HTML besides the tree."""
+    return "\0".join((sys.version, *map(_version, RENDERERS), *installed_distributions()))
+
+
+def archive_inputs(archive_key: str, build_keys: list[tuple[str, str]]) -> str:
+    """The fingerprint of everything a site is made from, without writing its tree: the build cache's archive
+    key (code, settings, ledger, options), every build folder's key in order, and the renderers."""
+    digest = hashlib.sha256(f"{archive_key}\0{renderer_versions()}\0".encode("utf-8"))
+    for name, key in build_keys:
+        digest.update(f"{name}\0{key}\0".encode("utf-8"))
     return digest.hexdigest()
 
 

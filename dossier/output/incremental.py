@@ -26,10 +26,10 @@ import re
 import shutil
 from dataclasses import dataclass, field
 from pathlib import Path
-from urllib.parse import quote
 
 from dossier.files import write_whole
-from dossier.output.fingerprint import digest_of
+from dossier.output.atomic import MARKER
+from dossier.output.fingerprint import digest_of, file_hashes, file_stats, read_stamp
 from dossier.render import parts
 from dossier.render.mkdocs_run import run_mkdocs
 
@@ -47,41 +47,62 @@ class Rendered:
     rendered: list[str] = field(default_factory=list)  # pages rendered (for "changed")
     removed: list[str] = field(default_factory=list)
     parts: int = 1
+    hashes: dict[str, str] | None = None  # every file of the new site, when known without reading it again
 
 
 @dataclass(frozen=True)
 class Previous:
-    """The site in place and what it was rendered from."""
+    """The site in place and what it was rendered from (the record of its last build)."""
 
     site: Path
     shared: str
     sources: dict[str, str]  # tree file -> sha256
     hashes: dict[str, str]  # site file -> sha256, checked against the files
+    archive: str = ""  # fingerprint.archive_inputs of the archive it was built from, when known
+    outcome: dict = field(default_factory=dict)  # builds, pages and warnings, to say again when it is kept
 
 
 class RenderRecords:
-    """What each site was rendered from, by the digest of the site: a small JSON file per site, the newest few kept."""
+    """What each site was rendered from, by the digest of the site: a small JSON file per site, the newest few kept.
+
+    A record also keeps the size and modification time of every file of the site as it was written, so the site
+    in place is known unchanged by looking at its files rather than reading them; a file that looks otherwise is
+    read and hashed."""
 
     def __init__(self, folder: Path | None):
         self.folder = folder
 
-    def load(self, site: Path, hashes: dict[str, str] | None) -> Previous | None:
-        if self.folder is None or hashes is None:
+    def site_in_place(self, site: Path) -> tuple[dict[str, str] | None, Previous | None]:
+        """The hashes of every file of the site dossier wrote at `site` (None: no such site) and its record."""
+        if not (site / MARKER).is_file():
+            return None, None
+        stats = file_stats(site, frozenset({MARKER}))
+        record = self._read(read_stamp(site / MARKER).get("site", ""))
+        if record is not None and set(record.get("stats", {})) == set(stats):
+            hashes = {path: record["site"][path] if tuple(record["stats"][path]) == stats[path] else _sha256(site / path) for path in stats}
+        else:
+            hashes = file_hashes(site, frozenset({MARKER}))
+        record = record if record is not None and record.get("site") == hashes else self._read(digest_of(hashes))
+        if record is None or record.get("site") != hashes:  # the site holds other files than the ones recorded
+            return hashes, None
+        return hashes, Previous(site, record["shared"], record["sources"], hashes, record.get("archive", ""), record.get("outcome", {}))
+
+    def _read(self, digest: str) -> dict | None:
+        if self.folder is None or not digest:
             return None
         try:
-            record = json.loads((self.folder / f"{digest_of(hashes)}.json").read_text(encoding="utf-8"))
+            return json.loads((self.folder / f"{digest}.json").read_text(encoding="utf-8"))
         except (OSError, ValueError):
             return None
-        if record.get("site") != hashes:  # the site holds other files than the ones recorded
-            return None
-        return Previous(site, record["shared"], record["sources"], hashes)
 
-    def save(self, shared: str, sources: dict[str, str], hashes: dict[str, str]) -> None:
+    def save(self, site: Path, previous: Previous) -> None:
+        """Keep the record of the site now in place at `site` (previous.hashes are its files')."""
         if self.folder is None:
             return
+        record = {"shared": previous.shared, "sources": previous.sources, "site": previous.hashes, "stats": file_stats(site, frozenset({MARKER})), "archive": previous.archive, "outcome": previous.outcome}
         try:
             self.folder.mkdir(parents=True, exist_ok=True)
-            write_whole(self.folder / f"{digest_of(hashes)}.json", json.dumps({"shared": shared, "sources": sources, "site": hashes}))
+            write_whole(self.folder / f"{digest_of(previous.hashes)}.json", json.dumps(record))
             for old in sorted(self.folder.glob("*.json"), key=lambda p: p.stat().st_mtime_ns)[:-RECORDS_KEPT]:
                 old.unlink(missing_ok=True)
         except OSError:  # a cache that cannot be written only costs time
@@ -132,21 +153,23 @@ def _changed_only(config: Path, docs: Path, site: Path, epoch: int, sources: dic
     if old_index is None or not all(_PLAIN_PATH.fullmatch(path) for path in changed):
         raise _NotIncremental()
     replaced = {parts.page_html(path) if parts.is_page(path) else path for path in (*changed, *removed, *copied)}
-    _link_previous(previous, site, replaced | parts.MERGED)
+    linked = _link_previous(previous, site, replaced | parts.MERGED)
     for path in copied:
         (site / path).parent.mkdir(parents=True, exist_ok=True)
         shutil.copyfile(docs / path, site / path)
-    indexes = [_without_pages(old_index, {parts.page_html(path) for path in (*changed, *removed)})]
+    indexes = [old_index.without({parts.page_html(path) for path in (*changed, *removed)})]
     if changed:
         indexes.append(_render_pages(config, docs, site, epoch, changed, previous))
-    order = parts.reading_order(docs)
-    parts.write_search_index(site, parts.merged_index(indexes, order))
-    return Rendered("changed", sorted(changed), sorted(path for path in removed if parts.is_page(path)))
+    parts.write_search_index(site, indexes, parts.reading_order(docs))
+    hashes = {path: linked[path] if path in linked else _sha256(site / path) for path in file_stats(site)}
+    return Rendered("changed", sorted(changed), sorted(path for path in removed if parts.is_page(path)), hashes=hashes)
 
 
-def _link_previous(previous: Previous, site: Path, left_out: set[str]) -> None:
-    """The previous site's files, as hard links where the file system allows (they are never written to)."""
-    for relative in previous.hashes:
+def _link_previous(previous: Previous, site: Path, left_out: set[str]) -> dict[str, str]:
+    """The previous site's files, as hard links where the file system allows (they are never written to);
+    their hashes by path."""
+    linked = {}
+    for relative, sha in previous.hashes.items():
         if relative in left_out:
             continue
         target = site / relative
@@ -155,14 +178,11 @@ def _link_previous(previous: Previous, site: Path, left_out: set[str]) -> None:
             os.link(previous.site / relative, target)
         except OSError:
             shutil.copyfile(previous.site / relative, target)
+        linked[relative] = sha
+    return linked
 
 
-def _without_pages(index: dict, pages: set[str]) -> dict:
-    dropped = {quote(page) for page in pages}
-    return {"config": index["config"], "docs": [entry for entry in index["docs"] if entry["location"].split("#", 1)[0] not in dropped]}
-
-
-def _render_pages(config: Path, docs: Path, site: Path, epoch: int, pages: list[str], previous: Previous) -> dict:
+def _render_pages(config: Path, docs: Path, site: Path, epoch: int, pages: list[str], previous: Previous):
     """Render the pages alone into a folder beside the config; move their HTML into site; their search entries."""
     front, _ = parts.units_of(docs)
     alone = config.parent / "site-changed"

@@ -8,14 +8,14 @@ gives the same bytes, file by file, in the same order.
 from __future__ import annotations
 
 import datetime
-import shutil
-from dataclasses import dataclass
+from dataclasses import dataclass, field
 from functools import partial
 from pathlib import Path
 from typing import Iterable
 
 from dossier import wording
 from dossier.caution import MAINS_CAUTION
+from dossier.files import FileFacts
 from dossier.findings import Verdict
 from dossier.record.identity import STATUS_TITLES
 from dossier.pages import layout
@@ -52,6 +52,7 @@ class TreeWriter:
     def __init__(self, root: Path, archive: Archive):
         self.root = root
         self.pages = 0
+        self.files: dict[str, FileFacts] = {}  # every file written, by its path under root
         self.common = {
             "archive_title": archive.settings.title,
             "settings": archive.settings,
@@ -69,14 +70,14 @@ class TreeWriter:
         self.pages += 1
 
     def text(self, path: str, content: str) -> None:
-        target = self._target(path)
-        target.write_text(content, encoding="utf-8", newline="\n")
+        self.binary(path, content.encode("utf-8"))
 
     def binary(self, path: str, content: bytes) -> None:
         self._target(path).write_bytes(content)
+        self.files[path] = FileFacts.of(content)
 
     def copy(self, source: Path, path: str) -> None:
-        shutil.copyfile(source, self._target(path))
+        self.binary(path, source.read_bytes())
 
     def _target(self, path: str) -> Path:
         target = self.root / path
@@ -97,6 +98,7 @@ class TreeSummary:
     statuses: list[StatusLink]
     newest: datetime.date | None
     warnings: list[str]  # parts of pages that could not be made (a drawing or checklist failed)
+    files: dict[str, FileFacts] = field(default_factory=dict)  # every file of the tree, by its path
 
 
 @dataclass
@@ -107,6 +109,7 @@ class BuildPages:
     pages: int
     dates: list[datetime.date]
     warnings: list[str]
+    files: dict[str, FileFacts] = field(default_factory=dict)  # the build's files, by their path in the tree
 
 
 def write_tree(archive: Archive, root: Path, builds: Iterable[Build] | None = None) -> TreeSummary:
@@ -122,22 +125,23 @@ def write_build_pages(root: Path, archive: Archive, build: Build) -> BuildPages:
     writer = TreeWriter(root, archive)
     write_build(writer, archive, build)
     dates = [revision.record.date for revision in build.revisions]
-    return BuildPages(index_row(build), writer.pages, dates, _failures(build))
+    return BuildPages(index_row(build), writer.pages, dates, _failures(build), writer.files)
 
 
 def finish_tree(archive: Archive, root: Path, built: Iterable[BuildPages]) -> TreeSummary:
     """The archive's front pages and assets, once every build's pages are written (as each one comes)."""
     writer = TreeWriter(root, archive)
-    rows, dates, warnings, pages = [], [], [], 0
+    rows, dates, warnings, pages, files = [], [], [], 0, {}
     for build in built:
         rows.append(build.row)
         dates.extend(build.dates)
         warnings.extend(build.warnings)
         pages += build.pages
+        files.update(build.files)
     statuses = status_links(rows) + signoff_links(rows)
     _write_front(writer, archive, newest_first(rows), statuses)
     _write_assets(writer)
-    return TreeSummary(pages + writer.pages, rows, statuses, max(dates, default=None), warnings)
+    return TreeSummary(pages + writer.pages, rows, statuses, max(dates, default=None), warnings, files | writer.files)
 
 
 def _failures(build: Build) -> list[str]:

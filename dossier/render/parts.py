@@ -19,16 +19,13 @@ import shutil
 from concurrent.futures import ThreadPoolExecutor
 from dataclasses import dataclass
 from pathlib import Path
-from urllib.parse import quote
 
 from dossier.pages import layout
+from dossier.render import search_index
 from dossier.render.mkdocs_run import run_mkdocs
 
 MARKDOWN_SUFFIXES = (".md", ".markdown", ".mdown", ".mkdn", ".mkd")  # what MkDocs reads as a page
-SEARCH_INDEX = "search/search_index.json"
-SEARCH_SCRIPT = "search/search_index.js"  # the theme's offline plugin: the index inlined into a script
-SEARCH_SCRIPT_PREFIX = "var __index = "
-MERGED = frozenset({SEARCH_INDEX, SEARCH_SCRIPT})
+MERGED = search_index.FILES
 BUILDS = layout.build_root("").rstrip("/")  # "builds"
 
 
@@ -154,44 +151,24 @@ def merge(parts: list[Path], site: Path, order: list[str]) -> None:
                 continue
             target.parent.mkdir(parents=True, exist_ok=True)
             os.replace(path, target)
-        if (part / SEARCH_INDEX).is_file():
-            indexes.append(json.loads((part / SEARCH_INDEX).read_text(encoding="utf-8")))
+        if (part / search_index.SEARCH_INDEX).is_file():
+            indexes.append(read_search_index(part))
     if indexes:
-        write_search_index(site, merged_index(indexes, order))
+        write_search_index(site, indexes, order)
 
 
-def merged_index(indexes: list[dict], order: list[str], dropped: frozenset[str] = frozenset()) -> dict:
-    """One search index from several: entries grouped by page, the pages in MkDocs' reading order; the
-    entries of pages in dropped left out. Every part's settings must agree."""
-    settings = indexes[0]["config"]
-    if any(index["config"] != settings for index in indexes):
-        raise PartsDisagree(SEARCH_INDEX)
-    position = {quote(page_html(path)): number for number, path in enumerate(order) if is_page(path)}
-    by_page: dict[str, list] = {}
-    for index in indexes:
-        for entry in index["docs"]:
-            page = entry["location"].split("#", 1)[0]
-            if page not in position:
-                raise PartsDisagree(f"{SEARCH_INDEX}: {page} is no page of the tree")
-            if page not in dropped:
-                by_page.setdefault(page, []).append(entry)
-    docs = [entry for page in sorted(by_page, key=position.__getitem__) for entry in by_page[page]]
-    return {"config": settings, "docs": docs}
-
-
-def write_search_index(site: Path, index: dict) -> None:
-    """As the theme's search plugin writes it, and its offline plugin inlines it."""
-    text = json.dumps(index, separators=(",", ":"), default=str)
-    (site / SEARCH_INDEX).parent.mkdir(parents=True, exist_ok=True)
-    (site / SEARCH_INDEX).write_text(text, encoding="utf-8")
-    (site / SEARCH_SCRIPT).write_text(SEARCH_SCRIPT_PREFIX + text, encoding="utf-8")
-
-
-def read_search_index(site: Path) -> dict | None:
+def write_search_index(site: Path, indexes: list, order: list[str]) -> None:
+    """One index from several (search_index.SearchPages), its pages in the reading order of the tree's files."""
+    if any(index is None for index in indexes):
+        raise PartsDisagree(search_index.SEARCH_INDEX)
     try:
-        return json.loads((site / SEARCH_INDEX).read_text(encoding="utf-8"))
-    except (OSError, ValueError):
-        return None
+        search_index.merged(indexes).write(site, [page_html(path) for path in order if is_page(path)])
+    except search_index.IndexDisagrees as error:
+        raise PartsDisagree(str(error)) from None
+
+
+def read_search_index(site: Path):
+    return search_index.SearchPages.read(site)
 
 
 def remove_tree(path: Path) -> None:

@@ -3,6 +3,7 @@
 from __future__ import annotations
 
 import importlib
+import json
 import sys
 import zipfile
 
@@ -11,7 +12,8 @@ from click.testing import CliRunner
 
 from dossier.cli import main
 from dossier.collect import code_version
-from dossier.collect.build_store import BuildStore, Entry
+from dossier.collect.build_store import BuildStore
+from dossier.files import FileFacts
 from dossier.collect.caches import Caches
 from dossier.commands.build import build_site
 from tests.fixtures.site_kit import TEST_CALC, copy_demo
@@ -174,7 +176,7 @@ def test_no_cache_bypasses_the_store(archive, tmp_path, monkeypatch):
     output = tmp_path / "pages"
     command = ["build", str(archive), "-o", str(output), "--pages-only", "--no-pdf"]
     assert CliRunner().invoke(main, command).exit_code == 0
-    entries = list((tmp_path / "user-cache" / "dossier" / "builds").glob("*/*.zip"))
+    entries = _entries(tmp_path / "user-cache" / "dossier" / "builds")
     assert len(entries) == _count(archive)
     for entry in entries:
         _tamper(entry)
@@ -184,44 +186,81 @@ def test_no_cache_bypasses_the_store(archive, tmp_path, monkeypatch):
     assert "TAMPERED" not in (output / "builds/rotator-control/index.md").read_text(encoding="utf-8")
 
 
-def test_a_damaged_entry_is_a_miss(archive, tmp_path, plugin, calcs):
+@pytest.mark.parametrize("damage", ["truncated page", "missing page", "truncated list", "truncated summary"])
+def test_a_damaged_entry_is_a_miss(archive, tmp_path, plugin, calcs, damage):
     _pages(archive, tmp_path, [*calcs, plugin.CALC], _caches(tmp_path), "first")
-    for entry in (tmp_path / "caches" / "builds").glob("*/*.zip"):
-        entry.write_bytes(entry.read_bytes()[:100])
+    for entry in _entries(tmp_path / "caches" / "builds"):
+        _damage(entry, damage)
     caches = _caches(tmp_path)
-    _pages(archive, tmp_path, [*calcs, plugin.CALC], caches, "second")
+    second = _pages(archive, tmp_path, [*calcs, plugin.CALC], caches, "second")
     assert (caches.builds.hits, caches.builds.misses) == (0, _count(archive))
+    assert _files(second) == _files(_pages(archive, tmp_path, [*calcs, plugin.CALC], Caches(), "uncached"))
+
+
+def _damage(entry, how: str) -> None:
+    page = entry / "pages" / "index.md"
+    if how == "truncated page":
+        page.write_bytes(page.read_bytes()[:100])
+    elif how == "missing page":
+        page.unlink()
+    else:
+        part = entry / ("files.json" if how == "truncated list" else "summary.pickle")
+        part.write_bytes(part.read_bytes()[:20])
+
+
+def test_a_site_build_links_the_store_and_a_page_tree_copies_it(archive, tmp_path, calcs):
+    """A tree written as the output (--pages-only) shares no file with the store, so editing it cannot reach the cache."""
+    caches = _caches(tmp_path)
+    pages = _pages(archive, tmp_path, calcs, caches)
+    stored = [path for entry in _entries(tmp_path / "caches" / "builds") for path in (entry / "pages").rglob("*") if path.is_file()]
+    assert stored and all(path.stat().st_nlink == 1 for path in stored)
+    assert all(path.stat().st_nlink == 1 for path in pages.rglob("*") if path.is_file())
 
 
 def test_the_store_keeps_to_its_size_by_dropping_the_least_recently_used(tmp_path):
     import os
 
     store = BuildStore(tmp_path / "store", limit_bytes=2500)
+    source = tmp_path / "tree"
+    source.mkdir()
+    (source / "index.md").write_bytes(b"x" * 1000)
     for number in range(4):
         key = f"{number:02d}" + "0" * 62
-        store.save(key, Entry({"index.md": b"x" * 1000}, {"n": number}))
-        os.utime(store.path(key), ns=(number * 10**9, number * 10**9))
+        store.save(key, source, {"index.md": FileFacts.of(b"x" * 1000)}, {"n": number})
+        os.utime(store.path(key) / "files.json", ns=(number * 10**9, number * 10**9))
     store.load("00" + "0" * 62)  # used now: the newest
     assert store.trim() == 2
-    kept = sorted(path.name[:2] for path in (tmp_path / "store").glob("*/*.zip"))
-    assert kept == ["00", "03"]
+    assert sorted(entry.name[:2] for entry in _entries(tmp_path / "store")) == ["00", "03"]
 
 
 def test_a_foreign_object_in_an_entry_is_refused(tmp_path):
     store = BuildStore(tmp_path / "store")
     key = "ab" + "0" * 62
-    store.save(key, Entry({"index.md": b"x"}, zipfile.ZipFile))  # a class from outside dossier
+    (tmp_path / "index.md").write_bytes(b"x")
+    store.save(key, tmp_path, {"index.md": FileFacts.of(b"x")}, zipfile.ZipFile)  # a class from outside dossier
+    assert store.path(key).is_dir() and store.load(key) is None
+
+
+def test_an_entry_naming_a_file_outside_its_folder_is_refused(tmp_path):
+    store = BuildStore(tmp_path / "store")
+    key = "cd" + "0" * 62
+    (tmp_path / "index.md").write_bytes(b"x")
+    store.save(key, tmp_path, {"index.md": FileFacts.of(b"x")}, {"n": 1})
+    (store.path(key) / "files.json").write_text('{"../../escape.md": [1, "00"]}', encoding="utf-8")
     assert store.load(key) is None
 
 
+def _entries(store):
+    return sorted(path for path in store.glob("*/*") if path.is_dir() and not path.name.startswith("."))
+
+
 def _tamper(entry) -> None:
-    with zipfile.ZipFile(entry) as stored:
-        files = {name: stored.read(name) for name in stored.namelist()}
-    if "index.md" in files:
-        files["index.md"] += b"\nTAMPERED\n"
-    with zipfile.ZipFile(entry, "w") as stored:
-        for name, content in files.items():
-            stored.writestr(name, content)
+    """Change the overview page and its listed size: an entry that is whole but says something else."""
+    page = entry / "pages" / "index.md"
+    page.write_bytes(page.read_bytes() + b"\nTAMPERED\n")
+    listed = json.loads((entry / "files.json").read_text(encoding="utf-8"))
+    listed["index.md"][0] = page.stat().st_size
+    (entry / "files.json").write_text(json.dumps(listed), encoding="utf-8")
 
 
 def _files(root):

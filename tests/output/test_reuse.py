@@ -142,3 +142,61 @@ def test_the_preview_reports_a_failed_write_and_keeps_serving(tmp_path, monkeypa
     monkeypatch.setattr("dossier.commands.build.build_site", denied)
     assert preview_build(tmp_path / "archive", tmp_path / "preview") is False
     assert f"cannot write {tmp_path / 'preview'}: Permission denied; the preview stays as it was" in capsys.readouterr().err
+
+
+def _cached(tmp_path):
+    from dossier.collect.caches import Caches
+
+    caches = Caches.in_folder(tmp_path / "caches")
+    return Caches(caches.drawings, None, caches.builds, caches.renders)
+
+
+def test_with_the_build_cache_an_unchanged_archive_is_kept_without_writing_its_tree(archive, tmp_path, renderer):
+    output, caches = tmp_path / "site", _cached(tmp_path)
+    first = build_site(archive, output, calcs=[TEST_CALC], cache=caches)
+    caches = _cached(tmp_path)  # counts afresh
+    kept = build_site(archive, output, calcs=[TEST_CALC], cache=caches)
+    assert not kept.replaced and renderer.calls == 1
+    assert (caches.builds.hits, caches.builds.misses) == (0, 0)  # no build was even looked up
+    assert (kept.builds, kept.pages) == (first.builds, first.pages)
+
+
+def test_the_quick_keep_follows_a_changed_file_a_touched_site_and_an_edited_site(archive, tmp_path, renderer):
+    import os
+
+    output = tmp_path / "site"
+    build_site(archive, output, calcs=[TEST_CALC], cache=_cached(tmp_path))
+    page = output / "index.html"
+    os.utime(page, ns=(1, 1))  # touched, same bytes: looked at again, and kept
+    assert not build_site(archive, output, calcs=[TEST_CALC], cache=_cached(tmp_path)).replaced and renderer.calls == 1
+    page.write_text(page.read_text(encoding="utf-8").replace("render", "rendxr"), encoding="utf-8")  # same size, other bytes
+    assert build_site(archive, output, calcs=[TEST_CALC], cache=_cached(tmp_path)).replaced and renderer.calls == 2
+    (archive / "amp" / "photo.txt").write_text("a file beside the record", encoding="utf-8")
+    caches = _cached(tmp_path)
+    assert not build_site(archive, output, calcs=[TEST_CALC], cache=caches).replaced  # same pages, so the same site
+    assert caches.builds.misses == 1 and renderer.calls == 2  # but the build was reviewed again to know it
+    write_record(archive, "amp", summary="A unit for the tests, rewired.")
+    assert build_site(archive, output, calcs=[TEST_CALC], cache=_cached(tmp_path)).replaced and renderer.calls == 3
+
+
+def test_a_kept_site_says_its_warnings_again(archive, tmp_path, renderer, monkeypatch):
+    output = tmp_path / "site"
+    monkeypatch.setattr("dossier.pages.tree._failures", lambda build: [f"{build.id}: a drawing could not be made"])
+    first = build_site(archive, output, calcs=[TEST_CALC], cache=_cached(tmp_path))
+    kept = build_site(archive, output, calcs=[TEST_CALC], cache=_cached(tmp_path))
+    assert not kept.replaced and kept.warnings == first.warnings == ["amp: a drawing could not be made"]
+
+
+def test_the_tree_lists_every_file_it_holds_with_its_hash(tmp_path, calcs):
+    """The renderer's fingerprint is made from this list, not from reading the tree again: it must be the tree."""
+    from dossier.collect.archive import open_archive
+    from dossier.pages.reuse import each_build_pages
+    from dossier.pages.tree import finish_tree
+    from tests.fixtures.site_kit import copy_demo
+
+    archive = copy_demo(tmp_path / "archive")
+    for attempt in ("written", "from the cache"):
+        opened, problems = open_archive(archive, calcs)
+        root = tmp_path / attempt
+        tree = finish_tree(opened, root, each_build_pages(opened, problems, root, _cached(tmp_path)))
+        assert {path: facts.sha256 for path, facts in tree.files.items()} == fingerprint.file_hashes(root), attempt
