@@ -42,3 +42,18 @@ class FileFacts:
     @classmethod
     def of(cls, content: bytes) -> "FileFacts":
         return cls(len(content), hashlib.sha256(content).hexdigest())
+
+
+class FolderMaker:
+    """Makes the folder a file goes in, asking the file system once per folder: placing thousands of files
+    would otherwise ask it once per file."""
+
+    def __init__(self):
+        self.made: set[Path] = set()
+
+    def parent_of(self, path: Path) -> Path:
+        parent = path.parent
+        if parent not in self.made:
+            parent.mkdir(parents=True, exist_ok=True)
+            self.made.add(parent)
+        return path

@@ -27,7 +27,7 @@ import tempfile
 from dataclasses import dataclass
 from pathlib import Path
 
-from dossier.files import FileFacts
+from dossier.files import FileFacts, FolderMaker
 from dossier.ledger import LOCK_FILE
 from dossier.reading.settings import SETTINGS_FILE
 
@@ -101,10 +101,10 @@ class BuildStore:
 
     def place(self, entry: Entry, target: Path) -> bool:
         """Put the entry's files under target; False (a miss, target removed) when a file is missing or resized."""
+        folders = FolderMaker()
         try:
             for name, facts in entry.files.items():
-                destination = target / name
-                destination.parent.mkdir(parents=True, exist_ok=True)
+                destination = folders.parent_of(target / name)
                 self._bring(entry.folder / name, destination)
                 if destination.stat().st_size != facts.size:
                     raise EntryDamaged(name)
@@ -124,10 +124,10 @@ class BuildStore:
             scratch = Path(tempfile.mkdtemp(prefix=".new-", dir=target.parent))
         except OSError:
             return
+        folders = FolderMaker()
         try:
             for name in files:
-                (scratch / PAGES / name).parent.mkdir(parents=True, exist_ok=True)
-                self._bring(source / name, scratch / PAGES / name)
+                self._bring(source / name, folders.parent_of(scratch / PAGES / name))
             (scratch / SUMMARY).write_bytes(pickle.dumps(summary, protocol=pickle.HIGHEST_PROTOCOL))
             (scratch / FILES).write_text(json.dumps({name: [f.size, f.sha256] for name, f in sorted(files.items())}), encoding="utf-8")
             os.rename(scratch, target)

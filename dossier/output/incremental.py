@@ -27,7 +27,7 @@ import shutil
 from dataclasses import dataclass, field
 from pathlib import Path
 
-from dossier.files import write_whole
+from dossier.files import FolderMaker, write_whole
 from dossier.output.atomic import MARKER
 from dossier.output.fingerprint import digest_of, file_hashes, file_stats, read_stamp
 from dossier.render import parts
@@ -168,12 +168,11 @@ def _changed_only(config: Path, docs: Path, site: Path, epoch: int, sources: dic
 def _link_previous(previous: Previous, site: Path, left_out: set[str]) -> dict[str, str]:
     """The previous site's files, as hard links where the file system allows (they are never written to);
     their hashes by path."""
-    linked = {}
+    linked, folders = {}, FolderMaker()
     for relative, sha in previous.hashes.items():
         if relative in left_out:
             continue
-        target = site / relative
-        target.parent.mkdir(parents=True, exist_ok=True)
+        target = folders.parent_of(site / relative)
         try:
             os.link(previous.site / relative, target)
         except OSError:
