@@ -10,7 +10,7 @@ import pytest
 from dossier.markup import cell, fence, is_safe_link, prose, text, title_text
 from dossier.templates import template_text
 
-EXTENSIONS = ["admonition", "tables", "toc", "attr_list"]  # attr_list on purpose: escaping must not rely on it being off
+EXTENSIONS = ["admonition", "tables", "toc", "attr_list", "md_in_html"]  # as the site has them: escaping must not rely on them being off
 
 
 def rendered(source: str) -> str:
@@ -155,7 +155,13 @@ def test_record_prose_cannot_draw_a_box_like_the_sites_caution(source):
     assert "Safe to power up." in html  # shown as text, not lost
 
 
+def test_record_prose_cannot_open_a_block_of_its_own_markdown_in_html():
+    html = rendered(prose('<div class="admonition dossier-caution" markdown data-search-exclude>\n\n**Safe** to power up.\n\n</div>'))
+    assert "<div" not in html and "&lt;div" in html and "data-search-exclude" in html  # shown as typed
+    assert "<strong>Safe</strong>" in html  # record Markdown still works
+
+
 def test_the_sites_caution_carries_a_class_record_text_cannot_make():
-    head, checklist, css = (template_text(name) for name in ("site/_head.md.j2", "checklist/page.md.j2", "site/assets/dossier.css"))
-    assert '!!! dossier-caution "Caution"' in head and 'class="admonition dossier-caution"' in checklist
+    caution, checklist, css = (template_text(name) for name in ("site/_caution.md.j2", "checklist/page.md.j2", "site/assets/dossier.css"))
+    assert 'class="admonition dossier-caution"' in caution and 'class="admonition dossier-caution"' in checklist
     assert ".dossier-caution" in css

@@ -187,17 +187,26 @@ def write_build(writer: TreeWriter, archive: Archive, build: Build) -> None:
 
 
 def _write_revision(writer: TreeWriter, view: RevisionView) -> None:
-    extra = {} if view.is_current else {"search_boost": OLDER_REVISION_BOOST}
     for name, path in view.pages.items():
         title = _page_title(view, name)
         caution = view.record.has_mains and not (name == "checklist" and view.checklist)
-        writer.page(path, TEMPLATES[name], v=view, page_name=name, crumb=f"revision {view.letter}", page_title=title, show_caution=caution, **extra)
+        writer.page(path, TEMPLATES[name], v=view, page_name=name, crumb=f"revision {view.letter}", page_title=title, show_caution=caution, **_search_meta(view, name))
     for figure in (*view.schematics, *(f for section in view.calcs for f in section.figures)):
         writer.text(figure.path, figure.svg)
     for paper, sheet in view.revision.extras.sheets.items():
         writer.text(f"{view.root}/{CHECKLIST_SHEETS[paper]}", sheet)
     for paper, pdf in view.revision.extras.pdfs.items():
         writer.binary(f"{view.root}/{pdf_href(CHECKLIST_SHEETS[paper])}", pdf)
+
+
+def _search_meta(view: RevisionView, name: str) -> dict:
+    """An earlier revision ranks below the current one; its checklist, whose items the current revision's
+    repeats, is left out of the search index (its commissioning is on its overview)."""
+    if view.is_current:
+        return {}
+    if name == "checklist":
+        return {"search_exclude": True}
+    return {"search_boost": OLDER_REVISION_BOOST}
 
 
 def _page_title(view: RevisionView, name: str) -> str:

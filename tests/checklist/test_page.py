@@ -63,10 +63,11 @@ def test_a_blocked_revision_cannot_pass_commissioning_even_with_every_value_in_r
 
 
 def test_the_page_is_markdown_that_renders_to_tables_and_headings():
-    html = markdown.markdown(page("solar-bank-charger", "C"), extensions=["tables"])
+    html = markdown.markdown(page("solar-bank-charger", "C"), extensions=["tables", "attr_list", "md_in_html"])  # as the site has them
     assert html.count("<table>") == len([i for i in checklist_of("solar-bank-charger", "C").items if i.measured])
     assert "<h2>Before the mains is connected</h2>" in html
     assert "<h2>Temperature soak</h2>" in html
+    assert "data-search-exclude }" not in html, "an attribute list shown as text"
 
 
 def test_print_links_are_offered_when_given():

@@ -59,6 +59,62 @@ def test_search_index_finds_titles_designators_parts_and_notes(site):
     assert not any(doc["location"].startswith("builds/solar-bank-charger/rev-D/") for doc in index["docs"])
 
 
+def _index_docs(site) -> list[dict]:
+    return json.loads((site / "search/search_index.json").read_text(encoding="utf-8"))["docs"]
+
+
+def _indexed_text(docs, prefix: str) -> str:
+    return " ".join(doc["title"] + " " + doc["text"] for doc in docs if doc["location"].startswith(prefix))
+
+
+FINDING_DETAILS = ("Values: ", "Limit: ", "Formula: ", "From the record: ", "Sources: ")
+
+
+def test_search_index_keeps_each_finding_by_heading_verdict_and_code_and_leaves_its_details_to_the_page(site):
+    docs = _index_docs(site)
+    # demo: bench-psu-13v8 rev B, the current revision, fails HS1's temperature (THERM-HEATSINK)
+    heatsink = next(doc for doc in docs if doc["location"] == "builds/bench-psu-13v8/calcs.html#hs1-temperature-hs1")
+    assert heatsink["title"] == "HS1 temperature (HS1)"
+    assert "fail: " in heatsink["text"] and "Code: THERM-HEATSINK" in heatsink["text"]
+    calcs = [doc for doc in docs if doc["location"].split("#")[0].endswith("calcs.html")]
+    assert len(calcs) > 100
+    for doc in calcs:
+        assert not any(detail in doc["text"] for detail in FINDING_DETAILS), doc["location"]
+    for build in ("bench-psu-13v8", "solar-bank-charger", "rotator-control"):
+        html = (site / "builds" / build / "calcs.html").read_text(encoding="utf-8")
+        assert all(f"<li data-search-exclude>{detail}" in html for detail in FINDING_DETAILS), "the details stay on the page"
+        explanation = re.search(r'<p data-search-exclude>([^<]{40,})</p>', html)[1]
+        indexed = _indexed_text(docs, f"builds/{build}/calcs.html")
+        assert explanation not in indexed
+        codes = re.findall(r"<li>Code: ([A-Z0-9-]+)</li>", html)
+        assert codes and all(f"Code: {code}" in indexed for code in codes), "every finding of the current revision is found by its code"
+
+
+def test_search_index_leaves_out_what_every_page_repeats(site):
+    from dossier.caution import MAINS_CAUTION
+
+    docs = _index_docs(site)
+    with_caution = {doc["location"].split("#")[0] for doc in docs if MAINS_CAUTION in doc["text"]}
+    assert with_caution == {"about.html"}, "the caution is searchable on the about page only"
+    for doc in docs:
+        assert "Overview · Calculations" not in doc["text"] and "Publication ledger head" not in doc["text"], doc["location"]
+        assert "A newer revision exists" not in doc["text"], doc["location"]
+    checklist = _indexed_text(docs, "builds/solar-bank-charger/checklist.html")
+    assert "Protective-earth continuity" in checklist and "pe-continuity" in checklist, "checklist items are found by title and id"
+    assert "Source: " not in checklist and "____" not in checklist
+
+
+def test_an_earlier_revision_is_searched_for_what_did_not_pass(site):
+    docs = _index_docs(site)
+    # demo: doubler-ht-supply rev A fails its HT rail as a hazard (RAILS-HAZARD); rev B is current
+    earlier = _indexed_text(docs, "builds/doubler-ht-supply/rev-A/calcs.html")
+    assert "Code: RAILS-HAZARD" in earlier and "fail: " in earlier
+    assert "pass: " not in earlier and "info: " not in earlier, "passing findings repeat the current revision's"
+    assert "Code: RAILS-HAZARD" in _indexed_text(docs, "builds/doubler-ht-supply/calcs.html")
+    assert "300 V supply for the valve tester" in _indexed_text(docs, "builds/doubler-ht-supply/rev-A/index.html")
+    assert not any(doc["location"].startswith("builds/doubler-ht-supply/rev-A/checklist.html") for doc in docs)
+
+
 def test_every_build_page_with_mains_carries_the_caution(site):
     from dossier.caution import MAINS_CAUTION, POWER_UP_CAUTION
 

@@ -120,7 +120,7 @@ def test_earlier_revisions_are_frozen_at_their_own_address_with_a_notice(tree):
     for letter in "ABC":
         for name in ("index", "calcs"):
             text = page(tree, f"builds/solar-bank-charger/rev-{letter}/{name}.md")
-            assert '!!! warning "A newer revision exists"' in text
+            assert '<div class="admonition warning" markdown data-search-exclude>\n<p class="admonition-title">A newer revision exists</p>' in text
             assert "The current revision is [revision D](../index.md)" in text
     assert "A newer revision exists" not in page(tree, "builds/solar-bank-charger/index.md")
 
@@ -280,7 +280,7 @@ def test_a_hazardous_rail_is_named_on_the_overview_and_in_its_caution(tree):
     overview = page(tree, "builds/valve-amp-supply/index.md")
     hazards = overview.split("## Hazards")[1].split("## Verdicts")[0]
     assert "Hazardous voltage beyond the mains: rail B+ (up to 427 V DC)" in hazards
-    caution = overview.split('!!! dossier-caution "Caution"')[1].split("\n\n\n")[0]
+    caution = overview.split('<p class="admonition-title">Caution</p>')[1].split("</div>")[0]
     assert "hazardous voltages beyond the mains: B+ (up to 427 V DC)" in caution
 
 
