@@ -34,7 +34,7 @@ bench: $(STAMP)
 	$(BIN)/python bench/bench_check.py
 	$(BIN)/python bench/bench_drawing.py
 	$(BIN)/python bench/bench_site.py
-	$(BIN)/python bench/bench_incremental.py --serve
+	$(BIN)/python bench/bench_incremental.py
 
 clean:
 	rm -rf $(VENV) site .cache

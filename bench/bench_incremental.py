@@ -1,6 +1,7 @@
 """Publishing at the speed of an edit: `dossier build` after one edit, with nothing changed, and cold; the preview.
 
-Run: python bench/bench_incremental.py [--sizes 50,200] [--revisions 3] [--serve] [--cold-only 800]
+Run: python bench/bench_incremental.py            (the whole table of docs/benchmarks.md, about 15 minutes on 2 cores)
+     python bench/bench_incremental.py --sizes 50 --cold-only "" --no-serve   (a quick look)
 
 For each size N it writes a synthetic archive of N builds (bench_site.synthetic_archive: the demo charger,
 every build different), and runs `dossier build --no-pdf` as a user does, in a fresh process each time,
@@ -10,7 +11,7 @@ with a user cache of its own (XDG_CACHE_HOME in a scratch folder):
   1 edit     one record's notes changed: that build reviewed again, its pages and the front pages rendered
   nothing    nothing changed: every build from the build cache, the site kept
 
---serve times `dossier serve` on a copy of the demo archive: from saving a record to the changed page being
+The preview row times `dossier serve` on a copy of the demo archive: from saving a record to the changed page being
 served (polled every 50 ms), median of 3 saves, with the CPU seconds the server and its MkDocs runs spent.
 
 Every figure comes with its wall seconds, the CPU seconds of the process and its children (other load on the
@@ -159,14 +160,14 @@ def _row(result: dict) -> str:
 
 def main() -> None:
     parser = argparse.ArgumentParser(description=__doc__, formatter_class=argparse.RawDescriptionHelpFormatter)
-    parser.add_argument("--sizes", default="50,200", help="comma-separated numbers of builds")
+    parser.add_argument("--sizes", default="50,200", help="comma-separated numbers of builds: cold, edits and nothing changed")
     parser.add_argument("--revisions", type=int, default=3)
-    parser.add_argument("--serve", action="store_true", help="also time the preview's save-to-page on the demo archive")
-    parser.add_argument("--cold-only", default="", help="sizes (comma-separated) to time only cold, e.g. 800 (about an hour here)")
+    parser.add_argument("--no-serve", action="store_true", help="leave out the preview's save-to-page on the demo archive")
+    parser.add_argument("--cold-only", default="800", help="sizes (comma-separated) to time only cold; \"\" for none (800: about 8 minutes)")
     args = parser.parse_args()
     print(f"machine: {os.cpu_count()} cores; python {sys.version.split()[0]}")
     results = []
-    if args.serve:
+    if not args.no_serve:
         results.append({"serve": serve_refresh()})
         print(f"serve: save to page {results[-1]['serve']}", flush=True)
     for size in (int(s) for s in args.sizes.split(",") if s):
