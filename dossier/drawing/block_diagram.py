@@ -20,6 +20,8 @@ ROW_GAP = 1.5  # between rows, room for the line down to a branch
 NAME_WIDTH = 20  # characters per line of a block's name
 REFS_WIDTH = 16
 MARGIN = 0.35  # shading round a block
+TRUNK_INSET = 0.45  # the line down to a branch, from the right edge of its stage's box
+TAG_CLEARANCE = 0.3  # between a stage's rail names and a line passing them
 
 
 def draw(view: DiagramView):
@@ -72,8 +74,7 @@ class Grid:
         for key, place in self.places.items():
             self.box_height[place.row] = max(self.box_height[place.row], sheet.text_height(self.texts[key]) + 0.6)
             self.tag_height[place.row] = max(self.tag_height[place.row], _tag_height(self.blocks[key]))
-            tag_width = sheet.text_width(rails_text(self.blocks[key]), sheet.SMALL_FONT)
-            column_width[place.column] = max(column_width[place.column], self.widths[key], tag_width)
+            column_width[place.column] = max(column_width[place.column], self.widths[key], self.tag_width(key))
         self.column_x = [sum(column_width[:c]) + GAP * c for c in range(columns)]
         self.row_y = [-sum(self.box_height[r] + self.tag_height[r] + ROW_GAP for r in range(row)) for row in range(rows)]
 
@@ -119,9 +120,27 @@ class Grid:
         if not place.branch:
             sheet.add(drawing, elm.Arrow().at((self.right(place.parent), y)).to((self.left(block.id), y)))
             return
-        trunk = self.right(place.parent) - 0.45
-        sheet.wire(drawing, (trunk, self.bottom(place.parent)), (trunk, y))
+        trunk, top = self.trunk(place.parent), self.bottom(place.parent)
+        if trunk > self.right(place.parent) - TRUNK_INSET:  # its rail names reach under the usual trunk: leave from the side
+            top = self.middle(place.parent)
+            sheet.wire(drawing, (self.right(place.parent), top), (trunk, top))
+            if any(p.parent == place.parent and not p.branch for p in self.places.values()):
+                sheet.dot(drawing, (trunk, top))  # where it leaves the arrow to the next stage on the row
+        sheet.wire(drawing, (trunk, top), (trunk, y))
         sheet.add(drawing, elm.Arrow().at((trunk, y)).to((self.left(block.id), y)))
+
+    def trunk(self, key: str) -> float:
+        """Where the line down to a stage's branches runs: inside its box near the right, or right of its rail
+        names where they are wider than that (the column's width leaves room for them before the next column)."""
+        return max(self.right(key) - TRUNK_INSET, self.left(key) + self.tag_width(key) + TAG_CLEARANCE)
+
+    def tag_width(self, key: str) -> float:
+        block = self.blocks[key]
+        return sheet.text_width(rails_text(block), sheet.SMALL_FONT) if block.rails else 0.0
+
+    def tag_spans(self, key: str, x: float) -> bool:
+        """Whether the stage's rail names, under its box, reach across x."""
+        return self.tag_width(key) > 0 and self.left(key) - TAG_CLEARANCE < x < self.left(key) + self.tag_width(key) + TAG_CLEARANCE
 
 
 def _tag_height(block: BlockView) -> float:
@@ -145,7 +164,8 @@ def _barrier_x(blocks, grid: Grid) -> float | None:
 def _barrier(drawing, x: float, grid: Grid, view: DiagramView) -> None:
     """The dashed line from above the diagram down past it (not over a block's words), each crossing barrier labelled below."""
     first_row = [key for key, place in grid.places.items() if place.row == 0]
-    top_bottom = grid.bottom(first_row[0])
+    named_across = any(grid.tag_spans(key, x) for key in first_row)  # rail names under a stage the line passes
+    top_bottom = grid.lowest(first_row[0]) if named_across else grid.bottom(first_row[0])
     y = grid.floor - 0.5
     for barrier in view.crossing:
         sheet.barrier_label(drawing, (x + 0.25, y), barrier)

@@ -12,7 +12,7 @@ from itertools import combinations
 from xml.etree import ElementTree
 
 import pytest
-from tests.fixtures.demo import DEMO, RECORDS, load_demo, load_test_record
+from tests.fixtures.demo import DEMO, RECORDS, load_demo, load_record_text, load_test_record
 from tests.fixtures.stage_samples import HT, kinds_and_topologies, sample_view
 from schemdraw.backends.svgtext import text_approx_size
 
@@ -109,12 +109,37 @@ def figures():
     found = [(f"{b}-{r}/{f.key}", f.svg) for b, r in DEMO_REVISIONS for f in schematics.figures(load_demo(b, r))]
     corpus = sorted(path.parent.name for path in RECORDS.glob("*/rev-A.yaml"))
     found += [(f"{b}/{f.key}", f.svg) for b in corpus for f in schematics.figures(load_test_record(b))]
+    for name, record in _branching_variants():
+        found += [(f"{name}/{f.key}", f.svg) for f in schematics.figures(record) if f.key == "block-diagram"]
     for kind, topology in kinds_and_topologies():
         for rails in ((), (HT,)):
             view = sample_view(kind, topology, rails)
             svg = finish(sheet.svg_of(schematics.plan(view)[0].draw(view)), prefix="k", title=view.title)
             found.append((f"{kind}:{topology}{'+HT' if rails else ''}", svg))
     return found
+
+
+BIAS_FILTER = """  - id: bias-filter
+    kind: filter
+    name: Bias filter and divider
+    side: isolated
+    topology: capacitor-input
+    fed_from: [bias-rectifier]
+    parts:
+      - {ref: R9, kind: resistor, value: 10 kohm, role: bias filter}
+      - {ref: C9, kind: capacitor, value: 47 uF 100 V, role: bias filter}
+"""
+
+
+def _branching_variants():
+    """The valve-amp supply with its bias branch two stages long and the heater rail named under the transformer,
+    whose box the barrier passes through: once with a short name, once wider than the box (the line down to the
+    branches then leaves from the side)."""
+    text = (DEMO / "valve-amp-supply" / "rev-B.yaml").read_text(encoding="utf-8")
+    text = text.replace("\nrails:\n", f"\n{BIAS_FILTER}\nrails:\n", 1).replace("stage: bias-rectifier,", "stage: bias-filter,")
+    for name, rail in (("short", "heater"), ("wide", "heater and pilot lamp winding")):
+        varied = text.replace("{name: heater, stage: heater,", f"{{name: {rail}, stage: transformer,")
+        yield f"two-stage-branch-{name}", load_record_text(varied, f"valve-amp-supply/{name}.yaml")
 
 
 def test_no_label_overlaps_another(figures):
