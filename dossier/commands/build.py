@@ -200,19 +200,24 @@ def _os_problem(error: OSError, target: Path) -> str:
 
 
 class _progress:
-    """A progress bar over the builds on standard error, or nothing for a small archive."""
+    """A progress bar over the builds on standard error, or nothing for a small archive; shown from the first build
+    reviewed, so an archive kept as it is (nothing to review) shows none."""
 
     def __init__(self, total: int, shown: bool):
         self.bar = click.progressbar(length=total, label="reviewing builds", file=sys.stderr) if shown else None
+        self.started = False
 
     def __enter__(self):
-        if self.bar is None:
-            return None
-        self.bar.__enter__()
-        return lambda build: self.bar.update(1)
+        return None if self.bar is None else self.advance
+
+    def advance(self, build) -> None:
+        if not self.started:
+            self.bar.__enter__()
+            self.started = True
+        self.bar.update(1)
 
     def __exit__(self, *exc):
-        if self.bar is not None:
+        if self.started:
             self.bar.__exit__(*exc)
         return False
 

@@ -200,3 +200,33 @@ def test_the_tree_lists_every_file_it_holds_with_its_hash(tmp_path, calcs):
         root = tmp_path / attempt
         tree = finish_tree(opened, root, each_build_pages(opened, problems, root, _cached(tmp_path)))
         assert {path: facts.sha256 for path, facts in tree.files.items()} == fingerprint.file_hashes(root), attempt
+
+
+@pytest.mark.parametrize("change", ["renderer version", "setting"])
+def test_the_quick_keep_misses_on_a_new_renderer_or_a_setting(archive, tmp_path, renderer, monkeypatch, change):
+    """What the archive's fingerprint holds besides the build folders: each change means looking again."""
+    output = tmp_path / "site"
+    build_site(archive, output, calcs=[TEST_CALC], cache=_cached(tmp_path))
+    if change == "renderer version":
+        monkeypatch.setattr(fingerprint, "_version", lambda distribution: f"{distribution} 99.0")
+    else:
+        (archive / "archive.yaml").write_text("title: Another club's archive\n", encoding="utf-8")
+    caches = _cached(tmp_path)
+    built = build_site(archive, output, calcs=[TEST_CALC], cache=caches)
+    assert caches.builds.hits + caches.builds.misses == 1  # the build was looked up: no quick keep
+    assert built.replaced and renderer.calls == 2
+
+
+def test_an_archive_kept_at_once_shows_no_progress_bar(tmp_path, monkeypatch, renderer):
+    from dossier.collect.caches import Caches
+
+    archive = tmp_path / "archive"
+    for number in range(20):  # enough builds for the progress bar
+        write_record(archive, f"unit-{number:02d}", "A")
+    monkeypatch.setattr("dossier.collect.archive.load_plugins", lambda: [TEST_CALC])
+    monkeypatch.setattr("dossier.commands.build.user_caches", lambda use_cache=True, pdfs=True: Caches.in_folder(tmp_path / "caches"))
+    command = ["build", str(archive), "-o", str(tmp_path / "site"), "--no-pdf"]
+    first = CliRunner().invoke(main, command)
+    assert first.exit_code == 0 and "reviewing builds" in first.stderr
+    kept = CliRunner().invoke(main, command)
+    assert kept.exit_code == 0 and "kept it as it is" in kept.stdout and "reviewing builds" not in kept.stderr
