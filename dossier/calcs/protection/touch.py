@@ -14,6 +14,7 @@ import math
 
 from dossier.calcs.protection import words
 from dossier.calcs.protection.common import finding, measure
+from dossier.calcs.shared import variac
 from dossier.calcs.shared.finding_kit import banded, not_assessed
 from dossier.citations import IEC_60335_1, IEC_62368_1
 from dossier.findings import common_practice
@@ -54,17 +55,23 @@ def touch_findings(record) -> list:
     if missing:
         return [not_assessed("protection", TOUCH, "touch current", title, words.touch_missing(missing), keys, SOURCES, guards_hazard=True)]
     total = sum((c.capacitance / c.in_series for _, c in found), Q_(0, "nF")).to("nF")
-    volts, hertz = record.mains.high.to("V"), record.mains.frequency.to("Hz")
-    current = (2 * math.pi * hertz * total * volts).to("mA")
+    lines = {c.ref: variac.part_high_line(record, c.ref) for _, c in found}
+    raised = [ref for ref, (_, behind) in lines.items() if behind]
+    volts, hertz = max(v for v, _ in lines.values()), record.mains.frequency.to("Hz")
+    current = (2 * math.pi * hertz * sum((c.capacitance / c.in_series * lines[c.ref][0] for _, c in found), Q_(0, "nF V"))).to("mA")
     klass = record.protection.earth.protective_class if record.protection.earth else None
     limit, wanted = limit_for(klass)
     verdict = banded(current, wanted, limit, "<=")
+    explanation = words.touch_text(klass, [c.ref for _, c in found], verdict, wanted)
+    if raised:
+        explanation += " " + words.touch_behind_variac(raised, record.protection.variac.ref, volts)
     return [finding(
         code=TOUCH, subject="touch current", title=title, verdict=verdict,
         values=(measure("touch current at high line", current),), limit=measure(f"limit for class {klass or 'II'}", limit), relation="<=",
-        method="I = 2 pi f C_Y V_high, every Y capacitor in parallel across the whole line voltage",
-        explanation=words.touch_text(klass, [c.ref for _, c in found], verdict, wanted),
-        keys=keys + (("mains", "nominal"), ("mains", "tolerance"), ("mains", "frequency")), sources=SOURCES, guards_hazard=True,
+        method="I = 2 pi f sum(C_Y V_high), every Y capacitor in parallel across the whole line voltage it sits on (a variac's top of scale behind it)",
+        explanation=explanation,
+        keys=keys + (("mains", "nominal"), ("mains", "tolerance"), ("mains", "frequency")) + ((variac.VARIAC_KEY,) if raised else ()),
+        sources=SOURCES + ((variac.VARIAC_PRACTICE,) if raised else ()), guards_hazard=True,
         extra=(measure("total Y capacitance", total), measure("high-line voltage", volts), measure("mains frequency", hertz),
                measure("figure a pass must meet", wanted)),
     )]

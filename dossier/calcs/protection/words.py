@@ -327,6 +327,11 @@ def touch_missing(refs) -> str:
             "be worked out; give devices.capacitors[].capacitance for each Y capacitor")
 
 
+def touch_behind_variac(refs, variac_ref, volts) -> str:
+    return (f"{', '.join(refs)} {'sits' if len(refs) == 1 else 'sit'} behind the variac {variac_ref}, so {'it is' if len(refs) == 1 else 'they are'} "
+            f"taken at its top of scale at high line, {fmt(volts)} (the harsher reading; the others at the mains).")
+
+
 def touch_text(klass, refs, verdict, wanted) -> str:
     text = (f"{', '.join(refs)} from the mains to earth or across the barrier, taken in parallel across the whole high-line "
             "voltage (the harsher reading: a broken earth or an open neutral puts them there).")

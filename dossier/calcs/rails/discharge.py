@@ -15,6 +15,7 @@ import math
 
 from dossier.calcs.rails import words
 from dossier.calcs.rails.hazards import NAME, finding, hazardous
+from dossier.calcs.shared import variac
 from dossier.calcs.shared.finding_kit import banded, not_assessed
 from dossier.calcs.shared.mains_lines import high_line_peak
 from dossier.calcs.shared.rail_voltage import RailVoltage
@@ -138,12 +139,17 @@ def x_capacitor_findings(record) -> list[Finding]:
                         limit=Measure(f"time to {PLUG_SAFE_VOLTAGE:~P}", PLUG_LIMIT), relation="<=", method="t = R C ln(V_peak / 34 V)",
                         explanation=words.x_discharge(total, None, None, PLUG_LIMIT), keys=resistor_keys + keys)]
     resistor = _parallel(resistors)
-    peak = high_line_peak(record.mains)
+    raised = [c.ref for _, c in across if variac.part_high_line(record, c.ref)[1]]
+    peak = (variac.fed_voltage(record)[1] * math.sqrt(2)).to("V") if raised else high_line_peak(record.mains)
     seconds = discharge_time(resistor, total, peak, PLUG_SAFE_VOLTAGE)
     verdict = Verdict.PASS if seconds <= PLUG_LIMIT else Verdict.FAIL
+    explanation = words.x_discharge(total, seconds, resistor, PLUG_LIMIT)
+    if raised:
+        explanation += " " + words.x_behind_variac(raised, record.protection.variac.ref, peak)
+        common["sources"] += (variac.VARIAC_PRACTICE,)
     return [finding(**common, verdict=verdict, values=(Measure(f"time to {PLUG_SAFE_VOLTAGE:~P}", seconds),), limit=Measure("allowed", PLUG_LIMIT),
-                    relation="<=", method="t = R C ln(V_peak,high / 34 V), the plug pulled at the crest of the highest mains",
-                    explanation=words.x_discharge(total, seconds, resistor, PLUG_LIMIT), keys=resistor_keys + keys,
+                    relation="<=", method="t = R C ln(V_peak,high / 34 V), the plug pulled at the crest of the highest mains (a variac's top of scale behind it)",
+                    explanation=explanation, keys=resistor_keys + keys + ((variac.VARIAC_KEY,) if raised else ()),
                     extra=(Measure("X capacitance", total), Measure("discharge resistance", resistor), Measure("from", peak)))]
 
 

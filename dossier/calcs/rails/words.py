@@ -103,6 +103,11 @@ def x_discharge(capacitance, seconds, resistor, limit) -> str:
             f"the plug is pulled at the crest, {verdict} the {fmt(limit)} allowed.")
 
 
+def x_behind_variac(refs, variac_ref, peak) -> str:
+    return (f"{', '.join(refs)} {'sits' if len(refs) == 1 else 'sit'} behind the variac {variac_ref}: the charge is taken from the crest "
+            f"of its top of scale at high line, {fmt(peak)} (the harsher reading).")
+
+
 def x_exempt(capacitance, limit) -> str:
     return f"{fmt(capacitance)} of X capacitance across the line, no more than {fmt(limit)}: the clause needs no discharge."
 

@@ -18,6 +18,14 @@ def upstream(record, stage_id: str):
         waiting.extend(found[1].feeds_from)
 
 
+def stage_of(record, ref: str):
+    """(index, stage) of the stage whose parts list ref, or None."""
+    for index, stage in enumerate(record.stages):
+        if any(part.ref == ref for part in stage.parts):
+            return index, stage
+    return None
+
+
 def rectifies(stage) -> bool:
     return stage.kind == "rectifier" or (stage.kind == "mains-input" and stage.topology_name in RECTIFIER_TOPOLOGIES)
 

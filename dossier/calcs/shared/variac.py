@@ -4,7 +4,7 @@ input (e.g. 260 V from 230 V), so what it feeds is judged at that voltage, and a
 
 from __future__ import annotations
 
-from dossier.calcs.shared.stage_graph import upstream
+from dossier.calcs.shared.stage_graph import stage_of, upstream
 from dossier.findings import common_practice
 
 VARIAC_PRACTICE = common_practice("a variac's top of scale sets the voltage of everything it feeds; their ratings are compared with it")
@@ -40,3 +40,13 @@ def feeds(record, stage_id: str) -> bool:
     if not any(part.ref == ref for stage in record.stages for part in stage.parts):
         return True
     return any(part.ref == ref for _, stage in upstream(record, stage_id) for part in stage.parts)
+
+
+def part_high_line(record, ref: str):
+    """(high-line voltage, raised) across a part on the mains: the variac's top of scale at high line when the variac
+    feeds the part's stage, or the part is in no stage while a variac raises the mains (the harsher reading); else
+    the mains at high line."""
+    found = stage_of(record, ref)
+    if raises_mains(record) and (found is None or feeds(record, found[1].id)):
+        return fed_voltage(record)[1], True
+    return record.mains.high.to("V"), False

@@ -8,7 +8,8 @@ from dossier.calcs.shared.finding_kit import not_assessed
 from dossier.calcs.shared.margins import margin
 from dossier.calcs.stress import capacitors, roles, switches, words
 from dossier.calcs.stress.judging import NAME, finding, rating_finding
-from dossier.calcs.stress.voltages import RECTIFIER_KINDS, Voltages, stage_of
+from dossier.calcs.shared.stage_graph import stage_of
+from dossier.calcs.stress.voltages import RECTIFIER_KINDS, Voltages
 from dossier.citations import ARRL_HANDBOOK, IEC_60384_14, MOHAN_POWER_ELECTRONICS
 from dossier.findings import Finding, Measure, Verdict
 from dossier.plugins import Calc

@@ -20,7 +20,8 @@ from dossier.calcs.shared.rail_voltage import rail_voltage
 from dossier.calcs.shared.stage_graph import rectifier_of
 from dossier.calcs.stress import words
 from dossier.calcs.stress.judging import finding, rating_finding
-from dossier.calcs.stress.voltages import Rail, Voltages, stage_of
+from dossier.calcs.shared.stage_graph import stage_of
+from dossier.calcs.stress.voltages import Rail, Voltages
 from dossier.findings import Finding, Measure, Verdict, common_practice
 from dossier.citations import ARRL_FILTERS, IEC_60384_14, MOHAN_POWER_ELECTRONICS
 from dossier.units import Q_

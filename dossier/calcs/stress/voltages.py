@@ -287,11 +287,3 @@ def _rectified_winding(magnetic):
     secondaries = [w for w in magnetic.windings if w.role == "secondary"]
     tapped = [w for w in secondaries if w.centre_tap]
     return (tapped or secondaries or [None])[0]
-
-
-def stage_of(record, ref: str):
-    """(index, stage) of the stage whose parts list ref, or None."""
-    for index, stage in enumerate(record.stages):
-        if any(part.ref == ref for part in stage.parts):
-            return index, stage
-    return None

@@ -85,3 +85,47 @@ def test_a_class_i_unit_gets_the_protective_conductor_current_item_with_its_caut
     assert "qualified person" in item.steps and "Never lift or break the earth" in item.steps
     assert item.expected.high.to("mA").magnitude == pytest.approx(0.75)  # IEC 60335-1 clause 16.2, class I portable
     assert protective_conductor_current(record_with(protection__earth={"protective_class": "II", "enclosure": "plastic"})) == []
+
+
+def _repair_station_with(capacitors: list[dict]):
+    """The repair-station test record (a variac VR1 up to 260 V in its last stage) with these capacitors and parts."""
+    import yaml
+
+    from tests.fixtures.demo import RECORDS, load_record_text
+
+    data = yaml.safe_load((RECORDS / "repair-station" / "rev-A.yaml").read_text(encoding="utf-8"))
+    data.setdefault("devices", {})["capacitors"] = capacitors
+    stages = {0: data["stages"][0]["parts"], 2: data["stages"][2]["parts"]}
+    for capacitor, stage in zip(capacitors, (0, 2)):
+        stages[stage].append({"ref": capacitor["ref"], "kind": "capacitor", "value": "2.2 nF Y1", "role": "suppression"})
+    return load_record_text(yaml.safe_dump(data, sort_keys=False), "repair-station/with-caps.yaml")
+
+
+def test_a_y_cap_behind_a_variac_is_taken_at_its_top_of_scale():
+    from dossier.calcs.protection import CALC
+
+    # C1 at the inlet sees the mains at high line, 253 V; C2 in the variac's stage sees its top of scale at high
+    # line, 260 V x 1.1 = 286 V (common practice: a variac's top of scale sets the voltage of what it feeds).
+    # I = 2 pi f (C1 V1 + C2 V2) (circuit theory).
+    record = _repair_station_with(y_caps("2.2 nF", "2.2 nF"))
+    finding = next(f for f in CALC.run(record) if f.code == "PROT-TOUCH-CURRENT")
+    expected = 2 * math.pi * 50 * 2.2e-9 * (HIGH_LINE + 260 * 1.1) * 1e3
+    assert finding.value.quantity.to("mA").magnitude == pytest.approx(expected, rel=1e-9)
+    assert "C2 sits behind the variac VR1" in finding.explanation and ("protection", "variac", "top_voltage") in finding.keys
+    inlet_only = _repair_station_with(y_caps("2.2 nF"))
+    plain = next(f for f in CALC.run(inlet_only) if f.code == "PROT-TOUCH-CURRENT")
+    assert plain.value.quantity.to("mA").magnitude == pytest.approx(expected_ma(2.2), rel=1e-9)
+    assert "variac" not in plain.explanation
+
+
+def test_an_x_cap_behind_a_variac_discharges_from_its_top_of_scale():
+    from dossier.calcs.rails import CALC
+
+    # t = R C ln(V_peak / 34 V) (IEC 60335-1 22.5: 34 V one second after unplugging). From the variac's crest at
+    # high line, 286 V x sqrt 2 = 404.5 V, instead of the mains' 253 V x sqrt 2 = 357.8 V.
+    x_cap = {"ref": "C2", "position": "across-line", "capacitance": "470 nF", "voltage_rating": "275 V", "safety_class": "X2", "discharge_resistor": "1 Mohm"}
+    record = _repair_station_with([{**x_cap, "ref": "C1", "capacitance": "1 nF", "discharge_resistor": None}, x_cap])
+    finding = next(f for f in CALC.run(record) if f.code == "RAILS-X-DISCHARGE")
+    peak = 260 * 1.1 * math.sqrt(2)
+    assert finding.value.quantity.to("s").magnitude == pytest.approx(1e6 * 471e-9 * math.log(peak / 34), rel=1e-6)
+    assert "behind the variac VR1" in finding.explanation
