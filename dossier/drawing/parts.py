@@ -65,6 +65,13 @@ RCD = either(kind("rcd", "rccb", "rcbo"), role("residual"))
 SOFT_START = kind_and_role(("resistor",), ("soft",))
 LAMP = kind("lamp")
 BYPASS = either(kind_and_role(("relay", "switch", "contactor"), ("bypass",)))
+THERMAL_CUTOFF = either(kind("thermal-cutoff", "thermal cut-off", "thermal-fuse", "thermal fuse"), role("thermal cut-off", "thermal cutoff", "thermal fuse"))
+
+
+def clamped_to(ref: str) -> Test:
+    """A thermal cut-off whose role or value names the part it sits on (e.g. 'thermal cut-off clamped to R1')."""
+    pattern = re.compile(rf"\b{re.escape(ref)}\b")
+    return lambda part: THERMAL_CUTOFF(part) and pattern.search(f"{part.role} {part.value}") is not None
 
 
 class Picker:

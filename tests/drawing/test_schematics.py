@@ -289,3 +289,19 @@ def test_the_mains_input_draws_an_rcd_and_a_bypassed_soft_start_in_the_line(buil
     assert not any("not drawn" in line for line in lines)
     for ref in drawn_refs:
         assert ref in lines
+
+
+def test_a_thermal_cut_off_clamped_to_the_soft_start_resistor_is_drawn_in_series_inside_the_bypass():
+    # demo pa-amp-supply rev B: TF2 clamped to R1, K1's contact across both (a stuck-open relay leaves R1 carrying
+    # the load until TF2 opens, so TF2 must sit in R1's branch, not in the main line)
+    from tests.fixtures.demo import load_demo
+
+    mains = next(f for f in schematics.figures(load_demo("pa-amp-supply", "B")) if f.key == "stage-1-mains-input")
+    lines = svg_lines(mains.svg)
+    assert not any("not drawn" in line for line in lines)
+    where = {}
+    for text in ElementTree.fromstring(mains.svg).iter(f"{SVG}text"):
+        first = next(text.iter(f"{SVG}tspan"), None)
+        if first is not None and first.text in ("R1", "TF2", "K1"):
+            where[first.text] = float(text.get("x"))
+    assert where["R1"] < where["TF2"] and where["K1"] < where["TF2"]  # TF2 after R1, under the bypass's span

@@ -1,6 +1,6 @@
 """Mains input: inlet with earth, the series parts on the line conductor (fuse, switch, residual-current
-device, inrush limiter, soft-start resistor or series lamp with the contact that bypasses it, in the
-record's order), parts across the line (X capacitor, varistor, bleeder), then an
+device, inrush limiter, soft-start resistor (with a thermal cut-off clamped to it) or series lamp with the
+contact that bypasses it, in the record's order), parts across the line (X capacitor, varistor, bleeder), then an
 isolating transformer or a variac where the stage has one (topologies isolating-transformer and
 variac; direct has neither), the bridge rectifier and the bulk capacitors."""
 
@@ -71,8 +71,12 @@ def _series(drawing, found: list[PartView], picker: Picker) -> float:
     series lamp has the contact that bypasses it drawn across it."""
     x = START_X
     for part in found:
-        length = max(sheet.UNIT, sheet.text_width(part.label) + 0.5)
+        length = _part_length(part)
         sheet.add(drawing, _symbol(part).at((x, LINE_Y)).right(length).label(part.label, loc="bottom" if _bypassed(part) else "top"))
+        cutoff = picker.take(P.clamped_to(part.ref)) if P.SOFT_START(part) else None
+        if cutoff is not None:  # in series with the resistor, so inside what the bypass shorts
+            sheet.add(drawing, elm.FuseIEC().at((x + length, LINE_Y)).right(_part_length(cutoff)).label(cutoff.label, loc="bottom"))
+            length += _part_length(cutoff)
         if (P.SWITCH(part) and _two_pole(part)) or P.RCD(part):
             _neutral_pole(drawing, x, length, P.RCD(part))
         else:
@@ -82,6 +86,10 @@ def _series(drawing, found: list[PartView], picker: Picker) -> float:
             _bypass(drawing, x, length, bypass)
         x += length
     return x
+
+
+def _part_length(part: PartView) -> float:
+    return max(sheet.UNIT, sheet.text_width(part.label) + 0.5)
 
 
 def _bypassed(part: PartView) -> bool:
