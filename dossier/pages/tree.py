@@ -201,12 +201,18 @@ def _write_revision(writer: TreeWriter, view: RevisionView) -> None:
 
 def _search_meta(view: RevisionView, name: str) -> dict:
     """An earlier revision ranks below the current one; its checklist, whose items the current revision's
-    repeats, is left out of the search index (its commissioning is on its overview)."""
+    repeats, is left out of the search index (its commissioning is on its overview). A calculations page is
+    tagged with the codes of its findings that did not pass, so a search for a code finds those pages first."""
+    tags = {"search_tags": _codes_not_passed(view)} if name == "calcs" else {}
     if view.is_current:
-        return {}
+        return tags
     if name == "checklist":
         return {"search_exclude": True}
-    return {"search_boost": OLDER_REVISION_BOOST}
+    return {"search_boost": OLDER_REVISION_BOOST, **tags}
+
+
+def _codes_not_passed(view: RevisionView) -> list[str]:
+    return sorted({f.finding.code for section in view.calcs for f in section.findings if f.verdict not in ("pass", "info")})
 
 
 def _page_title(view: RevisionView, name: str) -> str:

@@ -115,6 +115,18 @@ def test_an_earlier_revision_is_searched_for_what_did_not_pass(site):
     assert not any(doc["location"].startswith("builds/doubler-ht-supply/rev-A/checklist.html") for doc in docs)
 
 
+def test_a_calcs_page_is_tagged_in_search_with_the_codes_that_did_not_pass(site):
+    # demo: bench-psu-13v8 rev B fails MAG-BARRIER-INSULATION and THERM-HEATSINK and passes its clearance (ISO-CLEARANCE);
+    # the theme's search ranks a tag far above text, so a search for a code finds the pages where it did not pass first
+    docs = [doc for doc in _index_docs(site) if doc["location"].split("#")[0] == "builds/bench-psu-13v8/calcs.html"]
+    tags = {tag for doc in docs for tag in doc.get("tags", [])}
+    assert {"MAG-BARRIER-INSULATION", "THERM-HEATSINK"} <= tags and "ISO-CLEARANCE" not in tags
+    assert all(doc.get("tags") for doc in docs)
+    passing = [doc for doc in _index_docs(site) if doc["location"].startswith("builds/solar-bank-charger/calcs.html")]
+    assert passing and not any(doc.get("tags") for doc in passing), "rev D passes every check: no tags"
+    assert "md-tag" not in (site / "builds/bench-psu-13v8/calcs.html").read_text(encoding="utf-8"), "tags are for search only"
+
+
 def test_every_build_page_with_mains_carries_the_caution(site):
     from dossier.caution import MAINS_CAUTION, POWER_UP_CAUTION
 
