@@ -26,7 +26,7 @@ from dossier.output.atomic import MARKER
 from dossier.output.fingerprint import archive_inputs, file_hashes, marker_text, read_stamp, render_inputs, shared_context, still_current
 from dossier.output.incremental import Previous, Rendered, RenderRecords, render
 from dossier.output.lock import building, real_output
-from dossier.pages.reuse import build_keys, each_build_pages
+from dossier.pages.reuse import BuildKeys, build_keys, each_build_pages
 from dossier.pages.tree import BuildPages, TreeSummary, finish_tree
 from dossier.render.mkdocs_run import RenderError, source_epoch, write_config
 
@@ -69,8 +69,8 @@ def build_site(archive: Path, output: Path, *, pages_only: bool = False, calcs=N
         keys = build_keys(opened, problems, cache)
         records = RenderRecords(_records_folder(cache))
         hashes, previous = records.site_in_place(output) if reuse and not pages_only else (None, None)
-        made_from = archive_inputs(cache.builds.archive_key, [(folder.name, key) for folder, key in keys.items()]) if keys.whole() and keys else ""
-        if previous is not None and made_from and previous.archive == made_from and still_current(output, read_stamp(output / MARKER).get("pages", ""), hashes):
+        made_from = _made_from(cache, keys)
+        if _made_from_the_same(output, hashes, previous, made_from):
             return _kept(output, previous.outcome, started)
         builds = _reported(each_build_pages(opened, problems, work / DOCS, cache, jobs, keys), progress)
         tree = finish_tree(opened, work / DOCS, builds)
@@ -84,6 +84,20 @@ def build_site(archive: Path, output: Path, *, pages_only: bool = False, calcs=N
         rendered = None if pages_only else _render_and_swap(opened, tree, work, site, announce, jobs)
     replaced = pages_only or rendered is not None
     return Built(output, len(tree.rows), tree.pages, time.perf_counter() - started, tree.warnings, replaced, rendered)
+
+
+def _made_from(cache, keys: BuildKeys) -> str:
+    """The fingerprint of everything the site is made from (fingerprint.archive_inputs); "" when a build has no key."""
+    if not keys or not keys.whole():
+        return ""
+    return archive_inputs(cache.builds.archive_key, [(folder.name, key) for folder, key in keys.items()])
+
+
+def _made_from_the_same(output: Path, hashes: dict[str, str] | None, previous: Previous | None, made_from: str) -> bool:
+    """The site in place was built from exactly these inputs and is as that build left it."""
+    if previous is None or not made_from or previous.archive != made_from:
+        return False
+    return still_current(output, read_stamp(output / MARKER).get("pages", ""), hashes)
 
 
 def _kept(output: Path, outcome: dict, started: float) -> Built:

@@ -76,12 +76,8 @@ class RenderRecords:
         """The hashes of every file of the site dossier wrote at `site` (None: no such site) and its record."""
         if not (site / MARKER).is_file():
             return None, None
-        stats = file_stats(site, frozenset({MARKER}))
         record = self._read(read_stamp(site / MARKER).get("site", ""))
-        if record is not None and set(record.get("stats", {})) == set(stats):
-            hashes = {path: record["site"][path] if tuple(record["stats"][path]) == stats[path] else _sha256(site / path) for path in stats}
-        else:
-            hashes = file_hashes(site, frozenset({MARKER}))
+        hashes = _looked_at(site, record) or file_hashes(site, frozenset({MARKER}))
         record = record if record is not None and record.get("site") == hashes else self._read(digest_of(hashes))
         if record is None or record.get("site") != hashes:  # the site holds other files than the ones recorded
             return hashes, None
@@ -107,6 +103,18 @@ class RenderRecords:
                 old.unlink(missing_ok=True)
         except OSError:  # a cache that cannot be written only costs time
             pass
+
+
+def _looked_at(site: Path, record: dict | None) -> dict[str, str] | None:
+    """The site's hashes from the record, each file whose size or time differs from it read and hashed again;
+    None when the site holds other files than the record lists (or the record cannot be used)."""
+    stats = file_stats(site, frozenset({MARKER}))
+    try:
+        if record is None or set(record["stats"]) != set(stats):
+            return None
+        return {path: record["site"][path] if tuple(record["stats"][path]) == stats[path] else _sha256(site / path) for path in stats}
+    except (KeyError, TypeError, ValueError):  # a record from another version, or damaged: read every file
+        return None
 
 
 def render(config: Path, docs: Path, site: Path, epoch: int, sources: dict[str, str], shared: str, previous: Previous | None, jobs: int) -> Rendered:

@@ -230,3 +230,23 @@ def test_an_archive_kept_at_once_shows_no_progress_bar(tmp_path, monkeypatch, re
     assert first.exit_code == 0 and "reviewing builds" in first.stderr
     kept = CliRunner().invoke(main, command)
     assert kept.exit_code == 0 and "kept it as it is" in kept.stdout and "reviewing builds" not in kept.stderr
+
+
+@pytest.mark.parametrize("damage", ["not json", "a file missing from its hashes", "no stats"])
+def test_a_damaged_render_record_only_means_reading_the_site_again(archive, tmp_path, renderer, damage):
+    import json
+
+    output = tmp_path / "site"
+    build_site(archive, output, calcs=[TEST_CALC], cache=_cached(tmp_path))
+    (record,) = (tmp_path / "caches" / "renders").glob("*.json")
+    data = json.loads(record.read_text(encoding="utf-8"))
+    if damage == "not json":
+        record.write_text("{", encoding="utf-8")
+    elif damage == "no stats":
+        del data["stats"]
+        record.write_text(json.dumps(data), encoding="utf-8")
+    else:
+        data["site"] = {}
+        record.write_text(json.dumps(data), encoding="utf-8")
+    kept = build_site(archive, output, calcs=[TEST_CALC], cache=_cached(tmp_path))
+    assert not kept.replaced and renderer.calls == 1  # the site was read, found unchanged and kept
