@@ -17,6 +17,7 @@ than a slow one, so anything unexpected (a missing or resized file, an unreadabl
 
 from __future__ import annotations
 
+import errno
 import hashlib
 import io
 import json
@@ -142,8 +143,8 @@ class BuildStore:
             try:
                 os.link(source, destination)
                 return
-            except OSError:  # another file system, or links not allowed: copy
-                pass
+            except OSError as error:  # another file system, or links not allowed: copy (and stop trying to link)
+                self.link = error.errno not in (errno.EXDEV, errno.EPERM, errno.ENOTSUP)
         shutil.copyfile(source, destination)
 
     def trim(self) -> int:

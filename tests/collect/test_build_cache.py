@@ -273,3 +273,23 @@ def test_the_fingerprint_covers_dossier_and_the_plugin_source(plugin, tmp_path):
     (tmp_path / "plugins" / PLUGIN / "__init__.py").write_text(PLUGIN_SOURCE.format(limit=7) + "\n# changed\n", encoding="utf-8")
     code_version.forget()
     assert code_version.code_fingerprint([plugin.CALC]) != before
+
+
+def test_a_store_on_another_file_system_copies_and_stops_trying_to_link(tmp_path, monkeypatch):
+    import errno
+    import os
+
+    store = BuildStore(tmp_path / "store", link=True)
+    (tmp_path / "tree").mkdir()
+    (tmp_path / "tree" / "index.md").write_bytes(b"page")
+    tried = []
+
+    def across_devices(source, destination):
+        tried.append(destination)
+        raise OSError(errno.EXDEV, "Invalid cross-device link")
+
+    monkeypatch.setattr(os, "link", across_devices)
+    key = "ef" + "0" * 62
+    store.save(key, tmp_path / "tree", {"index.md": FileFacts.of(b"page")}, {"n": 1})
+    assert store.place(store.load(key), tmp_path / "placed") and (tmp_path / "placed" / "index.md").read_bytes() == b"page"
+    assert len(tried) == 1 and store.link is False  # copied, and linking was not tried again
