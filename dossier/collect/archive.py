@@ -22,7 +22,7 @@ from dossier.signoff.revision import revision_signoffs
 from dossier.signoff.state import SignoffState
 from dossier.collect.caches import Caches
 from dossier.collect.extras import Extras, revision_extras
-from dossier.collect.parallel import collect_in_workers, worker_count
+from dossier.collect.parallel import collected
 from dossier.reading.settings import ArchiveSettings, load_settings
 from dossier.calcs import isolation, rails, thermal
 
@@ -106,20 +106,10 @@ def configured_calcs(calcs: list[Calc], settings: ArchiveSettings) -> list[Calc]
     return [next((configure(settings) for built_in, configure in CONFIGURABLE if calc is built_in), calc) for calc in calcs]
 
 
-def each_build(archive: Archive, problems: list[Problem], cache=None, jobs: int | None = None, collect_one=None) -> Iterator[Build]:
+def each_build(archive: Archive, problems: list[Problem], cache=None, jobs: int | None = None) -> Iterator[Build]:
     """Builds in archive order, a few at a time so a large archive is never all in memory; problems are added
-    to the list. Large archives are collected on every core (see dossier.collect.parallel).
-
-    collect_one(archive, folder, cache) -> (result or None, problems) may do more with each build in the
-    worker (write its pages); what it returns is yielded in place of the build."""
-    folders = build_dirs(archive.root)
-    workers = worker_count(len(folders), jobs)
-    collect_one = collect_one or collect_with_problems
-    if workers == 1:
-        results = (collect_one(archive, folder, cache) for folder in folders)
-    else:
-        results = collect_in_workers(archive, folders, cache, workers, collect_one)
-    for build, found in results:
+    to the list. Large archives are collected on every core (see dossier.collect.parallel)."""
+    for build, found in collected(archive, build_dirs(archive.root), cache, collect_with_problems, jobs):
         problems.extend(found)
         if build is not None:
             yield build

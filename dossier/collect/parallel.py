@@ -27,6 +27,15 @@ def worker_count(builds: int, jobs: int | None = None) -> int:
     return max(1, min(os.cpu_count() or 1, builds))
 
 
+def collected(archive, folders: list[Path], cache, collect_one, jobs: int | None = None) -> Iterator[tuple]:
+    """collect_one(archive, folder, cache) for each folder, in order: in this process for a few folders, else in
+    workers on every core (or as many as jobs says)."""
+    workers = worker_count(len(folders), jobs)
+    if workers == 1:
+        return (collect_one(archive, folder, cache) for folder in folders)
+    return collect_in_workers(archive, folders, cache, workers, collect_one)
+
+
 def collect_in_workers(archive, folders: list[Path], cache, workers: int, collect_one) -> Iterator[tuple]:
     """(build, problems) per folder, in order, collected by `workers` forked processes."""
     context = multiprocessing.get_context("fork")  # workers inherit the archive, the calcs and the caches

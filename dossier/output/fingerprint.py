@@ -96,20 +96,12 @@ def marker_text(site_hashes: dict[str, str], inputs: str) -> str:
     return f"{MARKER_TEXT}pages: {inputs}\nsite: {digest_of(site_hashes)}\n"
 
 
-def site_hashes(output: Path) -> dict[str, str] | None:
-    """The hashes of a site dossier wrote (its marker left out), or None when output is no such site."""
-    if not (output / MARKER).is_file():
-        return None
-    return file_hashes(output, frozenset({MARKER}))
-
-
-def still_current(output: Path, inputs: str, hashes: dict[str, str] | None = None) -> bool:
-    """True when output was rendered from these very inputs and nothing in it has changed since."""
+def still_current(output: Path, inputs: str, hashes: dict[str, str]) -> bool:
+    """True when output was rendered from these very inputs and its files (hashes) are the ones it was left with."""
     stamped = read_stamp(output / MARKER)
     if stamped.get("pages") != inputs:
         return False
-    hashes = hashes if hashes is not None else site_hashes(output)
-    return hashes is not None and stamped.get("site") == digest_of(hashes)
+    return stamped.get("site") == digest_of(hashes)
 
 
 def read_stamp(marker: Path) -> dict[str, str]:

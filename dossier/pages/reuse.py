@@ -16,7 +16,7 @@ from dossier.collect.archive import Archive, collect_with_problems
 from dossier.collect.build_store import BuildStore
 from dossier.collect.caches import Caches
 from dossier.collect.code_version import code_fingerprint
-from dossier.collect.parallel import collect_in_workers, worker_count
+from dossier.collect.parallel import collected
 from dossier.pages import layout
 from dossier.pages.tree import BuildPages, write_build_pages
 from dossier.problems import Problem
@@ -71,11 +71,7 @@ def _placed(cache: Caches | None, key: str | None, target: Path) -> BuildPages |
 
 def _written(archive: Archive, folders: list[Path], cache: Caches | None, root: Path, keys: BuildKeys, jobs: int | None) -> Iterator[tuple]:
     """(pages or None, problems) for each folder, in order: in workers when there are enough of them."""
-    write_one = functools.partial(_build_pages, root=root, keys=keys)
-    workers = worker_count(len(folders), jobs)
-    if workers == 1:
-        return (write_one(archive, folder, cache) for folder in folders)
-    return collect_in_workers(archive, folders, cache, workers, write_one)
+    return collected(archive, folders, cache, functools.partial(_build_pages, root=root, keys=keys), jobs)
 
 
 def _build_pages(archive: Archive, folder: Path, cache: Caches | None, root: Path, keys: BuildKeys) -> tuple[BuildPages | None, list[Problem]]:

@@ -208,10 +208,22 @@ def _damage(entry, how: str) -> None:
         part.write_bytes(part.read_bytes()[:20])
 
 
+@pytest.mark.parametrize("link", [True, False])
+def test_a_placed_entry_is_linked_only_when_asked(tmp_path, link):
+    store = BuildStore(tmp_path / "store", link=link)
+    (tmp_path / "tree").mkdir()
+    (tmp_path / "tree" / "index.md").write_bytes(b"page")
+    key = "aa" + "0" * 62
+    store.save(key, tmp_path / "tree", {"index.md": FileFacts.of(b"page")}, {"n": 1})
+    store.place(store.load(key), tmp_path / "placed")
+    assert (tmp_path / "placed" / "index.md").stat().st_nlink == (3 if link else 1)  # tree, entry, placed: one file
+
+
 def test_a_site_build_links_the_store_and_a_page_tree_copies_it(archive, tmp_path, calcs):
     """A tree written as the output (--pages-only) shares no file with the store, so editing it cannot reach the cache."""
     caches = _caches(tmp_path)
     pages = _pages(archive, tmp_path, calcs, caches)
+    assert caches.builds.link is False
     stored = [path for entry in _entries(tmp_path / "caches" / "builds") for path in (entry / "pages").rglob("*") if path.is_file()]
     assert stored and all(path.stat().st_nlink == 1 for path in stored)
     assert all(path.stat().st_nlink == 1 for path in pages.rglob("*") if path.is_file())
